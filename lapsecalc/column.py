@@ -1,0 +1,211 @@
+"""One air column: a surface observation plus an assumed environmental lapse rate (ELR)."""
+# Sources:
+#   Hydrostatic equation with the ideal gas law, exact for a linear temperature
+#     profile (standard.layer_pressure); ICAO Doc 7488/3 for the ISA constants.
+#   Freezing and icing levels: airframe icing is most likely in cloud between 0 and
+#     -20 degC (common practice).
+from lapsecalc.constants import T0_K, EPS
+from lapsecalc.limits import (check, check_p, check_elev, check_lapse, check_dew,
+                              T_MIN_C, T_MAX_C)
+from lapsecalc.moisture import _es_water, _mixing_ratio_kg_kg, relative_humidity, wet_bulb
+from lapsecalc.standard import (layer_pressure, layer_height, station_pressure, qnh,
+                                pressure_altitude, isa_height_of_density, _density)
+from lapsecalc.condensation import cloud_base
+
+TOP_MAX_M = 32000.0
+# Heights closer than this are one level (crossings found in two layers), m.
+_SAME_LEVEL_M = 0.01
+
+
+def _layer_tops(lapse, elev_m, top_m):
+    # [(top_msl_m, k_per_km), ...] from a number or from [(top_agl_m or None, k_per_km), ...].
+    if isinstance(lapse, (int, float)):
+        return [(top_m, check_lapse("lapse", lapse))]
+    try:
+        items = list(lapse)
+    except TypeError:
+        raise ValueError("lapse=%r must be a number in K/km or a list of (top_agl_m, k_per_km)"
+                         % (lapse,))
+    if not items:
+        raise ValueError("lapse=[] is empty; give at least one layer (top_agl_m, k_per_km)")
+    tops = []
+    below = 0.0
+    for i, item in enumerate(items):
+        try:
+            top_agl, rate = item
+        except (TypeError, ValueError):
+            raise ValueError("lapse layer %d=%r must be a pair (top_agl_m, k_per_km)" % (i + 1, item))
+        rate = check_lapse("lapse layer %d rate" % (i + 1), rate)
+        if top_agl is None:
+            if i != len(items) - 1:
+                raise ValueError("lapse layer %d has no top; only the last layer may run to"
+                                 " the column top" % (i + 1))
+            tops.append((top_m, rate))
+            break
+        top_agl = check("lapse layer %d top_agl_m" % (i + 1), top_agl, below + 1.0,
+                        TOP_MAX_M, "m (above the layer below)")
+        below = top_agl
+        tops.append((min(elev_m + top_agl, top_m), rate))
+        if elev_m + top_agl >= top_m:
+            break
+    return tops
+
+
+class Column:
+    """A surface observation (t_c, td_c degC, station pressure p_hpa, elevation elev_m)
+    and an assumed ELR, up to top_m (MSL).
+
+    lapse is a number in K/km (positive: cooling with height) or layers
+    [(top_agl_m, k_per_km), ...]; the last top may be None and then runs to top_m.
+    A last layer that ends below top_m ends the column there (nothing above it is
+    invented). Heights are geopotential metres MSL unless a name says agl.
+    """
+
+    def __init__(self, t_c, td_c, p_hpa, elev_m, lapse=6.5, top_m=16000.0):
+        self.t_c, self.td_c = check_dew(t_c, td_c)
+        self.p_hpa = check_p("p_hpa", p_hpa)
+        self.elev_m = check_elev("elev_m", elev_m)
+        top = check("top_m", top_m, self.elev_m + 100.0, TOP_MAX_M, "m MSL (at least 100 m above"
+                    " the elevation)")
+        # layers: (bottom_m, top_m, bottom_t_k, grad_k_per_m, bottom_p_hpa)
+        layers = []
+        z, t, p = self.elev_m, self.t_c + T0_K, self.p_hpa
+        for z_top, rate in _layer_tops(lapse, self.elev_m, top):
+            grad = -rate / 1000.0
+            t_top = t + grad * (z_top - z)
+            if not (T_MIN_C <= t_top - T0_K <= T_MAX_C):
+                z_bad = z + (T_MIN_C + T0_K - t if t_top < t else T_MAX_C + T0_K - t) / grad
+                raise ValueError("the ELR takes the air outside %g..%g degC at %.0f m MSL;"
+                                 " allowed only below that: lower top_m or add layers"
+                                 % (T_MIN_C, T_MAX_C, z_bad))
+            layers.append((z, z_top, t, grad, p))
+            p = layer_pressure(p, t, grad, z_top - z)
+            z, t = z_top, t_top
+        self.layers = layers
+        self.top_m = z
+        self.r_kg_kg = _mixing_ratio_kg_kg(_es_water(self.td_c), self.p_hpa)
+
+    @classmethod
+    def from_qnh(cls, t_c, td_c, qnh_hpa, elev_m, lapse=6.5, top_m=16000.0):
+        """The same column built from QNH (hPa) instead of station pressure."""
+        return cls(t_c, td_c, station_pressure(qnh_hpa, elev_m), elev_m, lapse, top_m)
+
+    def _layer(self, z_m):
+        z = check("z_m", z_m, self.elev_m, self.top_m, "m MSL (the column)")
+        for layer in self.layers:
+            if z <= layer[1]:
+                return z, layer
+        return z, self.layers[-1]
+
+    def t_at(self, z_m):
+        """Environment temperature, degC, at z_m MSL (inside the column)."""
+        z, (z0, _, t0, grad, _) = self._layer(z_m)
+        return t0 + grad * (z - z0) - T0_K
+
+    def p_at(self, z_m):
+        """Environment pressure, hPa, at z_m MSL: hydrostatic, exact per linear layer."""
+        z, (z0, _, t0, grad, p0) = self._layer(z_m)
+        return layer_pressure(p0, t0, grad, z - z0)
+
+    def z_at(self, p_hpa):
+        """Height, m MSL, where the environment pressure is p_hpa (inside the column)."""
+        lo = layer_pressure(self.layers[-1][4], self.layers[-1][2], self.layers[-1][3],
+                            self.top_m - self.layers[-1][0])
+        p = check("p_hpa", p_hpa, lo, self.p_hpa, "hPa (the column)")
+        for z0, z1, t0, grad, p0 in self.layers:
+            z = z0 + layer_height(p0, t0, grad, p)
+            if z <= z1:
+                return z
+        return self.top_m
+
+    def vapour_pressure_at(self, z_m):
+        """Vapour pressure, hPa, assumed at z_m: the surface mixing ratio carried up
+        (a well-mixed layer), capped at saturation. Humidity aloft is not observed."""
+        p = self.p_at(z_m)
+        e = self.r_kg_kg * p / (EPS + self.r_kg_kg)
+        es = _es_water(self.t_at(z_m))
+        return es if e > es else e
+
+    def density_at(self, z_m):
+        """Air density, kg/m3, at z_m MSL (humidity as vapour_pressure_at)."""
+        return _density(self.p_at(z_m), self.t_at(z_m), self.vapour_pressure_at(z_m))
+
+    def density_altitude_at(self, z_m):
+        """Density altitude, m, of the air at z_m MSL (humidity as vapour_pressure_at;
+        more vapour than real errs toward a higher, more cautious density altitude)."""
+        return isa_height_of_density(self.density_at(z_m))
+
+    def crossings(self, t_c):
+        """Every height, m MSL, where the environment temperature passes t_c degC,
+        lowest first (an inversion can give several)."""
+        t_k = t_c + T0_K
+        out = []
+        for z0, z1, t0, grad, _ in self.layers:
+            if grad == 0.0:
+                continue
+            z = z0 + (t_k - t0) / grad
+            if z0 <= z <= z1 and not (out and z - out[-1] < _SAME_LEVEL_M):
+                out.append(z)
+        return out
+
+    def level(self, t_c):
+        """Lowest height, m MSL, at or above the surface where the environment is at or
+        below t_c degC: the elevation if the surface already is; None if never."""
+        if self.t_c <= t_c:
+            return self.elev_m
+        for z in self.crossings(t_c):
+            return z
+        return None
+
+    def cloud_base(self, method="exact"):
+        """(height_agl_m, t_c, p_hpa) of the surface parcel's LCL (condensation.cloud_base)."""
+        return cloud_base(self.t_c, self.td_c, self.p_hpa, method)
+
+    def report(self, thermal_excess_c=0.0):
+        """Every result for this column as a dict of plain values with units in the keys;
+        None where a level does not exist in the column."""
+        from lapsecalc import stability, parcel
+        lcl_agl, lcl_t, lcl_p = self.cloud_base()
+        lcl_msl = self.elev_m + lcl_agl
+        path = parcel.path(self, lcl_msl)
+        r = {
+            "elevation_m": self.elev_m,
+            "top_msl_m": self.top_m,
+            "t_c": self.t_c,
+            "td_c": self.td_c,
+            "rh_pct": relative_humidity(self.t_c, self.td_c),
+            "mixing_ratio_g_kg": 1000.0 * self.r_kg_kg,
+            "wet_bulb_c": wet_bulb(self.t_c, self.td_c, self.p_hpa),
+            "station_pressure_hpa": self.p_hpa,
+            "qnh_hpa": qnh(self.p_hpa, self.elev_m),
+            "pressure_altitude_m": pressure_altitude(self.p_hpa),
+            "air_density_kg_m3": self.density_at(self.elev_m),
+            "density_altitude_m": self.density_altitude_at(self.elev_m),
+            "cloud_base_agl_m": lcl_agl,
+            "cloud_base_msl_m": lcl_msl if lcl_msl <= self.top_m else None,
+            "lcl_t_c": lcl_t,
+            "lcl_p_hpa": lcl_p,
+            "freezing_level_msl_m": self.level(0.0),
+            "minus10_level_msl_m": self.level(-10.0),
+            "minus20_level_msl_m": self.level(-20.0),
+            "freezing_levels_msl_m": self.crossings(0.0),
+            "minus10_levels_msl_m": self.crossings(-10.0),
+            "minus20_levels_msl_m": self.crossings(-20.0),
+            "warm_layer_aloft": warm_layer_aloft(self),
+            "parcel_freezing_level_msl_m": parcel.level(path, 0.0),
+        }
+        stability.add_to_report(self, path, r, thermal_excess_c)
+        return r
+
+
+def warm_layer_aloft(col):
+    """True when air above 0 degC lies over air at or below 0 degC somewhere in the
+    column (the freezing-rain set-up)."""
+    cold_below = col.t_c <= 0.0
+    for z0, z1, t0, grad, _ in col.layers:
+        t1 = t0 + grad * (z1 - z0)
+        if cold_below and (t0 > T0_K or t1 > T0_K):
+            return True
+        if t0 <= T0_K or t1 <= T0_K:
+            cold_below = True
+    return False

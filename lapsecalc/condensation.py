@@ -1,0 +1,128 @@
+"""Cloud base: the lifting condensation level of a surface parcel, three ways."""
+# Sources:
+#   Romps (2017), Exact expression for the lifting condensation level,
+#     J. Atmos. Sci. 74, 3891-3900, eqs. 22a-c (LCL height, temperature, pressure).
+#   Bolton (1980), Mon. Wea. Rev. 108, 1046-1053, eq. 15 (LCL temperature from T, Td).
+#   Spread rule: about 125 m per degC of temperature-dewpoint spread (common practice).
+from math import exp, log, sqrt, pow, fabs
+from lapsecalc.constants import G0, R_DRY, CP_DRY, KAPPA, T0_K, DRY_LAPSE_K_PER_KM
+from lapsecalc.limits import check_p, check_dew
+
+# Romps (2017) constants, SI units; they differ slightly from ours (g 9.81, Ra 287.04)
+# and are kept as the paper gives them so that the paper's numbers are reproduced.
+_TTRIP = 273.16
+_PTRIP = 611.65
+_E0V = 2.3740e6
+_GR = 9.81
+_RA = 287.04
+_RV = 461.0
+_CVA = 719.0
+_CVV = 1418.0
+_CVL = 4119.0
+_CPA = _CVA + _RA
+_CPV = _CVV + _RV
+_LAMBERT_CAP = 12
+_LAMBERT_TOL = 1e-6
+SPREAD_M_PER_C = 125.0
+
+
+def lambert_w_minus1(x):
+    """Lower branch W_-1(x) of the Lambert W function for -1/e <= x < 0.
+
+    Start from the branch-point series (x near -1/e) or the logarithmic asymptote,
+    then Halley steps: at most 12, stopping when a step is under 1e-6 relative.
+    """
+    if not (-0.36787944117144233 <= x < 0.0):
+        if fabs(x + 0.36787944117144233) < 1e-9:
+            return -1.0
+        raise ValueError("lambert_w_minus1 needs -1/e <= x < 0, got %r" % x)
+    if x < -0.25:
+        q = 2.0 * (1.0 + 2.718281828459045 * x)
+        s = -sqrt(q if q > 0.0 else 0.0)
+        w = -1.0 + s * (1.0 - s * (1.0 / 3.0 - s * 11.0 / 72.0))
+    else:
+        l1 = log(-x)
+        l2 = log(-l1)
+        w = l1 - l2 + l2 / l1
+    for _ in range(_LAMBERT_CAP):
+        ew = exp(w)
+        f = w * ew - x
+        wp1 = w + 1.0
+        if wp1 == 0.0:
+            return w
+        step = f / (ew * wp1 - (w + 2.0) * f / (2.0 * wp1))
+        w -= step
+        if fabs(step) <= _LAMBERT_TOL * fabs(w):
+            return w
+    raise ValueError("lambert_w_minus1 did not converge for x=%r" % x)
+
+
+def _romps_pvstar(t_k):
+    # Romps (2017) eq. 4: saturation vapour pressure over liquid, Pa.
+    return _PTRIP * pow(t_k / _TTRIP, (_CPV - _CVL) / _RV) * \
+        exp((_E0V - (_CVV - _CVL) * _TTRIP) / _RV * (1.0 / _TTRIP - 1.0 / t_k))
+
+
+def _romps(t_c, td_c, p_hpa):
+    t = t_c + T0_K
+    rh = _romps_pvstar(td_c + T0_K) / _romps_pvstar(t)
+    if rh > 1.0:
+        rh = 1.0
+    p = 100.0 * p_hpa
+    pv = rh * _romps_pvstar(t)
+    qv = _RA * pv / (_RV * p + (_RA - _RV) * pv)
+    rm = (1.0 - qv) * _RA + qv * _RV
+    cpm = (1.0 - qv) * _CPA + qv * _CPV
+    a = cpm / rm + (_CVL - _CPV) / _RV
+    b = -(_E0V - (_CVV - _CVL) * _TTRIP) / (_RV * t)
+    c = b / a
+    w = lambert_w_minus1(pow(rh, 1.0 / a) * c * exp(c))
+    t_lcl = c / w * t                                   # eq. 22b
+    z = cpm * t / _GR * (1.0 - b / (a * w))              # eq. 22a
+    p_lcl = p_hpa * pow(t_lcl / t, cpm / rm)             # eq. 22c
+    return z, t_lcl - T0_K, p_lcl
+
+
+def _hypsometric_dz(p_lo_hpa, p_hi_hpa, t_mean_k):
+    # Thickness, m, between two pressures with a mean temperature (hypsometric equation).
+    return R_DRY * t_mean_k / G0 * log(p_lo_hpa / p_hi_hpa)
+
+
+def _bolton(t_c, td_c, p_hpa):
+    t = t_c + T0_K
+    td = td_c + T0_K
+    t_lcl = 1.0 / (1.0 / (td - 56.0) + log(t / td) / 800.0) + 56.0   # eq. 15
+    p_lcl = p_hpa * pow(t_lcl / t, 1.0 / KAPPA)                       # Poisson
+    return _hypsometric_dz(p_hpa, p_lcl, 0.5 * (t + t_lcl)), t_lcl - T0_K, p_lcl
+
+
+def _spread(t_c, td_c, p_hpa):
+    z = SPREAD_M_PER_C * (t_c - td_c)
+    t_lcl = t_c - DRY_LAPSE_K_PER_KM * z / 1000.0
+    t_mean = 0.5 * (t_c + t_lcl) + T0_K
+    p_lcl = p_hpa * exp(-G0 * z / (R_DRY * t_mean))
+    return z, t_lcl, p_lcl
+
+
+_METHODS = {"exact": _romps, "bolton": _bolton, "spread": _spread}
+
+
+def cloud_base(t_c, td_c, p_hpa, method="exact"):
+    """Lifting condensation level of a surface parcel: (height_agl_m, t_c, p_hpa).
+
+    Inputs degC, degC, hPa (-90..60 degC, 1..1100 hPa). Methods:
+      exact  - Romps (2017) eqs. 22a-c through W_-1 (own Halley iteration, capped);
+               the humidity is the ratio of Romps' own saturation pressures at the
+               dewpoint and the temperature. Reproduces the paper's formula to 1e-6.
+      bolton - Bolton (1980) eq. 15 for the temperature, Poisson's equation for the
+               pressure and the hypsometric equation for the height.
+      spread - the 125 m per degC rule (common practice), dry adiabat for t and p.
+    """
+    t_c, td_c = check_dew(t_c, td_c)
+    p_hpa = check_p("p_hpa", p_hpa)
+    fn = _METHODS.get(method)
+    if fn is None:
+        raise ValueError("method=%r is not known; allowed: exact, bolton, spread" % (method,))
+    if t_c - td_c <= 0.0:
+        return 0.0, t_c, p_hpa
+    return fn(t_c, td_c, p_hpa)

@@ -1,0 +1,54 @@
+"""Input ranges and the checks that enforce them (every public function uses these)."""
+from math import isfinite
+
+T_MIN_C = -90.0
+T_MAX_C = 60.0
+P_MIN_HPA = 1.0
+P_MAX_HPA = 1100.0
+QNH_MIN_HPA = 850.0
+QNH_MAX_HPA = 1100.0
+ELEV_MIN_M = -500.0
+ELEV_MAX_M = 9000.0
+LAPSE_MIN_K_PER_KM = -30.0
+LAPSE_MAX_K_PER_KM = 30.0
+# How far a dewpoint may exceed the temperature before it is an error (rounding), K.
+DEW_SLACK_K = 0.05
+
+
+def check(name, value, lo, hi, unit):
+    """Return value as a float, or raise ValueError naming it and the range lo..hi."""
+    try:
+        x = float(value)
+    except (TypeError, ValueError):
+        raise ValueError("%s=%r is not a number; allowed %g..%g %s" % (name, value, lo, hi, unit))
+    if not isfinite(x) or x < lo or x > hi:
+        raise ValueError("%s=%g is outside the allowed range %g..%g %s" % (name, x, lo, hi, unit))
+    return x
+
+
+def check_t(name, t_c):
+    return check(name, t_c, T_MIN_C, T_MAX_C, "degC")
+
+
+def check_p(name, p_hpa):
+    return check(name, p_hpa, P_MIN_HPA, P_MAX_HPA, "hPa")
+
+
+def check_elev(name, elev_m):
+    return check(name, elev_m, ELEV_MIN_M, ELEV_MAX_M, "m")
+
+
+def check_lapse(name, lapse):
+    return check(name, lapse, LAPSE_MIN_K_PER_KM, LAPSE_MAX_K_PER_KM, "K/km")
+
+
+def check_dew(t_c, td_c):
+    """Check a temperature and dewpoint pair; returns (t_c, td_c), td clipped to t."""
+    t = check_t("t_c", t_c)
+    td = check_t("td_c", td_c)
+    if td > t + DEW_SLACK_K:
+        raise ValueError("td_c=%g is above t_c=%g; a dewpoint may not exceed the temperature"
+                         " (allowed -90..%g degC)" % (td, t, t))
+    if td > t:
+        td = t
+    return t, td

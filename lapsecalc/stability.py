@@ -1,0 +1,247 @@
+"""Stability of the assumed ELR, and what the surface parcel and thermals will do."""
+# Sources (definitions; Wallace & Hobbs, Atmospheric Science, 2nd ed., ch. 3 and 9):
+#   stability by comparing the ELR with the dry (DALR) and saturated (SALR) rates;
+#   LFC, EL, CAPE = g * integral of (Tp - Te)/Te dz over the positive area above the
+#   LFC, CIN the negative area below it; lifted index Te - Tp at 500 hPa;
+#   convective condensation level and convective (trigger) temperature.
+# Plain air temperatures are used for parcel and environment, not virtual ones: the
+# humidity aloft is not observed, so CAPE and CIN here are for the temperature only.
+from math import log, exp, fabs, ceil
+from lapsecalc.constants import G0, T0_K, KAPPA, EPS, DRY_LAPSE_K_PER_KM
+from lapsecalc.limits import check
+from lapsecalc.moisture import _dewpoint_from_e
+from lapsecalc.adiabats import moist_lapse_rate
+from lapsecalc.condensation import cloud_base
+from lapsecalc import parcel
+
+# A lapse rate this close to a reference rate is called neutral, K/km.
+NEUTRAL_BAND_K_PER_KM = 0.1
+# Deepest band one stability class speaks for, m (the saturated rate varies with height).
+BAND_M = 2000.0
+_CCL_CAP = 40
+_CCL_TOL_M = 0.5
+
+CAUTIONS = (
+    "Estimates from one surface observation and an assumed lapse rate, not a sounding.",
+    "Real lapse rates change by the hour and by the place; recheck before each flight.",
+    "Not an official forecast or briefing: use the official forecasts and briefings.",
+    "Follow the flight manual, local regulations and licensed practice.",
+)
+
+
+def classify(lapse_k_per_km, saturated_k_per_km):
+    """Stability class of a layer with the given ELR against the dry rate and the
+    given saturated rate (both K/km): absolutely_stable, conditionally_unstable,
+    absolutely_unstable, or neutral (within 0.1 K/km of either reference)."""
+    if fabs(lapse_k_per_km - DRY_LAPSE_K_PER_KM) <= NEUTRAL_BAND_K_PER_KM or \
+            fabs(lapse_k_per_km - saturated_k_per_km) <= NEUTRAL_BAND_K_PER_KM:
+        return "neutral"
+    if lapse_k_per_km > DRY_LAPSE_K_PER_KM:
+        return "absolutely_unstable"
+    if lapse_k_per_km < saturated_k_per_km:
+        return "absolutely_stable"
+    return "conditionally_unstable"
+
+
+def _layer_class(col, z0, z1, lapse):
+    zm = 0.5 * (z0 + z1)
+    salr = moist_lapse_rate(col.t_at(zm), col.p_at(zm))
+    return {"bottom_msl_m": z0, "top_msl_m": z1, "lapse_k_per_km": lapse,
+            "saturated_k_per_km": salr, "class": classify(lapse, salr)}
+
+
+def layers(col, max_depth_m=BAND_M):
+    """Stability of every ELR layer, bottom first: a list of dicts (bottom_msl_m,
+    top_msl_m, lapse_k_per_km, saturated_k_per_km at mid-layer, class). A layer
+    deeper than max_depth_m is split into equal bands no deeper than that, because
+    the saturated rate changes with height inside it."""
+    out = []
+    for z0, z1, _, grad, _ in col.layers:
+        n = int(ceil((z1 - z0) / max_depth_m))
+        for i in range(n):
+            a = z0 + (z1 - z0) * i / n
+            b = z1 if i == n - 1 else z0 + (z1 - z0) * (i + 1) / n
+            out.append(_layer_class(col, a, b, -1000.0 * grad))
+    return out
+
+
+def whole_column(col):
+    """Stability of the column as a whole (mean ELR, saturated rate at mid-height)."""
+    depth = col.top_m - col.elev_m
+    return _layer_class(col, col.elev_m, col.top_m,
+                        1000.0 * (col.t_c - col.t_at(col.top_m)) / depth)
+
+
+def _crossing(z0, d0, z1, d1):
+    # Height where a quantity linear from d0 at z0 to d1 at z1 is zero.
+    return z0 + (z1 - z0) * d0 / (d0 - d1)
+
+
+def _area(z0, b0, z1, b1):
+    # Trapezoid of g*b over [z0, z1], split at a sign change: (positive, negative), J/kg.
+    if b0 >= 0.0 and b1 >= 0.0:
+        return 0.5 * G0 * (b0 + b1) * (z1 - z0), 0.0
+    if b0 <= 0.0 and b1 <= 0.0:
+        return 0.0, 0.5 * G0 * (b0 + b1) * (z1 - z0)
+    zc = _crossing(z0, b0, z1, b1)
+    a0 = 0.5 * G0 * b0 * (zc - z0)
+    a1 = 0.5 * G0 * b1 * (z1 - zc)
+    return (a0, a1) if b0 > 0.0 else (a1, a0)
+
+
+def parcel_analysis(col, levels, lcl_msl_m):
+    """LFC, EL, CAPE, CIN and lifted index of the surface parcel along levels
+    (parcel.path). Returns a dict; None where a level does not exist; EL above the
+    column top is reported as such (el_msl_m None, el_above_top True) and CAPE is
+    then the area up to the top."""
+    # Buoyancy b = (Tp - Te) / Te at each level.
+    pts = [(z, (tp - te) / (te + T0_K)) for z, _, tp, te in levels]
+    lfc = el = None
+    cape = 0.0
+    in_positive = False
+    for i in range(1, len(pts)):
+        z0, b0 = pts[i - 1]
+        z1, b1 = pts[i]
+        if z1 <= lcl_msl_m:
+            continue
+        if z0 < lcl_msl_m:
+            # Start the cloudy part exactly at the LCL (a level of the path).
+            continue
+        if lfc is None and (b0 > 0.0 or b1 > 0.0):
+            lfc = z0 if b0 > 0.0 else _crossing(z0, b0, z1, b1)
+        if lfc is not None:
+            cape += _area(z0, b0, z1, b1)[0]
+            if b0 > 0.0 and b1 <= 0.0:
+                el = _crossing(z0, b0, z1, b1)
+                in_positive = False
+            elif b1 > 0.0:
+                in_positive = True
+    el_above_top = lfc is not None and in_positive
+    if el_above_top:
+        el = None
+    cin = None
+    if lfc is not None:
+        cin = 0.0
+        for i in range(1, len(pts)):
+            z0, b0 = pts[i - 1]
+            z1, b1 = pts[i]
+            if z0 >= lfc:
+                break
+            if z1 > lfc:
+                b1 = b0 + (b1 - b0) * (lfc - z0) / (z1 - z0)
+                z1 = lfc
+            cin += _area(z0, b0, z1, b1)[1]
+    return {"lfc_msl_m": lfc, "el_msl_m": el, "el_above_top": el_above_top,
+            "cape_j_kg": cape, "cin_j_kg": cin,
+            "lifted_index_c": lifted_index(levels, 500.0)}
+
+
+def lifted_index(levels, p_hpa):
+    """Environment minus parcel temperature, degC, at p_hpa (linear in ln p between
+    levels); None when the column does not reach that pressure."""
+    for i in range(1, len(levels)):
+        _, p0, tp0, te0 = levels[i - 1]
+        _, p1, tp1, te1 = levels[i]
+        if p1 <= p_hpa <= p0:
+            f = log(p0 / p_hpa) / log(p0 / p1) if p0 != p1 else 0.0
+            return (te0 + f * (te1 - te0)) - (tp0 + f * (tp1 - tp0))
+    return None
+
+
+def thermal_top(col, excess_c=0.0):
+    """Top, m MSL, of dry thermals: where a surface parcel at t_c + excess_c rising
+    dry-adiabatically (9.77 K/km) meets the environment; the elevation when it cannot
+    rise; None when it is still warmer at the column top."""
+    excess = check("excess_c", excess_c, 0.0, 10.0, "K")
+    tp0 = col.t_c + excess + T0_K
+    for z0, z1, t0, grad, _ in col.layers:
+        d0 = tp0 - DRY_LAPSE_K_PER_KM / 1000.0 * (z0 - col.elev_m) - t0
+        d1 = tp0 - DRY_LAPSE_K_PER_KM / 1000.0 * (z1 - col.elev_m) - (t0 + grad * (z1 - z0))
+        if d0 <= 0.0:
+            return z0
+        if d1 <= 0.0:
+            return _crossing(z0, d0, z1, d1)
+    return None
+
+
+def ccl(col, levels):
+    """Convective condensation level, m MSL: where the environment temperature meets
+    the dewpoint of the surface mixing ratio; None when not inside the column.
+    Bracketed on the path's levels, then refined by bisection (at most 40 steps, to
+    0.5 m)."""
+    r = col.r_kg_kg
+
+    def gap(z, p, te):
+        return te - _dewpoint_from_e(r * p / (EPS + r))
+
+    if col.t_c - col.td_c <= 0.0:
+        return col.elev_m
+    z0, p0, _, te0 = levels[0]
+    g0 = gap(z0, p0, te0)
+    for z1, p1, _, te1 in levels[1:]:
+        g1 = gap(z1, p1, te1)
+        if g1 <= 0.0:
+            lo, hi = z0, z1
+            for _ in range(_CCL_CAP):
+                mid = 0.5 * (lo + hi)
+                if gap(mid, col.p_at(mid), col.t_at(mid)) > 0.0:
+                    lo = mid
+                else:
+                    hi = mid
+                if hi - lo < _CCL_TOL_M:
+                    return 0.5 * (lo + hi)
+            return 0.5 * (lo + hi)
+        z0, g0 = z1, g1
+    return None
+
+
+def icing_band(levels, lcl_msl_m, cloud_top_msl_m):
+    """(bottom, top) in m MSL of the in-cloud layer where the parcel (cloud)
+    temperature is between 0 and -20 degC, cloud between the LCL and cloud_top_msl_m;
+    None when there is no such layer."""
+    if cloud_top_msl_m is None or lcl_msl_m >= cloud_top_msl_m:
+        return None
+    z0 = parcel.level(levels, 0.0)
+    z20 = parcel.level(levels, -20.0)
+    bottom = lcl_msl_m if z0 is None or z0 < lcl_msl_m else z0
+    top = cloud_top_msl_m if z20 is None or z20 > cloud_top_msl_m else z20
+    if z0 is None or bottom >= top:
+        return None
+    return bottom, top
+
+
+def add_to_report(col, levels, r, excess_c=0.0):
+    """Add the stability, parcel, thermal, icing and caution keys to report dict r."""
+    lcl = r["cloud_base_msl_m"]
+    per_layer = layers(col)
+    r["stability"] = per_layer[0]["class"]
+    r["stability_layers"] = per_layer
+    r["stability_column"] = whole_column(col)["class"]
+    if lcl is None:
+        pa = {"lfc_msl_m": None, "el_msl_m": None, "el_above_top": False, "cape_j_kg": 0.0,
+              "cin_j_kg": None, "lifted_index_c": lifted_index(levels, 500.0)}
+    else:
+        pa = parcel_analysis(col, levels, lcl)
+    r.update(pa)
+    top = thermal_top(col, excess_c)
+    th_lcl = col.elev_m + cloud_base(min(col.t_c + excess_c, 60.0), col.td_c, col.p_hpa)[0]
+    if top is not None and top - col.elev_m < 1.0:
+        kind = "none"
+    elif top is None or top > th_lcl:
+        kind = "cumulus"
+    else:
+        kind = "blue"
+    r["thermal_excess_c"] = excess_c
+    r["thermal_top_msl_m"] = top
+    r["thermal_kind"] = kind
+    z_ccl = ccl(col, levels)
+    r["ccl_msl_m"] = z_ccl
+    r["trigger_t_c"] = None if z_ccl is None else \
+        (col.t_at(z_ccl) + T0_K) * exp(KAPPA * log(col.p_hpa / col.p_at(z_ccl))) - T0_K
+    cloud_top = None
+    if pa["lfc_msl_m"] is not None:
+        cloud_top = col.top_m if pa["el_above_top"] else pa["el_msl_m"]
+    band = icing_band(levels, lcl, cloud_top) if lcl is not None else None
+    r["icing_band_bottom_msl_m"] = None if band is None else band[0]
+    r["icing_band_top_msl_m"] = None if band is None else band[1]
+    r["cautions"] = CAUTIONS

@@ -1,0 +1,158 @@
+"""ICAO standard atmosphere, pressure and density altitude, QNH and station pressure."""
+# Sources:
+#   ICAO Doc 7488/3, Manual of the ICAO Standard Atmosphere: layer equations,
+#     geopotential heights -1000..32000 m used here.
+#   ICAO Annex 3 (QNH definition); the altimeter-setting relation
+#     p_stn^n = QNH^n - p0^n L h / T0, n = R L / g0, as in the Smithsonian
+#     Meteorological Tables.
+from math import exp, log, pow
+from lapsecalc.constants import (G0, R_DRY, EPS, T0_K, ISA_T0_K, ISA_P0_HPA,
+                                  ISA_LAPSE_K_PER_M)
+from lapsecalc.limits import (check, check_t, check_p, check_elev, check_dew,
+                              QNH_MIN_HPA, QNH_MAX_HPA)
+from lapsecalc.moisture import _es_water, virtual_temperature_k
+
+ISA_MIN_M = -1000.0
+ISA_MAX_M = 32000.0
+# Layer bases, m, and temperature gradients dT/dh, K per m (ICAO Doc 7488/3).
+_BASES_M = (-1000.0, 11000.0, 20000.0)
+_GRADS_K_PER_M = (-0.0065, 0.0, 0.001)
+# Exponent n = R L / g0 of the altimeter relation (about 0.190263).
+_N = R_DRY * ISA_LAPSE_K_PER_M / G0
+
+
+def ratio_ln(u):
+    """ln(1 + u) / u, without cancellation near u = 0 (|u| < 1)."""
+    if -0.01 < u < 0.01:
+        return 1.0 - u * (0.5 - u * (1.0 / 3.0 - 0.25 * u))
+    return log(1.0 + u) / u
+
+
+def ratio_exp(x):
+    """(exp(x) - 1) / x, without cancellation near x = 0."""
+    if -0.01 < x < 0.01:
+        return 1.0 + x * (0.5 + x * (1.0 / 6.0 + x / 24.0))
+    return (exp(x) - 1.0) / x
+
+
+def layer_pressure(p0_hpa, t0_k, grad_k_per_m, dz_m):
+    """Hydrostatic pressure, hPa, dz_m above a level (p0_hpa, t0_k) in air whose
+    temperature changes linearly by grad_k_per_m; exact for any gradient, zero too:
+    ln(p0/p) = g dz / (R T0) * ln(1 + u)/u with u = grad dz / T0."""
+    return p0_hpa * exp(-G0 * dz_m / (R_DRY * t0_k) * ratio_ln(grad_k_per_m * dz_m / t0_k))
+
+
+def layer_height(p0_hpa, t0_k, grad_k_per_m, p_hpa):
+    """Inverse of layer_pressure: the height, m, above the base where the pressure is p_hpa."""
+    y = R_DRY / G0 * log(p0_hpa / p_hpa)
+    return t0_k * y * ratio_exp(grad_k_per_m * y)
+
+
+def _isa_layer(h_m):
+    # (base_m, base_t_k, grad, base_p_hpa) of the ISA layer holding h_m; walks up from
+    # sea level (three layers: no table is stored).
+    base, t, p = 0.0, ISA_T0_K, ISA_P0_HPA
+    if h_m < 11000.0:
+        return base, t, -ISA_LAPSE_K_PER_M, p
+    for i in (1, 2):
+        top = _BASES_M[i]
+        p = layer_pressure(p, t, _GRADS_K_PER_M[i - 1], top - base)
+        t = t + _GRADS_K_PER_M[i - 1] * (top - base)
+        base = top
+        if i == 2 or h_m < _BASES_M[2]:
+            return base, t, _GRADS_K_PER_M[i], p
+    return base, t, _GRADS_K_PER_M[2], p
+
+
+def isa(h_m):
+    """ICAO standard atmosphere at geopotential height h_m (-1000..32000 m).
+
+    Returns (t_c, p_hpa, rho_kg_m3). Doc 7488/3 layer equations (6.5 K/km to 11 km,
+    isothermal to 20 km, -1 K/km to 32 km); matches the printed table to 0.01 %.
+    """
+    h = check("h_m", h_m, ISA_MIN_M, ISA_MAX_M, "m")
+    base, t0, grad, p0 = _isa_layer(h)
+    t = t0 + grad * (h - base)
+    p = layer_pressure(p0, t0, grad, h - base)
+    return t - T0_K, p, 100.0 * p / (R_DRY * t)
+
+
+def pressure_altitude(p_hpa):
+    """Pressure altitude, m: the ISA height of pressure p_hpa (8.68..1139.3 hPa, the
+    ISA pressures at 32000 and -1000 m). Exact inverse of isa() through every layer.
+    """
+    p = check("p_hpa", p_hpa, 8.68, 1139.3, "hPa")
+    for h in (20000.0, 11000.0, 0.0):
+        base, t0, grad, p0 = _isa_layer(h)
+        if p <= p0 or h == 0.0:
+            return base + layer_height(p0, t0, grad, p)
+    return 0.0
+
+
+def station_pressure(qnh_hpa, elev_m):
+    """Station pressure, hPa, at elevation elev_m (-500..9000 m) under QNH qnh_hpa (850..1100).
+
+    The altimeter-setting relation p^n = QNH^n - p0^n L h / T0 (n = R L / g0, ISA
+    constants): an altimeter set to QNH reads the elevation. Round trip with qnh()
+    within 0.001 hPa.
+    """
+    q = check("qnh_hpa", qnh_hpa, QNH_MIN_HPA, QNH_MAX_HPA, "hPa")
+    h = check_elev("elev_m", elev_m)
+    return pow(pow(q, _N) - pow(ISA_P0_HPA, _N) * ISA_LAPSE_K_PER_M * h / ISA_T0_K, 1.0 / _N)
+
+
+def qnh(p_station_hpa, elev_m):
+    """QNH, hPa, from station pressure p_station_hpa (1..1100 hPa) at elevation elev_m.
+
+    Inverse of station_pressure(); the result must lie in 850..1100 hPa.
+    """
+    p = check_p("p_station_hpa", p_station_hpa)
+    h = check_elev("elev_m", elev_m)
+    q = pow(pow(p, _N) + pow(ISA_P0_HPA, _N) * ISA_LAPSE_K_PER_M * h / ISA_T0_K, 1.0 / _N)
+    if q < QNH_MIN_HPA or q > QNH_MAX_HPA:
+        raise ValueError("p_station_hpa=%g at elev_m=%g gives QNH %.1f hPa, outside the allowed"
+                         " range %g..%g hPa" % (p, h, q, QNH_MIN_HPA, QNH_MAX_HPA))
+    return q
+
+
+def _density(p_hpa, t_c, e_hpa):
+    # Ideal gas with the virtual temperature, kg/m3.
+    return 100.0 * p_hpa / (R_DRY * virtual_temperature_k(t_c + T0_K, e_hpa, p_hpa))
+
+
+def air_density(p_hpa, t_c, td_c=None):
+    """Air density, kg/m3, at p_hpa (1..1100) and t_c degC; moist air through the
+    virtual temperature when the dewpoint td_c is given, dry air otherwise."""
+    p = check_p("p_hpa", p_hpa)
+    if td_c is None:
+        return _density(p, check_t("t_c", t_c), 0.0)
+    t, td = check_dew(t_c, td_c)
+    return _density(p, t, min(_es_water(td), 0.5 * p))
+
+
+def isa_height_of_density(rho_kg_m3):
+    """The ISA geopotential height, m, whose density is rho_kg_m3 (troposphere
+    extended below -1000 m; refused above 32000 m)."""
+    for h in (20000.0, 11000.0, 0.0):
+        base, t0, grad, p0 = _isa_layer(h)
+        rho0 = 100.0 * p0 / (R_DRY * t0)
+        if rho_kg_m3 <= rho0 or h == 0.0:
+            break
+    if grad == 0.0:
+        z = R_DRY * t0 / G0 * log(rho0 / rho_kg_m3)
+    else:
+        # rho = rho0 (T/T0)^(-g/(R grad) - 1), solved for T, then z from T.
+        t = t0 * pow(rho_kg_m3 / rho0, -1.0 / (G0 / (R_DRY * grad) + 1.0))
+        z = (t - t0) / grad
+    z += base
+    if z > ISA_MAX_M:
+        raise ValueError("density %.4f kg/m3 is below the ISA density at %g m; allowed at least"
+                         " %.4f kg/m3" % (rho_kg_m3, ISA_MAX_M, isa(ISA_MAX_M)[2]))
+    return z
+
+
+def density_altitude(p_hpa, t_c, td_c=None):
+    """Density altitude, m: the ISA height with the same air density (moist air when
+    td_c is given). Exact through every ISA layer; the troposphere is extended below
+    -1000 m for very dense air. The 120 ft per degC rule is only a check."""
+    return isa_height_of_density(air_density(p_hpa, t_c, td_c))

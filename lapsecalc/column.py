@@ -21,6 +21,9 @@ def _layer_tops(lapse, elev_m, top_m):
     # [(top_msl_m, k_per_km), ...] from a number or from [(top_agl_m or None, k_per_km), ...].
     if isinstance(lapse, (int, float)):
         return [(top_m, check_lapse("lapse", lapse))]
+    if isinstance(lapse, str):
+        raise ValueError("lapse=%r must be a number in K/km (allowed -30..30) or a list of"
+                         " (top_agl_m, k_per_km)" % (lapse,))
     try:
         items = list(lapse)
     except TypeError:
@@ -58,13 +61,17 @@ class Column:
     lapse is a number in K/km (positive: cooling with height) or layers
     [(top_agl_m, k_per_km), ...]; the last top may be None and then runs to top_m.
     A last layer that ends below top_m ends the column there (nothing above it is
-    invented). Heights are geopotential metres MSL unless a name says agl.
+    invented), and so does the height where the ELR would take the air below -90 degC
+    (the coldest temperature the library handles); top_m then tells the real top. Heights are geopotential metres MSL unless a name says agl.
     """
 
     def __init__(self, t_c, td_c, p_hpa, elev_m, lapse=6.5, top_m=16000.0):
         self.t_c, self.td_c = check_dew(t_c, td_c)
         self.p_hpa = check_p("p_hpa", p_hpa)
         self.elev_m = check_elev("elev_m", elev_m)
+        # A station pressure that implies an impossible QNH is a mistake (often QNH or
+        # an altimeter setting typed as station pressure): qnh() refuses it.
+        self.qnh_hpa = qnh(self.p_hpa, self.elev_m)
         top = check("top_m", top_m, self.elev_m + 100.0, TOP_MAX_M, "m MSL (at least 100 m above"
                     " the elevation)")
         # layers: (bottom_m, top_m, bottom_t_k, grad_k_per_m, bottom_p_hpa)
@@ -73,14 +80,25 @@ class Column:
         for z_top, rate in _layer_tops(lapse, self.elev_m, top):
             grad = -rate / 1000.0
             t_top = t + grad * (z_top - z)
-            if not (T_MIN_C <= t_top - T0_K <= T_MAX_C):
-                z_bad = z + (T_MIN_C + T0_K - t if t_top < t else T_MAX_C + T0_K - t) / grad
-                raise ValueError("the ELR takes the air outside %g..%g degC at %.0f m MSL;"
-                                 " allowed only below that: lower top_m or add layers"
-                                 % (T_MIN_C, T_MAX_C, z_bad))
+            if t_top - T0_K > T_MAX_C:
+                raise ValueError("the ELR warms the air above %g degC at %.0f m MSL; allowed"
+                                 " -90..%g degC throughout: lower top_m or change the layers"
+                                 % (T_MAX_C, z + (T_MAX_C + T0_K - t) / grad, T_MAX_C))
+            if t_top - T0_K < T_MIN_C:
+                # The column ends where the air would pass the coldest temperature allowed.
+                z_top = z + (T_MIN_C + T0_K - t) / grad
+                t_top = T_MIN_C + T0_K
+                if z_top - z > 1.0:
+                    layers.append((z, z_top, t, grad, p))
+                    p = layer_pressure(p, t, grad, z_top - z)
+                    z, t = z_top, t_top
+                break
             layers.append((z, z_top, t, grad, p))
             p = layer_pressure(p, t, grad, z_top - z)
             z, t = z_top, t_top
+        if not layers:
+            raise ValueError("t_c=%g with this ELR leaves no column above the surface; allowed"
+                             " a surface above %g degC" % (self.t_c, T_MIN_C))
         self.layers = layers
         self.top_m = z
         self.r_kg_kg = _mixing_ratio_kg_kg(_es_water(self.td_c), self.p_hpa)
@@ -111,12 +129,12 @@ class Column:
         """Height, m MSL, where the environment pressure is p_hpa (inside the column)."""
         lo = layer_pressure(self.layers[-1][4], self.layers[-1][2], self.layers[-1][3],
                             self.top_m - self.layers[-1][0])
-        p = check("p_hpa", p_hpa, lo, self.p_hpa, "hPa (the column)")
+        p = check("p_hpa", p_hpa, lo * (1.0 - 1e-9), self.p_hpa, "hPa (the column)")
         for z0, z1, t0, grad, p0 in self.layers:
             z = z0 + layer_height(p0, t0, grad, p)
             if z <= z1:
                 return z
-        return self.top_m
+        return self.top_m if z > self.top_m else z
 
     def vapour_pressure_at(self, z_m):
         """Vapour pressure, hPa, assumed at z_m: the surface mixing ratio carried up
@@ -177,7 +195,7 @@ class Column:
             "mixing_ratio_g_kg": 1000.0 * self.r_kg_kg,
             "wet_bulb_c": wet_bulb(self.t_c, self.td_c, self.p_hpa),
             "station_pressure_hpa": self.p_hpa,
-            "qnh_hpa": qnh(self.p_hpa, self.elev_m),
+            "qnh_hpa": self.qnh_hpa,
             "pressure_altitude_m": pressure_altitude(self.p_hpa),
             "air_density_kg_m3": self.density_at(self.elev_m),
             "density_altitude_m": self.density_altitude_at(self.elev_m),

@@ -125,4 +125,7 @@ def cloud_base(t_c, td_c, p_hpa, method="exact"):
         raise ValueError("method=%r is not known; allowed: exact, bolton, spread" % (method,))
     if t_c - td_c <= 0.0:
         return 0.0, t_c, p_hpa
-    return fn(t_c, td_c, p_hpa)
+    z, t_lcl, p_lcl = fn(t_c, td_c, p_hpa)
+    if z <= 0.0:
+        return 0.0, t_c, p_hpa
+    return z, t_lcl, p_lcl

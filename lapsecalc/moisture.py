@@ -30,7 +30,8 @@ def saturation_vapour_pressure(t_c, ice=False):
     t_c = check_t("t_c", t_c)
     if ice:
         if t_c > 0.0:
-            raise ValueError("t_c=%g with ice=True; ice needs t_c in -90..0 degC" % t_c)
+            raise ValueError("t_c=%g is above 0 degC with ice=True; allowed -90..0 degC over ice"
+                             % t_c)
         a, b, c = _AE_ICE
     else:
         a, b, c = _AE_WATER
@@ -65,7 +66,8 @@ def dewpoint(t_c, rh_pct):
 def relative_humidity(t_c, td_c):
     """Relative humidity over liquid water, %, from t_c and dewpoint td_c (degC, -90..60)."""
     t_c, td_c = check_dew(t_c, td_c)
-    return 100.0 * _es_water(td_c) / _es_water(t_c)
+    rh = 100.0 * _es_water(td_c) / _es_water(t_c)
+    return 100.0 if rh > 100.0 else rh
 
 
 def _mixing_ratio_kg_kg(e_hpa, p_hpa):

@@ -35,7 +35,7 @@ def path(col, lcl_msl_m, max_step_m=MAX_STEP_M):
             for i in range(start, n + 1):
                 z = b if i == n else a + (b - a) * i / n
                 p = layer_pressure(p0, t0, grad, z - z0)
-                if z <= lcl_msl_m:
+                if z <= lcl_msl_m or not out:
                     tp = ts_k * exp(KAPPA * log(p / ps))
                 else:
                     tp = moist_step(t_prev, p_prev, log(p / p_prev))

@@ -157,10 +157,8 @@ def thermal_top(col, excess_c=0.0):
     for z0, z1, t0, grad, _ in col.layers:
         d0 = tp0 - DRY_LAPSE_K_PER_KM / 1000.0 * (z0 - col.elev_m) - t0
         d1 = tp0 - DRY_LAPSE_K_PER_KM / 1000.0 * (z1 - col.elev_m) - (t0 + grad * (z1 - z0))
-        if d0 <= 0.0:
-            return z0
         if d1 <= 0.0:
-            return _crossing(z0, d0, z1, d1)
+            return z0 if d0 <= 0.0 else _crossing(z0, d0, z1, d1)
     return None
 
 

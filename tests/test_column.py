@@ -1,0 +1,197 @@
+"""The air column: hydrostatics per layer, levels, report keys, bad input."""
+import math
+
+import pytest
+from hypothesis import given, strategies as st
+
+from lapsecalc import Column, isa, station_pressure, density_altitude, air_density, cloud_base
+from lapsecalc.adiabats import saturated_ascent
+from lapsecalc import parcel
+
+G0, RD = 9.80665, 287.05287  # ICAO Doc 7488/3
+
+
+def _hydrostatic_euler(col, z_to, dz=1.0):
+    # Independent reference: dp/dz = -g p / (R T) with T from t_at, midpoint steps.
+    z, p = col.elev_m, col.p_hpa
+    n = int(math.ceil((z_to - z) / dz))
+    if n == 0:
+        return p
+    h = (z_to - z) / n
+    for _ in range(n):
+        tm = col.t_at(z + 0.5 * h) + 273.15
+        p *= math.exp(-G0 * h / (RD * tm))
+        z += h
+    return p
+
+
+LAYERED = [(300.0, -8.0), (1200.0, 0.0), (4000.0, 7.0), (None, 5.5)]
+
+
+def test_layered_pressure_against_integration():
+    col = Column(4.0, 1.0, 950.0, 500.0, LAYERED, top_m=12000.0)
+    for z in (500.0, 650.0, 800.0, 1300.0, 1700.0, 3000.0, 4500.0, 9000.0, 12000.0):
+        assert abs(col.p_at(z) - _hydrostatic_euler(col, z)) < 0.01
+
+
+def test_layered_temperatures():
+    col = Column(4.0, 1.0, 950.0, 500.0, LAYERED, top_m=12000.0)
+    assert abs(col.t_at(800.0) - 6.4) < 1e-9      # inversion of 8 K/km over 300 m
+    assert abs(col.t_at(1700.0) - 6.4) < 1e-9     # isothermal to 1200 m agl
+    assert abs(col.t_at(4500.0) - (6.4 - 7.0 * 2.8)) < 1e-9
+
+
+def test_isa_column_matches_isa():
+    # A 6.5 K/km column from 15 degC, 1013.25 hPa at sea level is the ISA troposphere
+    # (ICAO Doc 7488/3).
+    col = Column(15.0, 5.0, 1013.25, 0.0, 6.5, top_m=11000.0)
+    for h in (0.0, 1000.0, 5000.0, 11000.0):
+        t, p, _ = isa(h)
+        assert abs(col.t_at(h) - t) < 1e-9
+        assert abs(col.p_at(h) / p - 1) < 1e-9
+
+
+@given(st.floats(0.0, 1500.0), st.floats(0.0, 1.0))
+def test_z_at_inverts_p_at(elev, frac):
+    col = Column(10.0, 2.0, 900.0, elev, LAYERED, top_m=15000.0)
+    z = elev + frac * (col.top_m - elev)
+    assert abs(col.z_at(col.p_at(z)) - z) < 0.01
+
+
+def test_from_qnh():
+    col = Column.from_qnh(20.0, 10.0, 1020.0, 800.0)
+    assert abs(col.p_hpa - station_pressure(1020.0, 800.0)) < 1e-9
+    assert abs(col.report()["qnh_hpa"] - 1020.0) < 0.001
+
+
+def test_freezing_levels_simple():
+    # 6.5 K/km from 13 degC at 200 m: 0 degC at 2200 m, -10 at 3738.5, -20 at 5276.9.
+    col = Column(13.0, 5.0, 990.0, 200.0)
+    r = col.report()
+    assert abs(r["freezing_level_msl_m"] - 2200.0) < 1e-6
+    assert abs(r["minus10_level_msl_m"] - (200.0 + 23000.0 / 6.5)) < 1e-6
+    assert abs(r["minus20_level_msl_m"] - (200.0 + 33000.0 / 6.5)) < 1e-6
+    assert r["freezing_levels_msl_m"] == [r["freezing_level_msl_m"]]
+    assert r["warm_layer_aloft"] is False
+
+
+def test_warm_layer_over_freezing_surface():
+    # -2 degC at the surface, an inversion to +3 degC, then cooling: the freezing-rain
+    # set-up must show every crossing and the freezing level at the surface.
+    col = Column(-2.0, -3.0, 980.0, 100.0, [(500.0, -10.0), (None, 6.5)])
+    r = col.report()
+    assert r["freezing_level_msl_m"] == 100.0
+    assert len(r["freezing_levels_msl_m"]) == 2
+    assert abs(r["freezing_levels_msl_m"][0] - 300.0) < 1e-6
+    assert abs(r["freezing_levels_msl_m"][1] - (600.0 + 3000.0 / 6.5)) < 1e-6
+    assert r["warm_layer_aloft"] is True
+
+
+def test_surface_below_minus20():
+    col = Column(-25.0, -28.0, 1000.0, 0.0)
+    r = col.report()
+    assert r["freezing_level_msl_m"] == 0.0 and r["minus20_level_msl_m"] == 0.0
+    assert r["freezing_levels_msl_m"] == []
+
+
+def test_report_field_values():
+    col = Column(24.0, 14.0, 960.0, 420.0)
+    r = col.report()
+    assert abs(r["density_altitude_m"] - density_altitude(960.0, 24.0, 14.0)) < 1e-6
+    assert abs(r["air_density_kg_m3"] - air_density(960.0, 24.0, 14.0)) < 1e-9
+    z, t, p = cloud_base(24.0, 14.0, 960.0)
+    assert r["cloud_base_agl_m"] == z and r["cloud_base_msl_m"] == 420.0 + z
+    assert r["lcl_t_c"] == t and r["lcl_p_hpa"] == p
+    for key in ("cloud_base_agl_m", "cloud_base_msl_m", "lcl_t_c", "lcl_p_hpa",
+                "freezing_level_msl_m", "minus10_level_msl_m", "minus20_level_msl_m",
+                "parcel_freezing_level_msl_m", "pressure_altitude_m", "density_altitude_m",
+                "air_density_kg_m3", "qnh_hpa", "station_pressure_hpa"):
+        assert isinstance(r[key], float), key
+
+
+def test_parcel_freezing_level_against_independent_path():
+    # Dry (Poisson) to the LCL, then saturated_ascent; find 0 degC by bisection on height.
+    col = Column(22.0, 12.0, 970.0, 300.0, 7.0)
+    lcl_agl, t_l, _ = cloud_base(22.0, 12.0, 970.0)
+    z_l = 300.0 + lcl_agl
+    p_l = col.p_at(z_l)
+    t_l = (22.0 + 273.15) * (p_l / 970.0) ** (RD / 1004.0) - 273.15
+
+    def tp(z):
+        return saturated_ascent(t_l, p_l, col.p_at(z), dlnp=0.005)
+
+    lo, hi = z_l, col.top_m
+    for _ in range(60):
+        mid = 0.5 * (lo + hi)
+        lo, hi = (mid, hi) if tp(mid) > 0.0 else (lo, mid)
+    assert abs(col.report()["parcel_freezing_level_msl_m"] - lo) < 5.0
+
+
+def test_density_altitude_aloft():
+    col = Column(30.0, 5.0, 1000.0, 100.0)
+    assert abs(col.density_altitude_at(100.0) - col.report()["density_altitude_m"]) < 1e-9
+    assert col.density_altitude_at(3000.0) > col.density_altitude_at(2000.0) + 900.0
+
+
+def test_steep_elr_ends_at_coldest_allowed():
+    # 9 K/km from 20 degC reaches -90 degC at 12222 m: the column ends there.
+    col = Column(20.0, 10.0, 1000.0, 0.0, 9.0)
+    assert abs(col.top_m - 110000.0 / 9.0) < 1e-6
+    assert abs(col.t_at(col.top_m) + 90.0) < 1e-9
+    assert Column(20.0, 10.0, 1000.0, 0.0, 9.0, top_m=10000.0).top_m == 10000.0
+
+
+def test_inversion_too_warm_is_refused():
+    with pytest.raises(ValueError) as err:
+        Column(40.0, 10.0, 1000.0, 0.0, [(2000.0, -15.0), (None, 6.5)])
+    assert "60 degC" in str(err.value) and "allowed" in str(err.value)
+
+
+def test_last_layer_top_ends_column():
+    col = Column(20.0, 10.0, 1000.0, 100.0, [(500.0, -3.0), (3000.0, 6.0)])
+    assert col.top_m == 3100.0
+    with pytest.raises(ValueError):
+        col.t_at(3200.0)
+
+
+@pytest.mark.parametrize("kwargs,word", [
+    (dict(lapse=31.0), "lapse=31"),
+    (dict(lapse=[(500.0, 6.0), (400.0, 6.0)]), "top_agl_m=400"),
+    (dict(lapse=[(None, 6.0), (400.0, 6.0)]), "only the last layer"),
+    (dict(lapse=[]), "empty"),
+    (dict(lapse=[(500.0, -40.0)]), "rate=-40"),
+    (dict(lapse="steep"), "lapse='steep'"),
+    (dict(top_m=100.0), "top_m=100"),
+])
+def test_bad_column(kwargs, word):
+    with pytest.raises(ValueError) as err:
+        Column(15.0, 5.0, 1000.0, 50.0, **kwargs)
+    assert word in str(err.value)
+
+
+@pytest.mark.parametrize("args,word", [((15.0, 16.0, 1000.0, 0.0), "td_c=16"),
+                                       ((15.0, 5.0, 1000.0, 9500.0), "elev_m=9500"),
+                                       ((15.0, 5.0, float("nan"), 0.0), "p_hpa=nan")])
+def test_bad_observation(args, word):
+    with pytest.raises(ValueError) as err:
+        Column(*args)
+    assert word in str(err.value) and "allowed" in str(err.value)
+
+
+def test_outside_column_queries():
+    col = Column(15.0, 5.0, 1000.0, 50.0, top_m=8000.0)
+    for z in (0.0, 8001.0):
+        with pytest.raises(ValueError) as err:
+            col.t_at(z)
+        assert "z_m=" in str(err.value) and "allowed" in str(err.value)
+    with pytest.raises(ValueError):
+        col.z_at(1010.0)
+
+
+def test_parcel_path_levels_include_boundaries():
+    col = Column(25.0, 15.0, 1000.0, 0.0, [(800.0, 9.0), (None, 6.5)], top_m=9000.0)
+    z_l = cloud_base(25.0, 15.0, 1000.0)[0]
+    levels = parcel.path(col, z_l)
+    zs = [lv[0] for lv in levels]
+    assert zs[0] == 0.0 and zs[-1] == 9000.0 and 800.0 in zs and z_l in zs
+    assert all(b - a <= 500.0 + 1e-9 for a, b in zip(zs, zs[1:]))

@@ -1,0 +1,91 @@
+"""Cloud base (lifting condensation level): Romps, Bolton, spread rule; Lambert W."""
+import math
+
+import pytest
+from hypothesis import given, strategies as st
+
+from lapsecalc import cloud_base
+from lapsecalc.condensation import lambert_w_minus1
+from refs import romps_lcl_m, romps_pvstar_pa, bisect
+
+
+def _romps_dewpoint_c(t_k, rh):
+    # Dewpoint consistent with Romps' own saturation formula (REFERENCES.md note).
+    target = rh * romps_pvstar_pa(t_k)
+    return bisect(lambda x: romps_pvstar_pa(x) - target, 150.0, t_k) - 273.15
+
+
+def test_romps_check_value():
+    # T 300 K, RH 50 %, p 1000 hPa -> 1433.8 m (Romps 2017, computed; REFERENCES.md).
+    td = _romps_dewpoint_c(300.0, 0.5)
+    z, t_lcl, p_lcl = cloud_base(300.0 - 273.15, td, 1000.0)
+    assert abs(z - 1433.8) < 0.1
+
+
+@pytest.mark.parametrize("t_k,rh,p", [(300.0, 0.5, 100000.0), (310.0, 0.1, 95000.0),
+                                      (273.0, 0.9, 80000.0), (250.0, 0.3, 70000.0),
+                                      (320.0, 0.05, 101000.0), (290.0, 0.99, 100000.0)])
+def test_romps_against_paper_formula(t_k, rh, p):
+    # Romps (2017) eq. 22a with a slow bisection for W_-1 (tests/refs.py): 2 m + 0.2 %.
+    ref = romps_lcl_m(t_k, rh, p)
+    z = cloud_base(t_k - 273.15, _romps_dewpoint_c(t_k, rh), p / 100.0)[0]
+    assert abs(z - ref) < 2.0 + 0.002 * ref
+
+
+def test_bolton_temperature_check():
+    # T 26.85 degC, Td 15.57 degC -> T_L 13.00 degC (Bolton 1980 eq. 15, computed;
+    # REFERENCES.md).
+    assert abs(cloud_base(26.85, 15.57, 1000.0, "bolton")[1] - 13.00) < 0.01
+
+
+def test_methods_agree_roughly():
+    # Bolton and the spread rule (125 m per degC, common practice) bracket Romps within
+    # about 3 % for an ordinary day.
+    exact = cloud_base(25.0, 12.0, 980.0)[0]
+    assert abs(cloud_base(25.0, 12.0, 980.0, "bolton")[0] / exact - 1) < 0.03
+    assert abs(cloud_base(25.0, 12.0, 980.0, "spread")[0] - 125.0 * 13.0) < 1e-9
+    assert abs(cloud_base(25.0, 12.0, 980.0, "spread")[0] / exact - 1) < 0.05
+
+
+def test_lcl_temperature_and_pressure_consistent():
+    # At the LCL the parcel is saturated: its mixing ratio equals the surface one.
+    from lapsecalc import mixing_ratio
+    z, t_l, p_l = cloud_base(28.0, 10.0, 1000.0)
+    assert abs(mixing_ratio(t_l, p_l) / mixing_ratio(10.0, 1000.0) - 1) < 0.01
+
+
+def test_saturated_surface_is_zero():
+    assert cloud_base(15.0, 15.0, 1000.0) == (0.0, 15.0, 1000.0)
+    assert cloud_base(15.0, 15.04, 1000.0)[0] == 0.0
+
+
+@given(st.floats(-5.0, 40.0), st.floats(0.5, 25.0), st.floats(0.1, 5.0), st.floats(700.0, 1050.0))
+def test_cloud_base_rises_with_spread(t, spread, more, p):
+    assert cloud_base(t, t - spread - more, p)[0] > cloud_base(t, t - spread, p)[0]
+
+
+def test_lambert_w_identity():
+    for x in (-0.3678794, -0.36, -0.3, -0.25, -0.2, -0.1, -1e-3, -1e-8, -1e-30):
+        w = lambert_w_minus1(x)
+        assert w <= -1.0
+        assert abs(w * math.exp(w) - x) < 1e-9 * abs(x) + 1e-15
+
+
+def test_lambert_w_bad_input():
+    for x in (0.0, 0.1, -0.5, float("nan")):
+        with pytest.raises(ValueError):
+            lambert_w_minus1(x)
+
+
+@pytest.mark.parametrize("args,word", [((20, 25, 1000), "td_c=25"), ((20, 10, 1200), "p_hpa=1200"),
+                                       ((70, 10, 1000), "t_c=70")])
+def test_bad_input(args, word):
+    with pytest.raises(ValueError) as err:
+        cloud_base(*args)
+    assert word in str(err.value)
+
+
+def test_bad_method():
+    with pytest.raises(ValueError) as err:
+        cloud_base(20, 10, 1000, "guess")
+    assert "exact" in str(err.value)

@@ -4,7 +4,7 @@
 #     dT/dz = -g (1 + Lv rs / (Rd T)) / (cp + Lv^2 rs eps / (Rd T^2)),
 #     and in pressure dT/dln p = (Rd T + Lv rs) / (cp + Lv^2 rs eps / (Rd T^2)).
 #   Saturation over liquid water: Alduchov & Eskridge (1996) eq. 21 (moisture.py).
-from math import exp, log, ceil, fabs
+from math import exp, log, sqrt, ceil, fabs
 from lapsecalc.constants import G0, R_DRY, CP_DRY, EPS, LV0, T0_K, KAPPA
 from lapsecalc.limits import check, check_t, check_p
 from lapsecalc.moisture import _es_water
@@ -12,14 +12,17 @@ from lapsecalc.moisture import _es_water
 # Most RK4 steps one call may take; the default step in ln p (about 50 hPa near 1000 hPa).
 _ASCENT_CAP = 2000
 DEFAULT_DLNP = 0.05
+# Lv^2 eps / Rd, the constant of the pseudo-adiabat's denominator, J K / kg.
+_LV2_EPS_RD = LV0 * LV0 * EPS / R_DRY
 
 
 def _rs(t_k, p_hpa):
     # Saturation mixing ratio over water, kg/kg; capped where e_s nears p (hot, thin air).
     e = _es_water(t_k - T0_K)
-    if e > 0.5 * p_hpa:
-        e = 0.5 * p_hpa
-    return EPS * e / (p_hpa - e)
+    d = p_hpa - e
+    if d < e:
+        e = d = 0.5 * p_hpa
+    return EPS * e / d
 
 
 def moist_lapse_rate(t_c, p_hpa):
@@ -29,29 +32,32 @@ def moist_lapse_rate(t_c, p_hpa):
     humid air near 1000 hPa, approaching the dry rate (9.77 K/km) in cold thin air.
     Valid -90..60 degC, 1..1100 hPa.
     """
-    t = check_t("t_c", t_c) + T0_K
-    p = check_p("p_hpa", p_hpa)
-    rs = _rs(t, p)
-    return 1000.0 * G0 * (1.0 + LV0 * rs / (R_DRY * t)) / \
-        (CP_DRY + LV0 * LV0 * rs * EPS / (R_DRY * t * t))
+    return moist_lapse_k_per_km(check_t("t_c", t_c) + T0_K, check_p("p_hpa", p_hpa))
+
+
+def moist_lapse_k_per_km(t_k, p_hpa):
+    """moist_lapse_rate without the input checks (t in K), for callers that have them."""
+    rs = _rs(t_k, p_hpa)
+    return 1000.0 * G0 * (1.0 + LV0 * rs / (R_DRY * t_k)) / \
+        (CP_DRY + _LV2_EPS_RD * rs / (t_k * t_k))
 
 
 def _dt_dlnp(t_k, p_hpa):
     # Pseudo-adiabatic slope dT/d(ln p), K.
     rs = _rs(t_k, p_hpa)
-    return (R_DRY * t_k + LV0 * rs) / (CP_DRY + LV0 * LV0 * rs * EPS / (R_DRY * t_k * t_k))
+    return (R_DRY * t_k + LV0 * rs) / (CP_DRY + _LV2_EPS_RD * rs / (t_k * t_k))
 
 
-def moist_step(t_k, p_hpa, dlnp):
-    """One fourth-order Runge-Kutta step along the pseudo-adiabat: the parcel
-    temperature, K, at p_hpa * exp(dlnp) starting from t_k at p_hpa."""
-    ph = p_hpa * exp(0.5 * dlnp)
-    p1 = p_hpa * exp(dlnp)
-    k1 = _dt_dlnp(t_k, p_hpa)
-    k2 = _dt_dlnp(t_k + 0.5 * dlnp * k1, ph)
-    k3 = _dt_dlnp(t_k + 0.5 * dlnp * k2, ph)
-    k4 = _dt_dlnp(t_k + dlnp * k3, p1)
-    return t_k + dlnp * (k1 + 2.0 * (k2 + k3) + k4) / 6.0
+def moist_step(t_k, p0_hpa, p1_hpa):
+    """One fourth-order Runge-Kutta step along the pseudo-adiabat in ln p: the parcel
+    temperature, K, at p1_hpa starting from t_k at p0_hpa."""
+    h = log(p1_hpa / p0_hpa)
+    ph = sqrt(p0_hpa * p1_hpa)
+    k1 = _dt_dlnp(t_k, p0_hpa)
+    k2 = _dt_dlnp(t_k + 0.5 * h * k1, ph)
+    k3 = _dt_dlnp(t_k + 0.5 * h * k2, ph)
+    k4 = _dt_dlnp(t_k + h * k3, p1_hpa)
+    return t_k + h * (k1 + 2.0 * (k2 + k3) + k4) / 6.0
 
 
 def saturated_ascent(t_c, p_from_hpa, p_to_hpa, dlnp=DEFAULT_DLNP):
@@ -75,8 +81,9 @@ def saturated_ascent(t_c, p_from_hpa, p_to_hpa, dlnp=DEFAULT_DLNP):
     step = span / n
     p = p0
     for i in range(n):
-        t = moist_step(t, p, step)
-        p = p0 * exp(step * (i + 1))
+        p_next = p0 * exp(step * (i + 1))
+        t = moist_step(t, p, p_next)
+        p = p_next
     return t - T0_K
 
 

@@ -109,7 +109,13 @@ class Column:
         return cls(t_c, td_c, station_pressure(qnh_hpa, elev_m), elev_m, lapse, top_m)
 
     def _layer(self, z_m):
-        z = check("z_m", z_m, self.elev_m, self.top_m, "m MSL (the column)")
+        z = float(z_m)
+        # A millimetre of rounding at either end is the end itself.
+        if self.elev_m - 0.001 <= z < self.elev_m:
+            z = self.elev_m
+        elif self.top_m < z <= self.top_m + 0.001:
+            z = self.top_m
+        z = check("z_m", z, self.elev_m, self.top_m, "m MSL (the column)")
         for layer in self.layers:
             if z <= layer[1]:
                 return z, layer
@@ -166,12 +172,13 @@ class Column:
                 out.append(z)
         return out
 
-    def level(self, t_c):
+    def level(self, t_c, crossings=None):
         """Lowest height, m MSL, at or above the surface where the environment is at or
-        below t_c degC: the elevation if the surface already is; None if never."""
+        below t_c degC: the elevation if the surface already is; None if never.
+        crossings, when given, are this column's crossings(t_c)."""
         if self.t_c <= t_c:
             return self.elev_m
-        for z in self.crossings(t_c):
+        for z in self.crossings(t_c) if crossings is None else crossings:
             return z
         return None
 
@@ -203,15 +210,13 @@ class Column:
             "cloud_base_msl_m": lcl_msl if lcl_msl <= self.top_m else None,
             "lcl_t_c": lcl_t,
             "lcl_p_hpa": lcl_p,
-            "freezing_level_msl_m": self.level(0.0),
-            "minus10_level_msl_m": self.level(-10.0),
-            "minus20_level_msl_m": self.level(-20.0),
-            "freezing_levels_msl_m": self.crossings(0.0),
-            "minus10_levels_msl_m": self.crossings(-10.0),
-            "minus20_levels_msl_m": self.crossings(-20.0),
             "warm_layer_aloft": warm_layer_aloft(self),
-            "parcel_freezing_level_msl_m": parcel.level(path, 0.0),
+            "parcel_freezing_level_msl_m": parcel.level(self, path, 0.0, lcl_msl),
         }
+        for name, t in (("freezing", 0.0), ("minus10", -10.0), ("minus20", -20.0)):
+            zs = self.crossings(t)
+            r[name + "_level_msl_m"] = self.level(t, zs)
+            r[name + "_levels_msl_m"] = zs
         stability.add_to_report(self, path, r, thermal_excess_c)
         return r
 

@@ -9,7 +9,7 @@ from lapsecalc.adiabats import moist_step
 
 # Largest spacing of the path's levels, m; they also fall on every layer boundary
 # and on the LCL, so the environment is linear between any two levels.
-MAX_STEP_M = 500.0
+MAX_STEP_M = 1250.0
 _MAX_LEVELS = 400
 
 
@@ -38,7 +38,7 @@ def path(col, lcl_msl_m, max_step_m=MAX_STEP_M):
                 if z <= lcl_msl_m or not out:
                     tp = ts_k * exp(KAPPA * log(p / ps))
                 else:
-                    tp = moist_step(t_prev, p_prev, log(p / p_prev))
+                    tp = moist_step(t_prev, p_prev, p)
                 out.append((z, p, tp - T0_K, t0 + grad * (z - z0) - T0_K))
                 t_prev, p_prev = tp, p
                 if len(out) > _MAX_LEVELS:
@@ -47,14 +47,32 @@ def path(col, lcl_msl_m, max_step_m=MAX_STEP_M):
     return out
 
 
-def level(levels, t_c):
-    """Lowest height, m MSL, where the parcel temperature reaches t_c degC (linear
-    between levels); the surface if it starts there or colder; None if never."""
+def temperature_at(col, levels, i, z_m, lcl_msl_m):
+    """Parcel temperature, degC, at z_m between levels[i-1] and levels[i], computed
+    afresh (Poisson below the LCL, one RK4 step from levels[i-1] above it)."""
+    z0, p0, tp0, _ = levels[i - 1]
+    p = col.p_at(z_m)
+    if z0 < lcl_msl_m:
+        return (col.t_c + T0_K) * exp(KAPPA * log(p / col.p_hpa)) - T0_K
+    return moist_step(tp0 + T0_K, p0, p) - T0_K
+
+
+def level(col, levels, t_c, lcl_msl_m):
+    """Lowest height, m MSL, where the parcel temperature reaches t_c degC: the
+    surface if it starts there or colder; None if never. Linear between levels, then
+    one secant step with the parcel recomputed there (temperature_at)."""
     z0, _, tp0, _ = levels[0]
     if tp0 <= t_c:
         return z0
-    for z1, _, tp1, _ in levels[1:]:
+    for i in range(1, len(levels)):
+        z1, _, tp1, _ = levels[i]
         if tp1 <= t_c:
-            return z0 + (z1 - z0) * (tp0 - t_c) / (tp0 - tp1)
+            zc = z0 + (z1 - z0) * (tp0 - t_c) / (tp0 - tp1)
+            tc = temperature_at(col, levels, i, zc, lcl_msl_m)
+            if tc > t_c:
+                return zc + (z1 - zc) * (tc - t_c) / (tc - tp1)
+            if tc < t_c:
+                return z0 + (zc - z0) * (tp0 - t_c) / (tp0 - tc)
+            return zc
         z0, tp0 = z1, tp1
     return None

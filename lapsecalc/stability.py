@@ -10,7 +10,8 @@ from math import log, exp, fabs, ceil
 from lapsecalc.constants import G0, T0_K, KAPPA, EPS, DRY_LAPSE_K_PER_KM
 from lapsecalc.limits import check
 from lapsecalc.moisture import _dewpoint_from_e
-from lapsecalc.adiabats import moist_lapse_rate
+from lapsecalc.adiabats import moist_lapse_k_per_km
+from lapsecalc.standard import layer_pressure
 from lapsecalc.condensation import cloud_base
 from lapsecalc import parcel
 
@@ -43,10 +44,12 @@ def classify(lapse_k_per_km, saturated_k_per_km):
     return "conditionally_unstable"
 
 
-def _layer_class(col, z0, z1, lapse):
-    zm = 0.5 * (z0 + z1)
-    salr = moist_lapse_rate(col.t_at(zm), col.p_at(zm))
-    return {"bottom_msl_m": z0, "top_msl_m": z1, "lapse_k_per_km": lapse,
+def _band(layer, a, b, lapse):
+    # One band [a, b] inside an ELR layer, classified with the saturated rate at its middle.
+    z0, _, t0, grad, p0 = layer
+    dz = 0.5 * (a + b) - z0
+    salr = moist_lapse_k_per_km(t0 + grad * dz, layer_pressure(p0, t0, grad, dz))
+    return {"bottom_msl_m": a, "top_msl_m": b, "lapse_k_per_km": lapse,
             "saturated_k_per_km": salr, "class": classify(lapse, salr)}
 
 
@@ -56,25 +59,43 @@ def layers(col, max_depth_m=BAND_M):
     deeper than max_depth_m is split into equal bands no deeper than that, because
     the saturated rate changes with height inside it."""
     out = []
-    for z0, z1, _, grad, _ in col.layers:
+    for layer in col.layers:
+        z0, z1, _, grad, _ = layer
         n = int(ceil((z1 - z0) / max_depth_m))
         for i in range(n):
             a = z0 + (z1 - z0) * i / n
             b = z1 if i == n - 1 else z0 + (z1 - z0) * (i + 1) / n
-            out.append(_layer_class(col, a, b, -1000.0 * grad))
+            out.append(_band(layer, a, b, -1000.0 * grad))
     return out
 
 
 def whole_column(col):
     """Stability of the column as a whole (mean ELR, saturated rate at mid-height)."""
-    depth = col.top_m - col.elev_m
-    return _layer_class(col, col.elev_m, col.top_m,
-                        1000.0 * (col.t_c - col.t_at(col.top_m)) / depth)
+    zm = 0.5 * (col.elev_m + col.top_m)
+    lapse = 1000.0 * (col.t_c - col.t_at(col.top_m)) / (col.top_m - col.elev_m)
+    salr = moist_lapse_k_per_km(col.t_at(zm) + T0_K, col.p_at(zm))
+    return {"bottom_msl_m": col.elev_m, "top_msl_m": col.top_m, "lapse_k_per_km": lapse,
+            "saturated_k_per_km": salr, "class": classify(lapse, salr)}
 
 
 def _crossing(z0, d0, z1, d1):
     # Height where a quantity linear from d0 at z0 to d1 at z1 is zero.
     return z0 + (z1 - z0) * d0 / (d0 - d1)
+
+
+def _refined_crossing(col, levels, i, lcl_msl_m, b0, b1):
+    # Where the buoyancy changes sign between levels i-1 and i: the linear estimate,
+    # then one secant step on the side that holds the root, with the parcel recomputed
+    # at the estimate (the parcel curve bends between levels; the environment does not).
+    z0, z1 = levels[i - 1][0], levels[i][0]
+    zc = _crossing(z0, b0, z1, b1)
+    te = col.t_at(zc) + T0_K
+    bc = (parcel.temperature_at(col, levels, i, zc, lcl_msl_m) + T0_K - te) / te
+    if bc == 0.0:
+        return zc
+    if (bc > 0.0) == (b0 > 0.0):
+        return _crossing(zc, bc, z1, b1)
+    return _crossing(z0, b0, zc, bc)
 
 
 def _area(z0, b0, z1, b1):
@@ -94,43 +115,33 @@ def parcel_analysis(col, levels, lcl_msl_m):
     (parcel.path). Returns a dict; None where a level does not exist; EL above the
     column top is reported as such (el_msl_m None, el_above_top True) and CAPE is
     then the area up to the top."""
-    # Buoyancy b = (Tp - Te) / Te at each level.
-    pts = [(z, (tp - te) / (te + T0_K)) for z, _, tp, te in levels]
     lfc = el = None
-    cape = 0.0
+    cape = cin = 0.0
     in_positive = False
-    for i in range(1, len(pts)):
-        z0, b0 = pts[i - 1]
-        z1, b1 = pts[i]
-        if z1 <= lcl_msl_m:
-            continue
-        if z0 < lcl_msl_m:
-            # Start the cloudy part exactly at the LCL (a level of the path).
-            continue
-        if lfc is None and (b0 > 0.0 or b1 > 0.0):
-            lfc = z0 if b0 > 0.0 else _crossing(z0, b0, z1, b1)
-        if lfc is not None:
-            cape += _area(z0, b0, z1, b1)[0]
-            if b0 > 0.0 and b1 <= 0.0:
-                el = _crossing(z0, b0, z1, b1)
-                in_positive = False
-            elif b1 > 0.0:
-                in_positive = True
+    z0, _, tp, te = levels[0]
+    b0 = (tp - te) / (te + T0_K)          # buoyancy (Tp - Te) / Te
+    for i in range(1, len(levels)):
+        z1, _, tp, te = levels[i]
+        b1 = (tp - te) / (te + T0_K)
+        if z0 >= lcl_msl_m:
+            if lfc is None and (b0 > 0.0 or b1 > 0.0):
+                lfc = z0 if b0 > 0.0 else _refined_crossing(col, levels, i, lcl_msl_m, b0, b1)
+                cin += _area(z0, b0, lfc, 0.0)[1] if lfc > z0 else 0.0
+            if lfc is not None:
+                cape += _area(z0, b0, z1, b1)[0]
+                if b0 > 0.0 and b1 <= 0.0:
+                    el = _refined_crossing(col, levels, i, lcl_msl_m, b0, b1)
+                    in_positive = False
+                elif b1 > 0.0:
+                    in_positive = True
+        if lfc is None:
+            cin += _area(z0, b0, z1, b1)[1]
+        z0, b0 = z1, b1
     el_above_top = lfc is not None and in_positive
     if el_above_top:
         el = None
-    cin = None
-    if lfc is not None:
-        cin = 0.0
-        for i in range(1, len(pts)):
-            z0, b0 = pts[i - 1]
-            z1, b1 = pts[i]
-            if z0 >= lfc:
-                break
-            if z1 > lfc:
-                b1 = b0 + (b1 - b0) * (lfc - z0) / (z1 - z0)
-                z1 = lfc
-            cin += _area(z0, b0, z1, b1)[1]
+    if lfc is None:
+        cin = None
     return {"lfc_msl_m": lfc, "el_msl_m": el, "el_above_top": el_above_top,
             "cape_j_kg": cape, "cin_j_kg": cin,
             "lifted_index_c": lifted_index(levels, 500.0)}
@@ -165,42 +176,54 @@ def thermal_top(col, excess_c=0.0):
 def ccl(col, levels):
     """Convective condensation level, m MSL: where the environment temperature meets
     the dewpoint of the surface mixing ratio; None when not inside the column.
-    Bracketed on the path's levels, then refined by bisection (at most 40 steps, to
-    0.5 m)."""
+    Bracketed on the path's levels, then Illinois (regula falsi) steps, at most 40,
+    to 0.5 m."""
     r = col.r_kg_kg
-
-    def gap(z, p, te):
-        return te - _dewpoint_from_e(r * p / (EPS + r))
-
     if col.t_c - col.td_c <= 0.0:
         return col.elev_m
+
+    def gap(z, p, te):
+        # Environment minus the mixing-ratio line's dewpoint at (z, p), K.
+        return te - _dewpoint_from_e(r * p / (EPS + r))
+
     z0, p0, _, te0 = levels[0]
     g0 = gap(z0, p0, te0)
     for z1, p1, _, te1 in levels[1:]:
         g1 = gap(z1, p1, te1)
         if g1 <= 0.0:
-            lo, hi = z0, z1
-            for _ in range(_CCL_CAP):
-                mid = 0.5 * (lo + hi)
-                if gap(mid, col.p_at(mid), col.t_at(mid)) > 0.0:
-                    lo = mid
-                else:
-                    hi = mid
-                if hi - lo < _CCL_TOL_M:
-                    return 0.5 * (lo + hi)
-            return 0.5 * (lo + hi)
+            return _illinois(lambda z: gap(z, col.p_at(z), col.t_at(z)), z0, g0, z1, g1)
         z0, g0 = z1, g1
     return None
 
 
-def icing_band(levels, lcl_msl_m, cloud_top_msl_m):
+def _illinois(f, a, fa, b, fb):
+    # Root of f in [a, b] with fa > 0 >= fb: Illinois steps, at most 40, to 0.5 m.
+    side = 0
+    for _ in range(_CCL_CAP):
+        c = (a * fb - b * fa) / (fb - fa)
+        fc = f(c)
+        if fc > 0.0:
+            a, fa = c, fc
+            if side == 1:
+                fb *= 0.5
+            side = 1
+        else:
+            b, fb = c, fc
+            if side == -1:
+                fa *= 0.5
+            side = -1
+        if b - a < _CCL_TOL_M or fc == 0.0:
+            return c
+    raise ValueError("the convective condensation level did not converge")
+
+
+def icing_band(col, levels, lcl_msl_m, cloud_top_msl_m, z0):
     """(bottom, top) in m MSL of the in-cloud layer where the parcel (cloud)
     temperature is between 0 and -20 degC, cloud between the LCL and cloud_top_msl_m;
-    None when there is no such layer."""
+    z0 is the parcel's freezing level (parcel.level). None when there is no such layer."""
     if cloud_top_msl_m is None or lcl_msl_m >= cloud_top_msl_m:
         return None
-    z0 = parcel.level(levels, 0.0)
-    z20 = parcel.level(levels, -20.0)
+    z20 = parcel.level(col, levels, -20.0, lcl_msl_m)
     bottom = lcl_msl_m if z0 is None or z0 < lcl_msl_m else z0
     top = cloud_top_msl_m if z20 is None or z20 > cloud_top_msl_m else z20
     if z0 is None or bottom >= top:
@@ -222,7 +245,10 @@ def add_to_report(col, levels, r, excess_c=0.0):
         pa = parcel_analysis(col, levels, lcl)
     r.update(pa)
     top = thermal_top(col, excess_c)
-    th_lcl = col.elev_m + cloud_base(min(col.t_c + excess_c, 60.0), col.td_c, col.p_hpa)[0]
+    if excess_c == 0.0:
+        th_lcl = col.elev_m + r["cloud_base_agl_m"]
+    else:
+        th_lcl = col.elev_m + cloud_base(min(col.t_c + excess_c, 60.0), col.td_c, col.p_hpa)[0]
     if top is not None and top - col.elev_m < 1.0:
         kind = "none"
     elif top is None or top > th_lcl:
@@ -239,7 +265,8 @@ def add_to_report(col, levels, r, excess_c=0.0):
     cloud_top = None
     if pa["lfc_msl_m"] is not None:
         cloud_top = col.top_m if pa["el_above_top"] else pa["el_msl_m"]
-    band = icing_band(levels, lcl, cloud_top) if lcl is not None else None
+    band = None if lcl is None else \
+        icing_band(col, levels, lcl, cloud_top, r["parcel_freezing_level_msl_m"])
     r["icing_band_bottom_msl_m"] = None if band is None else band[0]
     r["icing_band_top_msl_m"] = None if band is None else band[1]
     r["cautions"] = CAUTIONS

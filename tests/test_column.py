@@ -194,4 +194,4 @@ def test_parcel_path_levels_include_boundaries():
     levels = parcel.path(col, z_l)
     zs = [lv[0] for lv in levels]
     assert zs[0] == 0.0 and zs[-1] == 9000.0 and 800.0 in zs and z_l in zs
-    assert all(b - a <= 500.0 + 1e-9 for a, b in zip(zs, zs[1:]))
+    assert all(b - a <= parcel.MAX_STEP_M + 1e-9 for a, b in zip(zs, zs[1:]))

@@ -1,0 +1,396 @@
+"""Balloon lift: hot-air and gas balloons in one air column."""
+import math
+
+import pytest
+from hypothesis import assume, given, strategies as st
+
+from lapsecalc.column import Column
+from lapsecalc.balloon import (hot_air_lift_per_m3, envelope_t_for_lift, gas_density,
+                               gas_lift_per_m3, gas_volume_at, molar_mass, hot_air_report,
+                               gas_report)
+from refs import bisect
+
+# Constants of the independent computations below (ICAO Doc 7488/3 unless marked).
+G0 = 9.80665            # m/s2
+R_DRY = 287.05287       # J/(kg K)
+M_AIR = 28.9644         # g/mol, dry air
+M_HE = 4.0026           # g/mol, helium (issue 6; standard atomic weight, from memory)
+M_H2 = 2.016            # g/mol, hydrogen (from memory)
+EPS = R_DRY / 461.5     # Rd/Rv (Wallace & Hobbs, standard textbook value)
+K = 273.15
+FT1000 = 304.8          # m, exact
+ONE_KG = 1.0
+ONE_M = 1.0
+
+
+def dry_isa_column(top_m=11000.0):
+    # ISA sea level (ICAO Doc 7488/3) with a dewpoint so low the air is dry to 1e-7.
+    return Column(15.0, -90.0, 1013.25, 0.0, 6.5, top_m)
+
+
+def moist_density(col, z):
+    # Independent of balloon.py: rho = p / (Rd Tv), Tv = T / (1 - (e/p)(1 - eps))
+    # (virtual temperature, Wallace & Hobbs eq. 3.60), from the column's p, T, e.
+    p, t, e = col.p_at(z), col.t_at(z) + K, col.vapour_pressure_at(z)
+    return 100.0 * p / (R_DRY * t / (1.0 - e / p * (1.0 - EPS)))
+
+
+def hot_lift_m3(col, z, t_env_c):
+    # Same pressure and humidity inside: rho_env = rho_air T_air / T_env.
+    return moist_density(col, z) * (1.0 - (col.t_at(z) + K) / (t_env_c + K))
+
+
+def gas_lift_m3(col, z, m_gas, purity):
+    p, t = col.p_at(z), col.t_at(z) + K
+    rho_gas = 100.0 * p * (purity * m_gas + (1.0 - purity) * M_AIR) / (R_DRY * M_AIR * t)
+    return moist_density(col, z) - rho_gas
+
+
+# ---- outside checks ----------------------------------------------------------------
+
+def test_hot_air_100c_in_isa_sea_level():
+    # Hot air at 100 degC inside against 15 degC ISA sea level outside gives about
+    # 0.28 kg of gross lift per m3: computed from the ideal gas law and the ISA
+    # density, ICAO Doc 7488/3 (1.2250 - 101325 / (287.05287 * 373.15) = 0.2790).
+    lift = hot_air_lift_per_m3(1.2250, 1013.25, 100.0)
+    assert abs(lift - 0.28) < 0.005
+    assert abs(lift - (1.2250 - 101325.0 / (R_DRY * 373.15))) < 1e-9
+    r = hot_air_report(dry_isa_column(), 1000.0, 100.0, 100.0)
+    assert abs(r["gross_lift_kg"] - 279.04) < 0.05
+    assert abs(r["free_lift_kg"] - 179.04) < 0.05
+
+
+def test_helium_lifts_a_little_over_1_kg_per_m3():
+    # Helium lifts a little over 1 kg per m3 at sea level (common practice); computed
+    # from the molar masses (helium 4.0026 g/mol, dry air 28.9644 g/mol and the ISA
+    # density, ICAO Doc 7488/3): 1.2250 (1 - 4.0026 / 28.9644) = 1.0557 kg/m3.
+    lift = gas_lift_per_m3(1.2250, 1013.25, 15.0, "helium")
+    assert 1.0 < lift < 1.1
+    assert abs(lift - 1.2250 * (1.0 - M_HE / M_AIR)) < 1e-6
+    # Hydrogen H2, 2.016 g/mol (from memory): 1.2250 (1 - 2.016 / 28.9644) = 1.1397.
+    assert abs(gas_lift_per_m3(1.2250, 1013.25, 15.0, "hydrogen")
+               - 1.2250 * (1.0 - M_H2 / M_AIR)) < 1e-6
+    # 95 % helium, 5 % air: the lift scales with the purity (molar masses as above).
+    assert abs(gas_lift_per_m3(1.2250, 1013.25, 15.0, "helium", 0.95)
+               - 0.95 * 1.2250 * (1.0 - M_HE / M_AIR)) < 1e-6
+    r = gas_report(dry_isa_column(), "helium", 1.0, 100.0, 100.0, 50.0)
+    assert abs(r["gross_lift_kg"] - 105.57) < 0.01
+
+
+def test_gas_density_from_molar_masses():
+    # rho = p M / (R* T), R* = 287.05287 * 28.9644 = 8314.32 J/(kmol K) (ICAO Doc 7488/3).
+    assert abs(gas_density(1013.25, 15.0, "helium") - 101325 * M_HE / (8314.32 * 288.15)) < 1e-5
+    assert molar_mass("hydrogen") == M_H2
+
+
+def test_hot_air_per_1000ft_in_isa():
+    # ISA troposphere (ICAO Doc 7488/3): T = 288.15 - 0.0065 h, p = p0 (T/T0)^5.25588.
+    def isa_lift(h, t_env_k):
+        t = 288.15 - 0.0065 * h
+        p = 101325.0 * (t / 288.15) ** (G0 / (R_DRY * 0.0065))
+        return p / R_DRY * (1.0 / t - 1.0 / t_env_k)
+    r = hot_air_report(dry_isa_column(), 3000.0, 600.0, 110.0, 100.0, 500.0)
+    want = 3000.0 * (isa_lift(500.0 + FT1000, 373.15) - isa_lift(500.0, 373.15))
+    assert abs(r["gross_lift_per_1000ft_kg"] - want) < 0.01
+    assert abs(r["gross_lift_kg"] - 3000.0 * isa_lift(500.0, 373.15)) < 0.01
+
+
+def test_hot_air_lift_rises_with_height_under_dry_adiabatic_elr():
+    # Counter-example to "lift falls with height in any ELR" for hot air at a fixed
+    # envelope temperature: with a 9.8 K/km ELR, 15 degC outside and 100 degC inside,
+    # the outside air cools faster than its density falls. Independent: linear-layer
+    # hydrostatics p = p0 (T/T0)^(g/(R G)) with the ICAO Doc 7488/3 constants.
+    col = Column(15.0, -90.0, 1013.25, 0.0, 9.8, 5000.0)
+
+    def lift(h):
+        t = 288.15 - 0.0098 * h
+        p = 101325.0 * (t / 288.15) ** (G0 / (R_DRY * 0.0098))
+        return p / R_DRY * (1.0 / t - 1.0 / 373.15)
+    assert lift(1000.0) > lift(0.0)
+    for h in (0.0, 1000.0):
+        r = hot_air_report(col, 2000.0, 400.0, 120.0, 100.0, h)
+        assert abs(r["gross_lift_kg"] - 2000.0 * lift(h)) < 0.01
+    assert hot_air_report(col, 2000.0, 400.0, 120.0, 100.0)["gross_lift_per_1000ft_kg"] > 0.0
+
+
+def test_gas_full_height_isa():
+    # Gas filling half the envelope at ISA sea level is full where the ISA density is
+    # half (gas at ambient T: V ~ T/p ~ 1/rho): ICAO Doc 7488/3 troposphere,
+    # rho/rho0 = (T/T0)^4.25588 -> h = (1 - 0.5^(1/4.25588)) 288.15 / 0.0065.
+    h = (1.0 - 0.5 ** (1.0 / (G0 / (R_DRY * 0.0065) - 1.0))) * 288.15 / 0.0065
+    r = gas_report(dry_isa_column(), "helium", 1.0, 500.0, 1000.0, 100.0)
+    assert abs(r["full_msl_m"] - h) < ONE_M
+    assert abs(r["full_p_hpa"] - 1013.25 * ((288.15 - 0.0065 * h) / 288.15) ** 5.25588) < 0.05
+
+
+def independent_profile(layers_spec, t0_c, p0_hpa, elev_m, top_m):
+    # The column's (z, T, p) as a function of height, written here from the ELR spec:
+    # per linear layer p = p_b (T/T_b)^(g/(R G)), isothermal p = p_b exp(-g dz / (R T))
+    # (also for |G| under 1e-6 K/km, where the power form loses all its digits).
+    bounds = []
+    zb, tb, pb = elev_m, t0_c + K, p0_hpa
+    for top_agl, rate in layers_spec:
+        zt = top_m if top_agl is None else min(elev_m + top_agl, top_m)
+        bounds.append((zb, zt, tb, rate / 1000.0, pb))
+        tt = tb - rate / 1000.0 * (zt - zb)
+        pb = pb * (math.exp(-G0 * (zt - zb) / (R_DRY * tb)) if abs(rate) < 1e-6
+                   else (tt / tb) ** (G0 / (R_DRY * rate / 1000.0)))
+        zb, tb = zt, tt
+        if zt >= top_m:
+            break
+
+    def at(z):
+        for z0, z1, t0, lapse, p0 in bounds:
+            if z <= z1 or (z0, z1) == bounds[-1][:2]:
+                t = t0 - lapse * (z - z0)
+                if abs(lapse) < 1e-9:
+                    return t, p0 * math.exp(-G0 * (z - z0) / (R_DRY * t0))
+                return t, p0 * (t / t0) ** (G0 / (R_DRY * lapse))
+    return at, zb
+
+
+# ---- property tests (layered ELRs) ----------------------------------------------
+
+@st.composite
+def columns(draw):
+    elev = draw(st.floats(0.0, 2500.0))
+    t = draw(st.floats(-15.0, 40.0))
+    td = t - draw(st.floats(0.0, 25.0))
+    p = draw(st.floats(700.0, 1040.0))
+    n = draw(st.integers(0, 3))
+    spec, top = [], 0.0
+    for _ in range(n):
+        top += draw(st.floats(300.0, 3000.0))
+        spec.append((top, draw(st.floats(-8.0, 12.0))))
+    spec.append((None, draw(st.floats(2.0, 9.8))))
+    top_m = elev + 9000.0
+    try:
+        col = Column(t, td, p, elev, spec, top_m)
+    except ValueError:
+        assume(False)
+    return col, spec
+
+
+@given(columns(), st.floats(0.0, 1.0), st.floats(0.0, 1.0),
+       st.sampled_from(("helium", "hydrogen")), st.floats(0.5, 1.0))
+def test_gas_lift_per_m3_falls_with_height_in_any_elr(cs, a, b, gas, purity):
+    col, _ = cs
+    z1 = col.elev_m + min(a, b) * (col.top_m - col.elev_m)
+    z2 = col.elev_m + max(a, b) * (col.top_m - col.elev_m)
+    assume(z2 - z1 > 1.0)
+    l1 = gas_lift_per_m3(col.density_at(z1), col.p_at(z1), col.t_at(z1), gas, purity)
+    l2 = gas_lift_per_m3(col.density_at(z2), col.p_at(z2), col.t_at(z2), gas, purity)
+    assert l2 < l1
+
+
+@given(columns(), st.floats(0.0, 1.0), st.floats(60.0, 150.0))
+def test_hot_air_lift_with_height_follows_the_sign_rule(cs, a, t_env):
+    # d ln(lift)/dz = (1/T)(G Te / (Te - T) - g/R) for lift = p/(R T) (1 - T/Te) in a
+    # layer of lapse rate G (hydrostatic equation, ideal gas; derived here): lift falls
+    # with height where G Te / (Te - T) < g/R, in any ELR, and rises where it exceeds
+    # g/R (steep ELRs, envelope not much warmer than the air). Cases within 20 % of
+    # the boundary are skipped (the humidity cap shifts it a little).
+    col, _ = cs
+    z = col.elev_m + a * (col.top_m - col.elev_m - 20.0)
+    layer = [lay for lay in col.layers if lay[0] <= z and z + 20.0 <= lay[1]]
+    assume(layer)
+    lapse = -layer[0][3]
+    ta = col.t_at(z) + K
+    te = t_env + K
+    assume(te - ta > 5.0)
+    crit = lapse * te / (te - ta) - G0 / R_DRY
+    assume(abs(crit) > 0.2 * G0 / R_DRY)
+    l1 = hot_air_lift_per_m3(col.density_at(z), col.p_at(z), t_env, col.vapour_pressure_at(z))
+    z2 = z + 20.0
+    l2 = hot_air_lift_per_m3(col.density_at(z2), col.p_at(z2), t_env, col.vapour_pressure_at(z2))
+    assert (l2 < l1) == (crit < 0.0)
+
+
+@given(columns(), st.floats(0.0, 1.0), st.floats(0.0, 90.0), st.floats(0.0, 90.0))
+def test_hot_air_lift_rises_with_envelope_temperature(cs, a, d1, d2):
+    col, _ = cs
+    z = col.elev_m + a * (col.top_m - col.elev_m)
+    t_air = col.t_at(z)
+    t1, t2 = t_air + min(d1, d2), t_air + max(d1, d2)
+    assume(t2 - t1 > 0.01 and t2 <= 150.0)
+    r1 = hot_air_report(col, 2500.0, 300.0, 120.0, t1, z)
+    r2 = hot_air_report(col, 2500.0, 300.0, 120.0, t2, z)
+    assert r2["gross_lift_kg"] > r1["gross_lift_kg"]
+
+
+@given(columns(), st.floats(500.0, 20000.0), st.floats(0.05, 0.4), st.floats(50.0, 150.0))
+def test_ceiling_is_where_lift_equals_weight(cs, volume, load, t_max):
+    col, _ = cs
+    w = volume * load
+    r = hot_air_report(col, volume, w, t_max)
+    field = volume * hot_lift_m3(col, col.elev_m, t_max) - w
+    assert abs(r["max_payload_kg"] - field) < 1e-6 * w
+    if field < 0.0:
+        assert r["ceiling_msl_m"] is None and not r["ceiling_above_top"]
+        assert r["warnings"]
+        return
+    c = r["ceiling_msl_m"]
+    end = col.top_m if c is None else c
+    assert r["ceiling_above_top"] == (c is None)
+    if c is not None:
+        # The ceiling is where lift equals weight within 1 kg (issue 6).
+        assert abs(volume * hot_lift_m3(col, c, t_max) - w) < ONE_KG
+        assert abs(r["ceiling_p_hpa"] - col.p_at(c)) < 1e-9
+    # ... and the lowest such height: an independent 25 m scan stays above the weight.
+    n = int((end - col.elev_m) / 25.0)
+    for i in range(n + 1):
+        z = col.elev_m + (end - col.elev_m) * i / max(n, 1)
+        assert volume * hot_lift_m3(col, z, t_max) > w - ONE_KG
+
+
+@given(columns(), st.floats(0.0, 1.0), st.floats(500.0, 20000.0), st.floats(0.02, 0.6))
+def test_needed_temperature_round_trip(cs, a, volume, load):
+    col, _ = cs
+    z = col.elev_m + a * (col.top_m - col.elev_m)
+    w = volume * load
+    r = hot_air_report(col, volume, w, 120.0, None, z)
+    t_need = r["envelope_t_needed_c"]
+    if t_need is None:
+        assert w >= volume * moist_density(col, z)
+        assert r["envelope_t_needed_over_limit"] and r["warnings"]
+        return
+    assert abs(volume * hot_lift_m3(col, z, t_need) - w) < 1e-6 * w
+    assert r["envelope_t_needed_over_limit"] == (t_need > 120.0)
+    assert any("120 degC" in s for s in r["warnings"]) == (t_need > 120.0)
+    if t_need <= 150.0:
+        r2 = hot_air_report(col, volume, w, 120.0, t_need, z)
+        assert abs(r2["gross_lift_kg"] - w) < 1e-6 * w
+        assert abs(r2["free_lift_kg"]) < 1e-6 * w
+
+
+@given(columns(), st.sampled_from(("helium", "hydrogen")), st.floats(0.5, 1.0),
+       st.floats(0.05, 1.0), st.floats(0.0, 1.0))
+def test_gas_full_height_against_independent_profile(cs, gas, purity, fill, a):
+    col, spec = cs
+    at, top = independent_profile(spec, col.t_c, col.p_hpa, col.elev_m, col.top_m)
+    v_env = 5000.0
+    v0 = fill * v_env
+    z = col.elev_m + a * (col.top_m - col.elev_m)
+    r = gas_report(col, gas, purity, v0, v_env, 200.0, z)
+    t0 = col.t_c + K
+
+    def excess(h):  # volume - envelope; rises with height (rho = p/(R T) falls)
+        t, p = at(h)
+        return v0 * col.p_hpa / p * t / t0 - v_env
+    if excess(top) < 0.0:
+        assert r["full_msl_m"] is None and r["full_above_top"]
+    else:
+        want = col.elev_m if fill >= 1.0 else bisect(excess, col.elev_m, top)
+        assert abs(r["full_msl_m"] - want) < ONE_M
+        assert abs(r["full_p_hpa"] - at(want)[1]) < 0.1
+    # Gross lift at z: all the gas below the full height, the full envelope above it.
+    t, p = at(z)
+    v_z = min(v0 * col.p_hpa / p * t / t0, v_env)
+    m_gas = M_HE if gas == "helium" else M_H2
+    assert abs(r["gross_lift_kg"] - v_z * gas_lift_m3(col, z, m_gas, purity)) < 0.01
+
+
+@given(columns(), st.floats(0.05, 1.0), st.floats(0.3, 1.2))
+def test_gas_float_height_and_ballast(cs, fill, load):
+    col, _ = cs
+    v_env = 2000.0
+    v0 = fill * v_env
+    w = load * v0  # about 0.3..1.2 kg per m3 of gas at launch
+    r = gas_report(col, "helium", 0.98, v0, v_env, w)
+    launch = v0 * gas_lift_m3(col, col.elev_m, M_HE, 0.98)
+    assert abs(r["free_lift_kg"] - (launch - w)) < 0.01
+    assert abs(r["ballast_to_hold_kg"] - max(0.0, w - launch)) < 0.01
+    if launch < w:
+        assert r["float_msl_m"] is None and not r["float_above_top"] and r["warnings"]
+    elif r["float_msl_m"] is not None:
+        f = r["float_msl_m"]
+        assert f >= r["full_msl_m"]
+        if f > r["full_msl_m"]:
+            assert abs(v_env * gas_lift_m3(col, f, M_HE, 0.98) - w) < ONE_KG
+    else:
+        assert r["float_above_top"]
+
+
+# ---- reports, notes and bad input -----------------------------------------------
+
+def test_hot_air_notes_and_limit_warnings():
+    col = dry_isa_column()
+    r = hot_air_report(col, 2000.0, 600.0, 100.0, None, 2000.0)
+    assert any("maker" in s and "100 degC" in s for s in r["notes"])
+    assert r["envelope_t_needed_c"] > 100.0 and r["envelope_t_needed_over_limit"]
+    assert any("above the maximum envelope temperature" in s for s in r["warnings"])
+    r = hot_air_report(col, 2000.0, 300.0, 100.0, 130.0)
+    assert not r["envelope_t_needed_over_limit"]
+    assert any("asked for" in s for s in r["warnings"])
+    # Too heavy at the maximum envelope temperature: no ceiling, a warning.
+    r = hot_air_report(col, 500.0, 400.0, 100.0)
+    assert r["max_payload_kg"] < 0.0 and r["ceiling_msl_m"] is None
+    assert not r["ceiling_above_top"] and r["warnings"]
+    # Light enough to rise past the column top.
+    r = hot_air_report(dry_isa_column(1500.0), 3000.0, 100.0, 120.0)
+    assert r["ceiling_msl_m"] is None and r["ceiling_above_top"]
+
+
+def test_gas_heavier_than_lift_needs_ballast():
+    col = dry_isa_column()
+    r = gas_report(col, "hydrogen", 1.0, 100.0, 400.0, 150.0, 1000.0)
+    assert r["ballast_to_hold_kg"] > 0.0
+    assert abs(r["ballast_to_hold_kg"] + r["free_lift_kg"]) < 1e-9
+    assert r["float_msl_m"] is None and any("Hydrogen" in s for s in r["notes"])
+
+
+def test_envelope_t_for_lift_inverts_lift():
+    # Round trip through the closed form with a dry envelope at 850 hPa, 5 degC.
+    rho = 85000.0 / (R_DRY * 278.15)
+    t = envelope_t_for_lift(rho, 5.0, 0.25)
+    assert abs(hot_air_lift_per_m3(rho, 850.0, t) - 0.25) < 1e-9
+    assert abs(gas_volume_at(100.0, 1000.0, 15.0, 500.0, 15.0) - 200.0) < 1e-9
+
+
+BAD_HOT = [
+    ("volume_m3", dict(volume_m3=5.0)), ("volume_m3", dict(volume_m3=30000.0)),
+    ("weight_kg", dict(weight_kg=0.5)), ("weight_kg", dict(weight_kg=float("nan"))),
+    ("max_envelope_t_c", dict(max_envelope_t_c=40.0)),
+    ("max_envelope_t_c", dict(max_envelope_t_c=200.0)),
+    ("envelope_t_c", dict(envelope_t_c=10.0)), ("envelope_t_c", dict(envelope_t_c=151.0)),
+    ("z_m", dict(z_m=-10.0)), ("z_m", dict(z_m=20000.0)), ("volume_m3", dict(volume_m3="x")),
+]
+
+
+@pytest.mark.parametrize("name,kw", BAD_HOT)
+def test_hot_air_bad_input(name, kw):
+    args = dict(volume_m3=2000.0, weight_kg=400.0, max_envelope_t_c=120.0)
+    args.update(kw)
+    with pytest.raises(ValueError) as err:
+        hot_air_report(dry_isa_column(), **args)
+    msg = str(err.value)
+    assert msg.startswith(name + "=") and ".." in msg
+
+
+BAD_GAS = [
+    ("gas", dict(gas="neon")), ("purity", dict(purity=0.4)), ("purity", dict(purity=1.01)),
+    ("gas_volume_m3", dict(gas_volume_m3=0.01)), ("gas_volume_m3", dict(gas_volume_m3=1500.0)),
+    ("envelope_m3", dict(envelope_m3=3e6)), ("weight_kg", dict(weight_kg=0.0)),
+    ("weight_kg", dict(weight_kg=25000.0)), ("z_m", dict(z_m=12000.0)),
+]
+
+
+@pytest.mark.parametrize("name,kw", BAD_GAS)
+def test_gas_bad_input(name, kw):
+    args = dict(gas="helium", purity=1.0, gas_volume_m3=500.0, envelope_m3=1000.0,
+                weight_kg=100.0)
+    args.update(kw)
+    with pytest.raises(ValueError) as err:
+        gas_report(dry_isa_column(), **args)
+    assert str(err.value).startswith(name + "=")
+
+
+def test_plain_formula_bad_input():
+    for call, name in ((lambda: hot_air_lift_per_m3(0.0, 1000.0, 100.0), "rho_air_kg_m3"),
+                       (lambda: hot_air_lift_per_m3(1.2, 1000.0, 100.0, 600.0), "e_hpa"),
+                       (lambda: envelope_t_for_lift(1.2, 15.0, 1.2), "lift_per_m3_kg"),
+                       (lambda: gas_density(1000.0, 15.0, "helium", 0.3), "purity"),
+                       (lambda: gas_lift_per_m3(1.2, 1000.0, 99.0, "helium"), "t_c")):
+        with pytest.raises(ValueError) as err:
+            call()
+        assert str(err.value).startswith(name + "=")

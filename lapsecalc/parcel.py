@@ -8,7 +8,10 @@ from lapsecalc.standard import layer_pressure
 from lapsecalc.adiabats import moist_step
 
 # Largest spacing of the path's levels, m; they also fall on every layer boundary
-# and on the LCL, so the environment is linear between any two levels.
+# and on the LCL, so the environment is linear between any two levels. 1250 m keeps a
+# board's report() under 64 KiB of allocation (one RK4 step a level, under 0.01 K from
+# the pseudo-adiabat); crossings are refined by temperature_at(), and CAPE's trapezoid
+# stays within 1 % of a 5 m reference (bench/ shows the trade-off).
 MAX_STEP_M = 1250.0
 _MAX_LEVELS = 400
 

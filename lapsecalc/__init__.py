@@ -1,11 +1,29 @@
 """lapsecalc: cloud base, freezing level, density altitude, stability and balloon lift
 from one surface observation and an assumed lapse rate. Pure Python, runs on MicroPython."""
-from lapsecalc.moisture import (saturation_vapour_pressure, dewpoint, relative_humidity,
-                                mixing_ratio, wet_bulb)
-from lapsecalc.standard import (isa, pressure_altitude, station_pressure, qnh, air_density,
-                                density_altitude)
-from lapsecalc.condensation import cloud_base
-from lapsecalc.adiabats import moist_lapse_rate, saturated_ascent
-from lapsecalc.column import Column
+# The public names load their module on first use (PEP 562 module __getattr__, which
+# MicroPython has too): `import lapsecalc` costs a board almost no RAM, and a station
+# that only asks for QNH never loads the parcel code.
 
 __version__ = "0.1.0"
+
+_WHERE = {
+    "saturation_vapour_pressure": "moisture", "dewpoint": "moisture",
+    "relative_humidity": "moisture", "mixing_ratio": "moisture", "wet_bulb": "moisture",
+    "isa": "standard", "pressure_altitude": "standard", "station_pressure": "standard",
+    "qnh": "standard", "air_density": "standard", "density_altitude": "standard",
+    "cloud_base": "condensation",
+    "moist_lapse_rate": "adiabats", "saturated_ascent": "adiabats",
+    "Column": "column",
+}
+__all__ = list(_WHERE)
+
+
+def __getattr__(name):
+    # A public name loads its module; a submodule's name loads the submodule (a board's
+    # `from lapsecalc import units` comes here).
+    module = _WHERE.get(name)
+    try:
+        found = __import__("lapsecalc." + (module or name), None, None, ["_"])
+    except ImportError:
+        raise AttributeError("lapsecalc has no %r" % (name,))
+    return found if module is None else getattr(found, name)

@@ -5,7 +5,10 @@ DEMO_LINES = (
     "# Kestrel Flats (invented field), elevation 1350 ft, a warm afternoon",
     "elev 1350ft",
     "temp 27C dew 13C qnh 1016",
-    "elr 250m:9.5 2400m:7.5 top:6.5",
+    "elr 9.5@250m 7.5@2400m 6.5",
+    "base",
+    "da 9500ft",
+    "chart",
     "report",
 )
 

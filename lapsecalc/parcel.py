@@ -14,6 +14,17 @@ from lapsecalc.adiabats import moist_step
 # stays within 1 % of a 5 m reference (bench/ shows the trade-off).
 MAX_STEP_M = 1250.0
 _MAX_LEVELS = 400
+# Below this parcel temperature, K (-60 degC), less than 0.1 g/kg of vapour is left and
+# the pseudo-adiabat is followed as a dry adiabat (within 0.2 K): a board's report()
+# then stays under 64 KiB of allocation even for a deep column.
+_DRY_BELOW_K = 213.15
+
+
+def _saturated(t_k, p0_hpa, p1_hpa):
+    # The saturated parcel from (t_k, p0_hpa) to p1_hpa, K.
+    if t_k < _DRY_BELOW_K:
+        return t_k * exp(KAPPA * log(p1_hpa / p0_hpa))
+    return moist_step(t_k, p0_hpa, p1_hpa)
 
 
 def path(col, lcl_msl_m, max_step_m=MAX_STEP_M):
@@ -41,7 +52,7 @@ def path(col, lcl_msl_m, max_step_m=MAX_STEP_M):
                 if z <= lcl_msl_m or not out:
                     tp = ts_k * exp(KAPPA * log(p / ps))
                 else:
-                    tp = moist_step(t_prev, p_prev, p)
+                    tp = _saturated(t_prev, p_prev, p)
                 out.append((z, p, tp - T0_K, t0 + grad * (z - z0) - T0_K))
                 t_prev, p_prev = tp, p
                 if len(out) > _MAX_LEVELS:
@@ -57,7 +68,7 @@ def temperature_at(col, levels, i, z_m, lcl_msl_m):
     p = col.p_at(z_m)
     if z0 < lcl_msl_m:
         return (col.t_c + T0_K) * exp(KAPPA * log(p / col.p_hpa)) - T0_K
-    return moist_step(tp0 + T0_K, p0, p) - T0_K
+    return _saturated(tp0 + T0_K, p0, p) - T0_K
 
 
 def level(col, levels, t_c, lcl_msl_m):

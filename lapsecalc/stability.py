@@ -114,7 +114,8 @@ def parcel_analysis(col, levels, lcl_msl_m):
     """LFC, EL, CAPE, CIN and lifted index of the surface parcel along levels
     (parcel.path). Returns a dict; None where a level does not exist; EL above the
     column top is reported as such (el_msl_m None, el_above_top True) and CAPE is
-    then the area up to the top."""
+    then the area up to the top. CAPE and CIN use the plain air temperatures of parcel
+    and environment, not virtual temperatures: the humidity aloft is not observed."""
     lfc = el = None
     cape = cin = 0.0
     in_positive = False

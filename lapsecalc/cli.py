@@ -1,0 +1,97 @@
+"""Command line of the line interpreter (CPython only): stdin, -e lines, demo, --svg."""
+# The interpreter itself is lapsecalc.shell (it runs on MicroPython too); this module
+# adds what only a desktop needs: options, a prompt on a terminal, and file writing.
+import argparse
+import sys
+
+from lapsecalc.shell import Session, PROMPT, read_line, repl
+from lapsecalc.demo import DEMO_LINES
+
+
+def write_svg(name, svg_text):
+    """Write an SVG document to file name; return the line the shell prints."""
+    try:
+        with open(name, "w", encoding="utf-8") as f:
+            f.write(svg_text)
+    except OSError as e:
+        raise ValueError("cannot write %s: %s" % (name, e.strerror or e))
+    return "ok: chart written to %s" % name
+
+
+def _run(session, lines, echo, out):
+    # Feed lines, print their output; the number of lines that gave an error.
+    errors = 0
+    for line in lines:
+        if echo:
+            out.write(PROMPT + line + "\n")
+        for text in session.feed(line):
+            errors += text.startswith("error:")
+            out.write(text + "\n")
+        if session.done:
+            break
+    return errors
+
+
+def _stdin_lines(stream):
+    # Lines of a piped stdin (shell.read_line: an over-long line stays too long to run).
+    while True:
+        line = read_line(stream)
+        if line is None:
+            return
+        yield line
+
+
+def main(argv=None):
+    """lapsecalc [demo] [-e LINE ...] [--svg FILE]; returns the exit status."""
+    p = argparse.ArgumentParser(
+        prog="lapsecalc",
+        description="Cloud base, freezing level, density altitude and stability from one"
+                    " surface observation and an assumed lapse rate. Reads interpreter lines"
+                    " from stdin (type help), or runs the -e lines, or the built-in demo.")
+    p.add_argument("what", nargs="?", choices=["demo"],
+                   help="run the built-in invented scenario (Kestrel Flats)")
+    p.add_argument("-e", dest="lines", action="append", metavar="LINE", default=[],
+                   help="run LINE and exit (repeatable; runs after the demo)")
+    p.add_argument("--svg", metavar="FILE",
+                   help="at the end, write the profile chart as SVG to FILE")
+    a = p.parse_args(argv)
+    session = Session(svg_writer=write_svg)
+    out = sys.stdout
+    errors = 0
+    try:
+        if a.what == "demo":
+            errors += _run(session, DEMO_LINES, True, out)
+        if a.lines:
+            errors += _run(session, a.lines, False, out)
+        if a.what is None and not a.lines:
+            if sys.stdin.isatty():
+                try:
+                    import readline  # noqa: F401  (line editing and history for input())
+                except ImportError:
+                    pass
+                repl(session, prompt=PROMPT)
+                return 0
+            errors += _run(session, _stdin_lines(sys.stdin), False, out)
+        if a.svg:
+            for text in _svg_file(session, a.svg):
+                errors += text.startswith("error:")
+                out.write(text + "\n")
+        out.flush()
+    except KeyboardInterrupt:
+        out.write("\n")
+        return 130
+    except BrokenPipeError:
+        return 0
+    return 1 if errors else 0
+
+
+def _svg_file(session, name):
+    # The --svg option: the chart of the final state, or one error line.
+    try:
+        return [write_svg(name, session.chart_svg())]
+    except ValueError as e:
+        return ["error: %s" % e]
+
+
+if __name__ == "__main__":
+    sys.exit(main())

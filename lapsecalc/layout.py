@@ -1,0 +1,267 @@
+"""Text-mode layout of the interpreter's results (loaded only when text output is asked)."""
+# Sources: none; labels and units only. Every line fits a 40-column screen: a
+#   13-column label, then the value in the session's display units.
+from lapsecalc import units
+from lapsecalc.queries import GROUPS
+from lapsecalc.settings import dewpoint_of, STANDARD_QNH_HPA, ISA_LAPSE_K_PER_KM, DEFAULT_TOP_M
+
+# Report key -> (label, kind) for text mode. Kinds: z height MSL, a height AGL,
+# alt an altitude, zl list of heights, t temperature, dt temperature difference,
+# p pressure, rho density, pct, gkg, jkg, b yes/no, s word.
+LABELS = {
+    "elevation_m": ("elevation", "z"),
+    "top_msl_m": ("column top", "z"),
+    "t_c": ("temp", "t"),
+    "td_c": ("dewpoint", "t"),
+    "rh_pct": ("RH", "pct"),
+    "mixing_ratio_g_kg": ("mix ratio", "gkg"),
+    "wet_bulb_c": ("wet bulb", "t"),
+    "station_pressure_hpa": ("station p", "p"),
+    "qnh_hpa": ("QNH", "p"),
+    "pressure_altitude_m": ("press alt", "alt"),
+    "air_density_kg_m3": ("density", "rho"),
+    "density_altitude_m": ("DA", "alt"),
+    "cloud_base_agl_m": ("base AGL", "a"),
+    "cloud_base_msl_m": ("base MSL", "z"),
+    "lcl_t_c": ("LCL temp", "t"),
+    "lcl_p_hpa": ("LCL press", "p"),
+    "freezing_level_msl_m": ("0C level", "z"),
+    "freezing_levels_msl_m": ("0C passes", "zl"),
+    "minus10_level_msl_m": ("-10C level", "z"),
+    "minus10_levels_msl_m": ("-10C passes", "zl"),
+    "minus20_level_msl_m": ("-20C level", "z"),
+    "minus20_levels_msl_m": ("-20C passes", "zl"),
+    "warm_layer_aloft": ("warm aloft", "b"),
+    "parcel_freezing_level_msl_m": ("parcel 0C", "z"),
+    "icing_band_bottom_msl_m": ("icing from", "z"),
+    "icing_band_top_msl_m": ("icing to", "z"),
+    "stability": ("lowest layer", "s"),
+    "stability_column": ("whole column", "s"),
+    "lfc_msl_m": ("LFC", "z"),
+    "el_msl_m": ("EL", "z"),
+    "el_above_top": ("EL above top", "b"),
+    "cape_j_kg": ("CAPE", "jkg"),
+    "cin_j_kg": ("CIN", "jkg"),
+    "lifted_index_c": ("lifted index", "dt"),
+    "thermal_excess_c": ("excess", "dt"),
+    "thermal_top_msl_m": ("thermal top", "z"),
+    "thermal_kind": ("thermals", "s"),
+    "ccl_msl_m": ("CCL", "z"),
+    "trigger_t_c": ("trigger temp", "t"),
+    "at_msl_m": ("height", "z"),
+    "at_t_c": ("temp", "t"),
+    "at_p_hpa": ("pressure", "p"),
+    "at_vapour_pressure_hpa": ("vapour p", "p"),
+    "at_air_density_kg_m3": ("density", "rho"),
+    "at_density_altitude_m": ("DA", "alt"),
+    "at_parcel_t_c": ("parcel temp", "t"),
+    "iso_t_c": ("isotherm", "t"),
+    "iso_level_msl_m": ("lowest <=T", "z"),
+    "iso_levels_msl_m": ("passes", "zl"),
+    # balloon (lapsecalc.balloon reports)
+    "z_msl_m": ("height", "z"),
+    "ambient_t_c": ("air temp", "t"),
+    "ambient_p_hpa": ("air press", "p"),
+    "ambient_density_kg_m3": ("air density", "rho"),
+    "volume_m3": ("envelope", "m3"),
+    "envelope_m3": ("envelope", "m3"),
+    "weight_kg": ("weight", "kg"),
+    "max_envelope_t_c": ("max env temp", "t"),
+    "envelope_t_c": ("env temp", "t"),
+    "lift_per_m3_kg": ("lift per m3", "rho"),
+    "gross_lift_kg": ("gross lift", "kg"),
+    "free_lift_kg": ("free lift", "kg"),
+    "max_payload_kg": ("payload left", "kg"),
+    "envelope_t_needed_c": ("temp to float", "t"),
+    "envelope_t_needed_over_limit": ("over max", "b"),
+    "ceiling_msl_m": ("ceiling", "z"),
+    "ceiling_p_hpa": ("ceiling p", "p"),
+    "ceiling_above_top": ("ceil abv top", "b"),
+    "gross_lift_per_1000ft_kg": ("lift/1000ft", "kg"),
+    "envelope_t_needed_per_1000ft_c": ("temp/1000ft", "dt"),
+    "gas": ("gas", "s"),
+    "gas_molar_mass_g_mol": ("molar mass", "gmol"),
+    "purity": ("purity", "frac"),
+    "gas_volume_m3": ("fill", "m3"),
+    "gas_density_kg_m3": ("gas density", "rho"),
+    "gas_volume_at_z_m3": ("gas volume", "m3"),
+    "full_at_z": ("full here", "b"),
+    "full_msl_m": ("full at", "z"),
+    "full_p_hpa": ("full at p", "p"),
+    "full_above_top": ("full abv top", "b"),
+    "float_msl_m": ("float at", "z"),
+    "float_above_top": ("float abv top", "b"),
+    "ballast_to_hold_kg": ("ballast drop", "kg"),
+    "warnings": ("", "say!"),
+    "notes": ("", "say-"),
+}
+
+# Words for the stability classes and thermal kinds in text mode.
+WORDS = {
+    "absolutely_stable": "abs stable",
+    "conditionally_unstable": "cond unstable",
+    "absolutely_unstable": "abs unstable",
+    "neutral": "neutral",
+    "none": "none (air cannot rise)",
+    "blue": "blue (dry, no cumulus)",
+    "cumulus": "cumulus",
+}
+
+# Said under the parcel results (stability.parcel_analysis integrates the plain
+# temperature difference: the humidity aloft, needed for virtual temperatures, is not
+# observed).
+PARCEL_NOTE = "CAPE/CIN use air temps (not virtual)"
+
+# Section headings of the text report: (heading, query word of its keys).
+SECTIONS = (
+    ("surface", "obs"),
+    ("cloud base", "base"),
+    ("freezing and icing", "ice"),
+    ("stability", "stab"),
+    ("parcel", "parcel"),
+    ("thermals", "thermal"),
+)
+
+
+# Kinds shown as one number and a fixed unit.
+_PLAIN = {"rho": "%7.3f kg/m3", "jkg": "%7.0f J/kg", "pct": "%7.0f %%", "gkg": "%7.1f g/kg",
+          "gmol": "%7.3f g/mol"}
+
+
+def text_lines(s, key, v, label_kind=None):
+    """Text-mode lines of one result key and value for session s (its display units)."""
+    label, kind = label_kind or LABELS.get(key, (key, "?"))
+    if key == "stability_layers":
+        return layer_lines(s, v)
+    if key == "cautions" or kind == "say!":
+        return wrap(v, "!")
+    if kind == "say-":
+        return wrap(v, "-")
+    if kind == "zl":
+        # Every pass only when there is more than one (else the level line says it).
+        if len(v) < 2:
+            return []
+        return ["%-13s%s" % (label if i == 0 else "", s.f_h(z)) for i, z in enumerate(v)]
+    if v is None:
+        return ["%-13s%s" % (label, "   none in column" if kind == "z" else "   none")]
+    if isinstance(v, float) and -0.05 < v < 0.05 and kind in ("t", "dt", "kg"):
+        v = 0.0  # no "-0.0" in a one-decimal column
+    if kind in ("z", "a", "alt"):
+        text = s.f_h(v)
+    elif kind == "t":
+        text = s.f_t(v)
+    elif kind == "dt":
+        text = s.f_dt(v)
+    elif kind == "p":
+        text = s.f_p(v)
+    elif kind == "b":
+        text = "    yes" if v else "     no"
+    elif kind == "s":
+        text = " " + WORDS.get(v, str(v))
+    elif kind in _PLAIN:
+        text = _PLAIN[kind] % v
+    elif kind == "frac":
+        text = "%7.1f %%" % (100.0 * v)
+    elif kind == "m3":
+        text = ("%7.0f m3 %8.0f ft3" if v >= 100.0 else "%7.2f m3 %8.1f ft3") % (
+            v, units.m3_to_ft3(v))
+    elif kind == "kg":
+        text = "%7.1f kg %6.0f lb" % (v, units.kg_to_lb(v))
+    else:
+        text = ("%.6g" % v) if isinstance(v, float) else str(v)
+    return ["%-13s%s" % (label, text)]
+
+
+def layer_lines(s, rows):
+    """The stability layers as a small table in the display height unit."""
+    out = ["layer %s MSL     ELR SALR K/km" % s.disp["h"]]
+    for r in rows:
+        a, b = r["bottom_msl_m"], r["top_msl_m"]
+        if s.disp["h"] == "ft":
+            a, b = units.m_to_ft(a), units.m_to_ft(b)
+        out.append("%6d-%-6d %5.1f %4.1f %s" % (round(a), round(b), r["lapse_k_per_km"],
+                                                 r["saturated_k_per_km"],
+                                                 WORDS.get(r["class"], r["class"])))
+    return out
+
+
+def wrap(items, mark, width=40):
+    """Each sentence as lines of at most width columns, the first marked mark."""
+    out = []
+    for c in items:
+        line = mark
+        for word in c.split():
+            if len(line) + 1 + len(word) > width and len(line) > 2:
+                out.append(line)
+                line = " "
+            line += " " + word
+        out.append(line)
+    return out
+
+
+def report_text(s, rep, keys):
+    """The whole report in sections, cautions last (keys: queries.report_keys order)."""
+    out = []
+    done = []
+    for heading, word in SECTIONS:
+        out.append("-- " + heading)
+        for k in GROUPS[word]:
+            if k in rep and k not in done:
+                out.extend(text_lines(s, k, rep[k]))
+                done.append(k)
+        if word == "parcel":
+            out.append(PARCEL_NOTE)
+    rest = [k for k in keys if k not in done and k != "cautions"]
+    if rest:
+        out.append("-- more")
+        for k in rest:
+            out.extend(text_lines(s, k, rep[k]))
+    out.append("-- cautions")
+    return out + wrap(rep.get("cautions", ()), "!")
+
+
+def show_text(s):
+    """The settings of session s, one a line, defaults marked."""
+    st = s.state
+    out = []
+
+    def put(label, text):
+        out.append("%-13s%s" % (label, text))
+
+    unset = "   not set"
+    put("temp", s.f_t(st["t_c"]) if "t_c" in st else unset)
+    kind, hum = st.get("hum", ("td", None))
+    if kind == "rh":
+        dew = " (dew %s)" % s.f_t(dewpoint_of(st), True) if "t_c" in st else ""
+        put("rh", "%7.1f %%%s" % (hum, dew))
+    else:
+        put("dew", s.f_t(hum) if hum is not None else unset)
+    put("elev", s.f_h(st["elev_m"]) if "elev_m" in st else unset)
+    pk, p = st.get("press", ("qnh", None))
+    if p is None:
+        put("qnh", "%7.2f hPa ISA, assumed" % STANDARD_QNH_HPA)
+    else:
+        put("qnh" if pk == "qnh" else "stn", s.f_p(p))
+    lapse = st.get("lapse")
+    if lapse is None:
+        put("elr", "%7.1f K/km ISA, assumed" % ISA_LAPSE_K_PER_KM)
+    elif isinstance(lapse, list):
+        for i, (top, rate) in enumerate(lapse):
+            put("elr" if i == 0 else "", "%7.1f K/km %s" % (
+                rate, "to top" if top is None else "to %d %s AGL" % (
+                    round(units.m_to_ft(top) if s.disp["h"] == "ft" else top), s.disp["h"])))
+    else:
+        put("elr", "%7.1f K/km (%.2f C/1000ft)" % (lapse, units.k_per_km_to_c_per_1000ft(lapse)))
+    top = st.get("top_m")
+    put("top" if top is not None else "top (default)",
+        s.f_h(DEFAULT_TOP_M if top is None else top))
+    put("excess", s.f_dt(st.get("excess_c", 0.0)))
+    for key, label, kind in (("env_m3", "env", "m3"), ("wt_kg", "wt", "kg"),
+                             ("fill_m3", "fill", "m3"), ("tmax_c", "tmax", "t"),
+                             ("tenv_c", "tenv", "t"), ("gas", "gas", "s"),
+                             ("purity", "pure", "frac")):
+        if key in st:
+            out.extend(text_lines(s, key, st[key], (label, kind)))
+    put("units", "%s %s %s, out %s" % (s.disp["h"], s.disp["t"].upper(),
+                                       "hPa" if s.disp["p"] == "hpa" else "inHg", s.mode))
+    return out

@@ -1,0 +1,145 @@
+"""Profile chart (lapsecalc.chart): the 40-column text art and the SVG text."""
+import xml.etree.ElementTree as ET
+
+from lapsecalc.column import Column
+from lapsecalc import chart, parcel
+
+SVG = "{http://www.w3.org/2000/svg}"
+# Half a pixel: positions in the SVG are written with one decimal.
+PX_TOL = 0.5
+
+
+def _isa_column(**kw):
+    # ICAO standard atmosphere below 11 km: 15 degC at sea level, 6.5 K/km, 1013.25 hPa
+    # (ICAO Doc 7488/3); dewpoint 5 degC (a 10 degC spread).
+    return Column.from_qnh(kw.get("t", 15.0), kw.get("td", 5.0), kw.get("qnh", 1013.25),
+                           kw.get("elev", 0.0), kw.get("lapse", 6.5), kw.get("top", 16000.0))
+
+
+def _draw(col, **kw):
+    rep = col.report()
+    levels = parcel.path(col, col.elev_m + rep["cloud_base_agl_m"])
+    return rep, levels, chart.text(col, rep, levels, **kw)
+
+
+def _margin(row):
+    # The right margin: the icing column, then the marker letters.
+    return row.split("|")[2]
+
+
+def _plot(row):
+    return row.split("|")[1]
+
+
+def test_width_and_height():
+    cols = [_isa_column(), _isa_column(t=-5.0, td=-8.0, elev=1200.0),
+            _isa_column(t=30.0, td=22.0, lapse=[(300.0, -5.0), (1500.0, 9.0), (None, 6.5)]),
+            _isa_column(t=35.0, td=24.0, lapse=9.7), _isa_column(top=1500.0),
+            _isa_column(t=22.0, td=21.9, lapse=[(2000.0, 4.0), (None, 8.0)], top=9000.0)]
+    for col in cols:
+        for h_unit, t_unit in (("ft", "c"), ("m", "f")):
+            lines = _draw(col, h_unit=h_unit, t_unit=t_unit)[2]
+            assert all(len(line) <= 40 for line in lines), lines
+            assert len(lines) == 1 + chart.ROWS + 4
+            for row in lines[1:1 + chart.ROWS]:
+                # 5 label + "|" + 29 plot + "|" + icing column + 3 letters = 40.
+                assert row.count("|") == 2 and len(row.split("|")[1]) == 29
+
+
+def test_markers_at_the_right_rows():
+    # ISA: 0 degC at 15 / 6.5 km = 2307.7 m (ICAO Doc 7488/3 lapse rate and sea-level
+    # temperature). With the chart from 0 to 6000 m in 16 rows of 375 m, 2307.7 m lies
+    # in band 6 from the bottom: row 16 - 1 - 6 = 9 from the top.
+    col = _isa_column()
+    rep, _, lines = _draw(col, h_unit="m", top_m=6000.0)
+    rows = lines[1:1 + chart.ROWS]
+    assert "F" in _margin(rows[9])
+    assert sum("F" in _margin(r) for r in rows) == 1
+    # Cloud base by the spread rule, about 125 m per degC (common practice): 10 degC
+    # spread, about 1250 m, band 3 (1125..1500 m), row 12. Its row is shaded "-".
+    assert "B" in _margin(rows[12]) and "-" in rows[12].split("|")[1]
+    # A stable ISA column: no LFC, so no cloud top and no icing band, no icing margin.
+    assert rep["icing_band_bottom_msl_m"] is None
+    assert not any(_margin(r).startswith(":") for r in rows)
+    # The 0-degree isotherm column "." meets the environment in the F row.
+    dots = [r.split("|")[1].find(".") for r in rows if "." in r.split("|")[1]]
+    x0 = dots[0]
+    assert all(d == x0 for d in dots)
+    plot = rows[9].split("|")[1]
+    env_x = [i for i, ch in enumerate(plot) if ch in "#X"]
+    assert min(abs(i - x0) for i in env_x) <= 1
+    # The environment cools upward: its column moves left, row by row, never right.
+    first = [min(i for i, ch in enumerate(r.split("|")[1]) if ch in "#X") for r in rows]
+    assert all(first[i] <= first[i + 1] for i in range(len(first) - 1))
+    # Parcel and environment start together at the surface.
+    assert "X" in rows[-1].split("|")[1]
+    assert rows[-1].startswith("    0|")
+
+
+def test_icing_band_in_the_margin_only():
+    # A warm, humid, conditionally unstable column whose cloud reaches 0..-20 degC.
+    col = _isa_column(t=30.0, td=22.0, lapse=8.0)
+    rep, _, lines = _draw(col, h_unit="m")
+    ib, it = rep["icing_band_bottom_msl_m"], rep["icing_band_top_msl_m"]
+    assert ib is not None and it is not None
+    # Rows by the layout the docstring states: row r spans lo + (ROWS-1-r)*dz to
+    # lo + (ROWS-r)*dz, lo the field, dz = (top - lo) / ROWS; a row is marked when it
+    # overlaps the band.
+    lo = col.elev_m
+    dz = (chart.top_of(col, rep) - lo) / chart.ROWS
+    want = [r for r in range(chart.ROWS)
+            if lo + (chart.ROWS - r) * dz > ib and lo + (chart.ROWS - 1 - r) * dz < it]
+    rows = lines[1:1 + chart.ROWS]
+    got = [r for r, row in enumerate(rows) if _margin(row).startswith(":")]
+    assert got == want and len(got) >= 3
+    # The band never fills the plot: the environment stays visible in every band row.
+    for r in got:
+        assert ":" not in _plot(rows[r])
+        assert "#" in _plot(rows[r]) or "X" in _plot(rows[r])
+    assert ":icing" in lines[-2]
+
+
+def test_svg_parses_with_expected_elements():
+    col = _isa_column()
+    rep = col.report()
+    levels = parcel.path(col, col.elev_m + rep["cloud_base_agl_m"])
+    text = chart.svg(col, rep, levels, "ft", "c", top_m=6000.0)
+    root = ET.fromstring(text)
+    assert root.tag == SVG + "svg"
+    lines = {e.get("id"): e for e in root.iter(SVG + "polyline")}
+    env = lines["environment"].get("points").split()
+    par = lines["parcel"].get("points").split()
+    assert len(env) == len(par) == 65
+    # Plot box: 56..344 px wide, 34..416 px high; 0..6000 m; temperatures in the box.
+    x_first, y_first = (float(v) for v in env[0].split(","))
+    assert abs(y_first - 416.0) < PX_TOL
+    y_last = float(env[-1].split(",")[1])
+    assert abs(y_last - 34.0) < PX_TOL
+    assert all(56.0 - PX_TOL <= float(p.split(",")[0]) <= 344.0 + PX_TOL for p in env + par)
+    marks = {e.get("id"): e for e in root.iter(SVG + "line")}
+    # ISA freezing level 2307.7 m (ICAO Doc 7488/3): y = 34 + (6000 - 2307.7) / 6000 * 382.
+    y_frz = 34.0 + (6000.0 - 15.0 / 6.5 * 1000.0) / 6000.0 * 382.0
+    assert abs(float(marks["freezing-level"].get("y1")) - y_frz) < PX_TOL
+    assert "cloud-base" in marks and "isotherm-0" in marks
+    # The 0 degC isotherm crosses the environment at the freezing level: the env
+    # polyline passes through (x of the isotherm, y_frz) within a pixel.
+    x0 = float(marks["isotherm-0"].get("x1"))
+    pts = [tuple(float(v) for v in p.split(",")) for p in env]
+    near = min(pts, key=lambda p: abs(p[1] - y_frz))
+    assert abs(near[0] - x0) < 3.0
+    assert any("ft MSL" in (t.text or "") for t in root.iter(SVG + "text"))
+
+
+def test_svg_icing_rect():
+    col = _isa_column(t=30.0, td=22.0, lapse=8.0)
+    rep = col.report()
+    levels = parcel.path(col, col.elev_m + rep["cloud_base_agl_m"])
+    root = ET.fromstring(chart.svg(col, rep, levels, "m", "f"))
+    rects = [e for e in root.iter(SVG + "rect") if e.get("id") == "icing"]
+    assert len(rects) == 1 and float(rects[0].get("height")) > 0.0
+
+
+def test_parcel_t_interpolates():
+    levels = [(0.0, 1000.0, 20.0, 20.0), (1000.0, 900.0, 10.0, 13.5)]
+    assert chart.parcel_t(levels, 500.0) == 15.0
+    assert chart.parcel_t(levels, 0.0) == 20.0

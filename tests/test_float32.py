@@ -1,0 +1,197 @@
+"""The core on a single-precision board: every arithmetic and math result rounded to
+float32 (tests/f32.py), against the same code in double precision.
+
+Tolerances (issue 5): cloud base 2 m, freezing level 5 m, density altitude 5 m, QNH
+0.1 hPa, CAPE 2 % or 5 J/kg; every capped loop ends before its cap. The inputs are
+invented, spread over what pilots, balloon crews and stations meet.
+"""
+import math
+
+import pytest
+
+import f32
+from f32 import F32, r32
+
+import lapsecalc.column as d_column
+import lapsecalc.condensation as d_condensation
+import lapsecalc.moisture as d_moisture
+import lapsecalc.standard as d_standard
+import lapsecalc.station as d_station
+
+CLOUD_BASE_M = 2.0
+FREEZING_LEVEL_M = 5.0
+DENSITY_ALTITUDE_M = 5.0
+QNH_HPA = 0.1
+CAPE_REL = 0.02
+CAPE_J_KG = 5.0
+
+# Largest error seen per quantity, for the summary test at the end.
+WORST = {}
+
+
+@pytest.fixture(scope="module")
+def s():
+    f32.CAPS.clear()
+    pkg = f32.load("constants", "limits", "units", "moisture", "standard", "condensation",
+                   "adiabats", "column", "parcel", "stability", "station")
+    return pkg
+
+
+def _err(name, single, double):
+    e = abs(float(single) - double)
+    WORST[name] = max(WORST.get(name, 0.0), e)
+    return e
+
+
+def test_emulation_rounds_like_a_board():
+    # On a single-precision port 1.0 + 1e-8 - 1.0 == 0.0 (REFERENCES.md "MicroPython facts").
+    assert F32(1.0) + 1e-8 - 1.0 == 0.0
+    assert 1.0 + F32(1e-8) - 1.0 == 0.0
+    assert isinstance(2 * F32(3.0), F32) and isinstance(-F32(3.0), F32)
+    assert float(F32(0.1)) == 0.10000000149011612   # nearest float32 to 0.1
+    assert r32(1e39) == math.inf
+
+
+def test_emulation_reaches_constants_and_math(s):
+    import lapsecalc_f32.constants as c
+    import lapsecalc_f32.standard as st
+    # Derived constants are computed in float32 too.
+    assert isinstance(c.EPS, F32) and float(c.EPS) == r32(float(c.R_DRY) / float(c.R_VAPOUR))
+    assert isinstance(st.exp(1.0), F32)
+    # The cancellation-free form stays exact where the plain one fails in float32:
+    # (exp(x) - 1) / x at x = 1e-6 is 1.0000005; in float32 the plain form is off by 5 %.
+    x = F32(1e-6)
+    plain = (st.exp(x) - 1.0) / x
+    assert abs(plain - 1.0000005) > 0.01
+    assert abs(st.ratio_exp(x) - 1.0000005) < 1e-6
+
+
+GRID_T = (-35.0, -15.0, 0.0, 12.0, 25.0, 38.0, 50.0)
+GRID_SPREAD = (0.3, 2.0, 6.0, 15.0, 30.0)
+GRID_P = (1045.0, 1000.0, 900.0, 780.0, 620.0)
+
+
+@pytest.mark.parametrize("method", ["exact", "bolton", "spread"])
+def test_cloud_base(s, method):
+    import lapsecalc_f32.condensation as c
+    for t in GRID_T:
+        for spread in GRID_SPREAD:
+            td = t - spread
+            if td < -90.0:
+                continue
+            for p in GRID_P:
+                want = d_condensation.cloud_base(t, td, p, method)
+                got = c.cloud_base(t, td, p, method)
+                assert _err("cloud_base_m", got[0], want[0]) < CLOUD_BASE_M, (t, td, p)
+
+
+def test_qnh_and_station_pressure(s):
+    import lapsecalc_f32.standard as st
+    for elev in (-400.0, 0.0, 350.0, 1200.0, 2400.0, 3800.0, 5000.0):
+        for q in (950.0, 985.0, 1013.25, 1040.0, 1070.0):
+            p = d_standard.station_pressure(q, elev)
+            if p > 1100.0:
+                continue  # above the library's pressure range
+            assert _err("station_pressure_hpa", st.station_pressure(q, elev), p) < QNH_HPA
+            assert _err("qnh_hpa", st.qnh(p, elev), d_standard.qnh(p, elev)) < QNH_HPA
+
+
+def test_density_and_pressure_altitude(s):
+    import lapsecalc_f32.standard as st
+    for p in (1060.0, 1013.25, 950.0, 850.0, 700.0, 550.0, 400.0, 250.0, 120.0, 30.0):
+        assert _err("pressure_altitude_m", st.pressure_altitude(p),
+                    d_standard.pressure_altitude(p)) < DENSITY_ALTITUDE_M
+        for t in (-60.0, -30.0, -5.0, 15.0, 35.0, 50.0):
+            for spread in (None, 0.0, 8.0, 25.0):
+                td = None if spread is None else t - spread
+                want = d_standard.density_altitude(p, t, td)
+                got = st.density_altitude(p, t, td)
+                assert _err("density_altitude_m", got, want) < DENSITY_ALTITUDE_M, (p, t, td)
+
+
+def test_moisture_solvers(s):
+    import lapsecalc_f32.moisture as m
+    for t in (-30.0, -5.0, 10.0, 25.0, 40.0):
+        for rh in (5.0, 30.0, 70.0, 99.0):
+            td = d_moisture.dewpoint(t, rh)
+            assert _err("dewpoint_c", m.dewpoint(t, rh), td) < 0.01
+            for p in (1013.25, 850.0, 600.0):
+                assert _err("wet_bulb_c", m.wet_bulb(t, td, p),
+                            d_moisture.wet_bulb(t, td, p)) < 0.02
+
+
+# Invented columns: t_c, td_c, p_hpa, elev_m, lapse, top_m.
+COLUMNS = [
+    (27.0, 13.0, 967.4, 411.48, [(250.0, 9.5), (2400.0, 7.5), (None, 6.5)], 16000.0),
+    (22.0, 12.0, 1005.0, 150.0, 6.5, 16000.0),
+    (34.0, 2.0, 840.0, 1600.0, 8.8, 14000.0),
+    (29.0, 23.0, 1008.0, 40.0, [(1500.0, 9.0), (None, 7.2)], 16000.0),
+    (31.0, 24.0, 1002.0, 10.0, [(1200.0, 9.8), (None, 7.5)], 20000.0),
+    (-2.0, -4.0, 990.0, 200.0, [(300.0, -20.0), (1200.0, 4.0), (None, 6.5)], 12000.0),
+    (-6.0, -6.0, 1021.0, 300.0, 3.0, 9000.0),
+    (8.0, 1.0, 780.0, 2200.0, 6.0, 16000.0),
+    (16.0, 14.0, 1012.0, 5.0, [(400.0, 0.0), (None, 6.5)], 15000.0),
+    (38.0, -5.0, 910.0, 900.0, 9.6, 18000.0),
+    (12.0, 11.5, 700.0, 3000.0, 7.0, 16000.0),
+    (20.0, 17.0, 1015.0, 60.0, [(800.0, 8.0), (2000.0, -3.0), (None, 6.8)], 16000.0),
+]
+
+
+def _reports(s):
+    import lapsecalc_f32.column as c
+    for args in COLUMNS:
+        want = d_column.Column(*args).report()
+        got = c.Column(*args).report()
+        yield args, want, got
+
+
+def test_column_reports(s):
+    for args, want, got in _reports(s):
+        assert _err("cloud_base_m", got["cloud_base_agl_m"], want["cloud_base_agl_m"]) \
+            < CLOUD_BASE_M, args
+        assert _err("qnh_hpa", got["qnh_hpa"], want["qnh_hpa"]) < QNH_HPA, args
+        assert _err("density_altitude_m", got["density_altitude_m"],
+                    want["density_altitude_m"]) < DENSITY_ALTITUDE_M, args
+        for key in ("freezing_level_msl_m", "parcel_freezing_level_msl_m"):
+            assert (got[key] is None) == (want[key] is None), (key, args)
+            if want[key] is not None:
+                assert _err(key, got[key], want[key]) < FREEZING_LEVEL_M, (key, args)
+        assert len(got["freezing_levels_msl_m"]) == len(want["freezing_levels_msl_m"]), args
+        for zs, zd in zip(got["freezing_levels_msl_m"], want["freezing_levels_msl_m"]):
+            assert _err("freezing_level_msl_m", zs, zd) < FREEZING_LEVEL_M, args
+        cape = want["cape_j_kg"]
+        e = _err("cape_j_kg", got["cape_j_kg"], cape)
+        WORST["cape_rel"] = max(WORST.get("cape_rel", 0.0), e / cape if cape > 0 else 0.0)
+        assert e <= max(CAPE_REL * cape, CAPE_J_KG), (args, got["cape_j_kg"], cape)
+
+
+def test_station_line_values(s):
+    import lapsecalc_f32.station as st
+    for t, rh, p, elev in ((27.0, 41.0, 967.4, 411.0), (-18.5, 72.0, 802.0, 1850.0),
+                           (35.0, 12.0, 880.0, 1150.0), (4.0, 97.0, 1028.0, 20.0)):
+        want = d_station.station_values(t, rh, p, elev)
+        got = st.station_values(t, rh, p, elev)
+        assert _err("qnh_hpa", got["qnh_hpa"], want["qnh_hpa"]) < QNH_HPA
+        assert _err("density_altitude_m", got["da_m"], want["da_m"]) < DENSITY_ALTITUDE_M
+        assert _err("cloud_base_m", got["cb_agl_m"], want["cb_agl_m"]) < CLOUD_BASE_M
+
+
+def test_capped_loops_end_before_their_cap(s):
+    # Runs after the tests above (same module fixture): every capped loop they drove.
+    for args, _, _ in _reports(s):
+        pass
+    seen = dict(f32.CAPS)
+    for where in ("condensation._LAMBERT_CAP", "moisture._WET_BULB_CAP", "stability._CCL_CAP"):
+        assert where in seen, "%s never ran: the counting range is not in place" % where
+    for where, rec in seen.items():
+        assert rec["ran_out"] == 0, (where, rec)
+        assert rec["max_used"] < rec["cap"], (where, rec)
+
+
+def test_worst_errors_within_tolerances():
+    # A summary (pytest -s prints it); the per-test asserts already hold each bound.
+    if not WORST:
+        pytest.skip("run with the tests above")
+    print("\nfloat32 largest errors: " + ", ".join(
+        "%s %.3g" % (k, v) for k, v in sorted(WORST.items())))
+    assert WORST.get("cloud_base_m", 0.0) < CLOUD_BASE_M

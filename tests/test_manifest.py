@@ -1,0 +1,86 @@
+"""The mip manifests: lapsecalc/package.json (core) and lapsecalc/package-full.json
+(core plus the interpreter extras) list exactly the board modules that exist."""
+import ast
+import os
+import re
+import sys
+
+import lapsecalc
+
+sys.path.insert(0, os.path.join(os.path.dirname(os.path.abspath(__file__)), "mpy"))
+import boardset  # noqa: E402  (tests/mpy/boardset.py)
+
+
+def _lapsecalc_imports(module):
+    # Every lapsecalc module the source imports, at the top or inside a function.
+    tree = ast.parse(open(os.path.join(boardset.PKG, module + ".py")).read())
+    out = set()
+    for node in ast.walk(tree):
+        if isinstance(node, ast.ImportFrom) and node.module:
+            if node.module == "lapsecalc":
+                out.update(a.name for a in node.names)
+            elif node.module.startswith("lapsecalc."):
+                out.add(node.module.split(".")[1])
+        elif isinstance(node, ast.Import):
+            for a in node.names:
+                if a.name.startswith("lapsecalc."):
+                    out.add(a.name.split(".")[1])
+    return out
+
+
+def test_manifests_have_mip_shape():
+    # mip's package.json: {"urls": [[target, source], ...], "deps": [...], "version"}
+    # (REFERENCES.md "MicroPython facts").
+    for path in (boardset.CORE_MANIFEST, boardset.FULL_MANIFEST):
+        m = boardset.read_manifest(path)
+        assert sorted(m) == ["deps", "urls", "version"], path
+        assert m["deps"] == [], path
+        for target, source in m["urls"]:
+            assert re.match(r"^lapsecalc/[a-z_]+\.py$", target), target
+            # OWNER/REPO stays a placeholder: the docs say to put the real names in.
+            assert source == "github:OWNER/REPO/" + target, source
+        names = [t for t, _ in m["urls"]]
+        assert len(names) == len(set(names)), path
+
+
+def test_versions_match_package():
+    pyproject = open(os.path.join(boardset.ROOT, "pyproject.toml")).read()
+    assert 'version = "%s"' % lapsecalc.__version__ in pyproject
+    for path in (boardset.CORE_MANIFEST, boardset.FULL_MANIFEST):
+        assert boardset.read_manifest(path)["version"] == lapsecalc.__version__, path
+
+
+def test_full_manifest_is_every_board_module():
+    board = boardset.board_modules()
+    expected = [m for m in boardset.source_modules() if m not in boardset.CPYTHON_ONLY]
+    unlisted = sorted(set(expected) - set(board))
+    gone = sorted(set(board) - set(expected))
+    assert not unlisted, "add to lapsecalc/package-full.json (and package.json if core): %s" \
+        % unlisted
+    assert not gone, "listed in lapsecalc/package-full.json but no such file: %s" % gone
+    for m in boardset.CPYTHON_ONLY:
+        assert m not in board
+
+
+def test_core_is_part_of_full_and_has_what_a_station_needs():
+    core = boardset.core_modules()
+    board = boardset.board_modules()
+    assert board[:len(core)] == core  # full = core first, then the extras
+    for m in ("__init__", "constants", "limits", "moisture", "standard", "condensation",
+              "column", "station"):
+        assert m in core, m
+
+
+def test_core_imports_only_core():
+    # A board with only package.json installed must be able to import everything in it.
+    core = set(boardset.core_modules())
+    for m in core:
+        outside = _lapsecalc_imports(m) - core
+        assert not outside, "core module %s imports %s" % (m, sorted(outside))
+
+
+def test_board_modules_never_import_cpython_only_ones():
+    board = set(boardset.board_modules())
+    for m in board:
+        outside = _lapsecalc_imports(m) - board
+        assert not outside, "board module %s imports %s" % (m, sorted(outside))

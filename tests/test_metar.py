@@ -1,0 +1,77 @@
+"""METAR reading (lapsecalc.metar): plain asserts, so the file also runs on MicroPython.
+
+Group forms: WMO Manual on Codes (WMO-No. 306), FM 15 METAR, as summarised in
+REFERENCES.md, Reports (stated from memory). The reports below are invented: the
+station XKFL and its weather do not exist."""
+from lapsecalc.metar import parse
+
+# One hundredth of a hectopascal: the A group converts with an exact factor.
+HPA_TOL = 0.01
+
+
+def _refused(text):
+    try:
+        parse(text)
+    except ValueError as e:
+        return str(e)
+    return None
+
+
+def test_whole_degrees_and_q_group():
+    # TT/TdTd in whole degC, Qpppp in whole hPa (WMO-No. 306 FM 15; REFERENCES.md).
+    m = parse("METAR XKFL 121650Z 24010KT 9999 FEW045 24/08 Q1016")
+    assert m["t_c"] == 24.0 and m["td_c"] == 8.0 and m["qnh_hpa"] == 1016.0
+    assert m["groups"] == ["24/08", "Q1016"]
+
+
+def test_minus_sign():
+    # "M" before a negative value, e.g. M05/M08 (WMO-No. 306 FM 15; REFERENCES.md).
+    m = parse("XKFL 010550Z 00000KT 0800 FG M05/M08 Q1030")
+    assert m["t_c"] == -5.0 and m["td_c"] == -8.0
+    m = parse("XKFL 010550Z 03/M01 Q1002")
+    assert m["t_c"] == 3.0 and m["td_c"] == -1.0
+
+
+def test_a_group_in_inches():
+    # Annnn in hundredths of inHg; 1 inHg = 33.8639 hPa (REFERENCES.md, Units).
+    m = parse("XKFL 121653Z 18006KT 10SM CLR 31/12 A2992")
+    assert abs(m["qnh_hpa"] - 29.92 * 33.8639) < HPA_TOL
+    assert abs(m["qnh_hpa"] - 1013.21) < HPA_TOL
+
+
+def test_q_preferred_over_a():
+    m = parse("XKFL 121653Z 20/10 A2992 Q1020")
+    assert m["qnh_hpa"] == 1020.0
+
+
+def test_remark_t_group_gives_tenths():
+    # T02560139 = 25.6 / 13.9 degC (REFERENCES.md, Reports: sign digit 0 plus, 1 minus).
+    m = parse("XKFL 121653Z 18006KT 10SM FEW050 26/14 A2990 RMK AO2 SLP118 T02560139")
+    assert abs(m["t_c"] - 25.6) < 1e-9 and abs(m["td_c"] - 13.9) < 1e-9
+    m = parse("XKFL 121653Z M02/M04 A3001 RMK T10171039")
+    assert abs(m["t_c"] + 1.7) < 1e-9 and abs(m["td_c"] + 3.9) < 1e-9
+    # Temperature only in the remark: the dewpoint stays the whole-degree one.
+    m = parse("XKFL 121653Z 10/05 A3001 RMK T0104")
+    assert abs(m["t_c"] - 10.4) < 1e-9 and m["td_c"] == 5.0
+
+
+def test_other_groups_with_slashes_are_skipped():
+    # Visibility fractions, runway visual range and missing cloud groups are not
+    # temperature groups.
+    m = parse("XKFL 121653Z 1/2SM M1/4SM R24/P2000N BKN020/// 15/11 Q0998")
+    assert m["t_c"] == 15.0 and m["td_c"] == 11.0 and m["qnh_hpa"] == 998.0
+
+
+def test_missing_parts():
+    m = parse("XKFL 121653Z 15/ Q1011")
+    assert m["t_c"] == 15.0 and m["td_c"] is None
+    m = parse("xkfl 121653z 15/09")
+    assert m["qnh_hpa"] is None and m["td_c"] == 9.0
+
+
+def test_refusals_name_what_is_accepted():
+    assert "TT/TdTd" in _refused("XKFL 121653Z 24010KT 9999 Q1016")
+    assert "td_c" in _refused("XKFL 121653Z 10/12 Q1016")
+    assert "850..1100" in _refused("XKFL 121653Z 10/02 Q0500")
+    assert "at most" in _refused("X " * 100)
+    assert _refused("") is not None

@@ -1,0 +1,795 @@
+"""The line interpreter (lapsecalc.shell): scripted sessions, lines in -> lines out, in
+text and kv mode; robustness under random and mutated lines (hypothesis, and a seeded
+loop of more than 10,000 lines).
+
+Numbers in the expected lines come from the library itself (Column.report() of the
+same invented scenario, lapsecalc.demo.DEMO_COLUMN), formatted here by the layout the
+shell documents, or from outside facts named beside them."""
+import io
+import json
+import random
+
+from hypothesis import given, settings, strategies as st
+
+from lapsecalc.column import Column
+from lapsecalc.condensation import cloud_base
+from lapsecalc.demo import DEMO_COLUMN, DEMO_LINES
+from lapsecalc.shell import (Session, MAX_LINE, number, split_line, nearest, read_line,
+                             repl, kv_value)
+from lapsecalc import balloon
+
+SETUP = ["elev 1350ft", "temp 27C dew 13C qnh 1016", "elr 9.5@250m 7.5@2400m 6.5"]
+# Tolerances: a centimetre for heights that are sums of exact conversions, a
+# hundredth of a hectopascal, a thousandth of a kelvin.
+CM = 0.01
+HPA = 0.01
+MK = 0.001
+
+
+def demo_column():
+    t, td, q, elev, layers = DEMO_COLUMN
+    return Column.from_qnh(t, td, q, elev, layers)
+
+
+def demo_report(excess_c=0.0):
+    return demo_column().report(excess_c)
+
+
+def session(mode="text"):
+    s = Session()
+    for line in SETUP:
+        assert s.feed(line)[0].startswith("ok")
+    if mode != "text":
+        assert s.feed("out " + mode) == (['{"text": "ok"}'] if mode == "json" else ["ok"])
+    return s
+
+
+def kvdict(lines):
+    # key=value lines to a dict; "#" lines are notes.
+    return dict(line.split("=", 1) for line in lines if not line.startswith("#"))
+
+
+def run(s, script):
+    for line, want in script:
+        got = s.feed(line)
+        assert got == want, "%r\n got  %r\n want %r" % (line, got, want)
+
+
+# ---- the text layout the shell documents: 13-column label, then the value ----
+def L(label, text):
+    return "%-13s%s" % (label, text)
+
+
+def H(z_m):
+    # Feet and metres side by side; 1 ft = 0.3048 m (REFERENCES.md, Units).
+    return "%7d ft %6d m" % (round(z_m / 0.3048), round(z_m))
+
+
+def T(t_c):
+    return "%7.1f C" % t_c
+
+
+def P(p_hpa):
+    return "%7.1f hPa" % p_hpa
+
+
+def KV(key, v):
+    # kv layout: None empty, booleans 0/1, floats %.6g.
+    if v is None:
+        text = ""
+    elif v is True or v is False:
+        text = "1" if v else "0"
+    elif isinstance(v, float):
+        text = "%.6g" % v
+    elif isinstance(v, list):
+        text = ",".join("%.6g" % x for x in v)
+    else:
+        text = str(v)
+    return "%s=%s" % (key, text)
+
+
+# ---------------------------------------------------------------- pure parts
+
+def test_split_line_and_comments():
+    assert split_line("  temp 27C   dew 13C # warm\t") == ["temp", "27C", "dew", "13C"]
+    assert split_line("# only a comment") == []
+    assert split_line("") == []
+
+
+def test_number_units_exact_conversions():
+    # Exact definitions (REFERENCES.md, Units): 1 ft = 0.3048 m; degF = degC * 9/5 + 32;
+    # 1 inHg = 33.8639 hPa; 1 mmHg = 1.33322 hPa.
+    assert number("1000ft", "h", "m") == 304.8
+    assert number("1.5km", "h", "ft") == 1500.0
+    assert number("1000", "h", "ft") == 304.8
+    assert abs(number("80.6F", "t", "c") - 27.0) < 1e-9
+    assert abs(number("300.15K", "t", "c") - 27.0) < 1e-9
+    assert abs(number("29.92inHg", "p", "hpa") - 29.92 * 33.8639) < 1e-9
+    assert abs(number("760mmHg", "p", "hpa") - 1013.2472) < 1e-6
+    assert number("101.325kPa", "p", "hpa") == 1013.25
+    assert number("1013mb", "p", "inhg") == 1013.0
+    assert number("-3.5", "t", "c") == -3.5 and number("+2e1C", "t", "c") == 20.0
+    # A temperature difference in F is 5/9 of a kelvin.
+    assert abs(number("9F", "dt", "c") - 5.0) < 1e-9 and number("2K", "dt", "c") == 2.0
+
+
+def test_number_lapse_units():
+    # 1 degC per 1000 ft = 1 / 0.3048 K/km; 1 degC per 100 m = 10 K/km (exact).
+    assert abs(number("2C/1000ft", "l", "k/km") - 2.0 / 0.3048) < 1e-9
+    assert number("0.65C/100m", "l", "k/km") == 6.5
+    assert number("6.5K/km", "l", "k/km") == 6.5 and number("6.5", "l", "k/km") == 6.5
+    assert abs(number("3.6F/1000ft", "l", "k/km") - 2.0 / 0.3048) < 1e-9
+
+
+def test_number_refusals():
+    for tok, kind in (("nan", "t"), ("inf", "t"), ("-inf", "h"), ("1e999", "p"), ("", "t"),
+                      (".", "t"), ("1.2.3", "t"), ("12ft", "t"), ("5C", "h"), ("e5", "t"),
+                      ("--3", "t"), ("3xyz", "p"), ("1e999C", "t")):
+        try:
+            number(tok, kind, "c" if kind == "t" else "m")
+        except ValueError as e:
+            assert "accepted" in str(e) or "finite" in str(e)
+        else:
+            raise AssertionError("accepted %r" % tok)
+
+
+def test_nearest_word():
+    known = ["temp", "dew", "report", "qnh", "elr", "base", "balloon"]
+    assert nearest("tmep", known) == "temp"
+    assert nearest("REPROT", known) == "report"
+    assert nearest("qhn", known) == "qnh"
+    assert nearest("xyzzy", known) is None
+    assert nearest("q", known) is None
+    assert nearest("b" * 300, known) is None
+
+
+# ------------------------------------------------------- scripted sessions, text
+
+def test_setup_is_the_demo_column():
+    # elev 1350 ft = 411.48 m exactly; the shell's column is the library's.
+    assert tuple(SETUP) == DEMO_LINES[1:4]
+    s = session("kv")
+    rep = demo_report()
+    got = s.feed("report")
+    assert got[0] == "elevation_m=411.48"
+    assert got == [("%s=%s" % (k, kv_value(rep[k]))) for k in
+                   [line.split("=", 1)[0] for line in got]]
+    assert sorted(line.split("=", 1)[0] for line in got) == sorted(rep)
+
+
+def test_settings_text():
+    s = Session()
+    run(s, [
+        ("elev 1350ft", ["ok: elev 1350 ft (411 m)"]),
+        ("temp 27C dew 13C qnh 1016", ["ok: temp 27.0 C, dew 13.0 C, QNH 1016.0 hPa"]),
+        ("elr 9.5@250m 7.5@2400m 6.5", ["ok: ELR 9.5@820ft 7.5@7874ft 6.5 K/km"]),
+        ("T 80.6F TD 55.4F", ["ok: temp 27.0 C, dew 13.0 C"]),
+        ("rh 50%", ["ok: rh 50.0 %"]),
+        ("qnh 29.97inHg", ["ok: QNH 1014.9 hPa"]),
+        ("stn 967.4", ["ok: station 967.4 hPa"]),
+        ("elr 2C/1000ft", ["ok: ELR 6.6 K/km (2.00 C/1000ft)"]),
+        ("elr -5@300m 8@1500m 6.5", ["ok: ELR -5@984ft 8@4921ft 6.5 K/km"]),
+        ("elr 6.5@3000m", ["ok: ELR 6.5@9843ft K/km"]),
+        ("top 30000ft", ["ok: top 30000 ft (9144 m)"]),
+        ("excess 2C", ["ok: excess +2.0 K"]),
+        ("excess 3.6F", ["ok: excess +2.0 K"]),
+        ("metar XKFL 121650Z 24010KT 9999 FEW045 24/M02 Q1016 RMK T02410021",
+         ["ok: METAR temp 24.1 C, dew 2.1 C, QNH 1016.0 hPa"]),
+        ("env 2800m3 wt 450kg tmax 120C", ["ok: envelope 2800 m3, weight 450 kg, tmax 120.0 C"]),
+        ("env 100000ft3 wt 1000lb tenv 95C",
+         ["ok: envelope 2831.68 m3, weight 453.592 kg, tenv 95.0 C"]),
+        ("gas he fill 6m3 pure 98%", ["ok: gas helium, fill 6 m3, purity 98.0 %"]),
+        ("gas none", ["ok: gas none (hot air)"]),
+        ("", []),
+        ("   # a comment line", []),
+    ])
+
+
+def test_show_and_clear_text():
+    s = session()
+    run(s, [
+        ("show", [L("temp", T(27.0)), L("dew", T(13.0)), L("elev", H(411.48)),
+                  L("qnh", P(1016.0)),
+                  L("elr", "    9.5 K/km to 820 ft AGL"),
+                  L("", "    7.5 K/km to 7874 ft AGL"),
+                  L("", "    6.5 K/km to top"),
+                  L("top (default)", H(16000.0)), L("excess", "   +0.0 K"),
+                  L("units", "ft C hPa, out text")]),
+        ("clear qnh elr", ["ok: cleared qnh elr"]),
+        ("rh 50", ["ok: rh 50.0 %"]),
+        ("show", [L("temp", T(27.0)),
+                  # 30 degC at 50 % gives 18.45 (ASHRAE, REFERENCES.md); 27 degC at
+                  # 50 % the library's dewpoint, shown to a tenth.
+                  L("rh", "   50.0 % (dew 15.7 C)"), L("elev", H(411.48)),
+                  L("qnh", "1013.25 hPa ISA, assumed"),
+                  L("elr", "    6.5 K/km ISA, assumed"),
+                  L("top (default)", H(16000.0)), L("excess", "   +0.0 K"),
+                  L("units", "ft C hPa, out text")]),
+        ("clear", ["ok: cleared all settings"]),
+        ("show", [L("temp", "   not set"), L("dew", "   not set"), L("elev", "   not set"),
+                  L("qnh", "1013.25 hPa ISA, assumed"),
+                  L("elr", "    6.5 K/km ISA, assumed"),
+                  L("top (default)", H(16000.0)), L("excess", "   +0.0 K"),
+                  L("units", "ft C hPa, out text")]),
+    ])
+
+
+def test_queries_text():
+    s = session()
+    r = demo_report()
+    col = demo_column()
+    bolton = cloud_base(27.0, 13.0, col.p_hpa, "bolton")[0]
+    run(s, [
+        ("obs", [L("elevation", H(r["elevation_m"])), L("temp", T(27.0)),
+                 L("dewpoint", T(13.0)), L("RH", "%7.0f %%" % r["rh_pct"]),
+                 L("mix ratio", "%7.1f g/kg" % r["mixing_ratio_g_kg"]),
+                 L("wet bulb", T(r["wet_bulb_c"])),
+                 L("station p", P(r["station_pressure_hpa"])), L("QNH", P(1016.0)),
+                 L("press alt", H(r["pressure_altitude_m"])),
+                 L("density", "%7.3f kg/m3" % r["air_density_kg_m3"]),
+                 L("DA", H(r["density_altitude_m"])), L("column top", H(16000.0))]),
+        # Spread rule: 125 m per degC of spread (common practice): 14 degC -> 1750 m.
+        ("base", [L("base AGL", H(r["cloud_base_agl_m"])),
+                  L("base MSL", H(r["cloud_base_msl_m"])), L("LCL temp", T(r["lcl_t_c"])),
+                  L("LCL press", P(r["lcl_p_hpa"])), L("Bolton LCL", H(bolton) + " AGL"),
+                  L("spread rule", H(1750.0) + " AGL")]),
+        ("ice", [L("0C level", H(r["freezing_level_msl_m"])),
+                 L("-10C level", H(r["minus10_level_msl_m"])),
+                 L("-20C level", H(r["minus20_level_msl_m"])),
+                 L("warm aloft", "     no"),
+                 L("parcel 0C", H(r["parcel_freezing_level_msl_m"])),
+                 L("icing from", H(r["icing_band_bottom_msl_m"])),
+                 L("icing to", H(r["icing_band_top_msl_m"]))]),
+        ("da", [L("elevation", H(r["elevation_m"])),
+                L("station p", P(r["station_pressure_hpa"])), L("QNH", P(1016.0)),
+                L("press alt", H(r["pressure_altitude_m"])),
+                L("density", "%7.3f kg/m3" % r["air_density_kg_m3"]),
+                L("DA", H(r["density_altitude_m"]))]),
+        ("stab", [L("lowest layer", " " + r["stability"].replace("conditionally", "cond")
+                    .replace("absolutely", "abs").replace("_", " ")),
+                  L("whole column", " " + r["stability_column"].replace("absolutely", "abs")
+                    .replace("conditionally", "cond").replace("_", " ")),
+                  "layer ft MSL     ELR SALR K/km"] +
+         ["%6d-%-6d %5.1f %4.1f %s" % (
+             round(x["bottom_msl_m"] / 0.3048), round(x["top_msl_m"] / 0.3048),
+             x["lapse_k_per_km"], x["saturated_k_per_km"],
+             x["class"].replace("conditionally", "cond").replace("absolutely", "abs")
+             .replace("_", " ")) for x in r["stability_layers"]]),
+        ("parcel", [L("LFC", H(r["lfc_msl_m"])), L("EL", H(r["el_msl_m"])),
+                    L("EL above top", "     no"), L("CAPE", "%7.0f J/kg" % r["cape_j_kg"]),
+                    L("CIN", "%7.0f J/kg" % r["cin_j_kg"]),
+                    L("lifted index", "%+7.1f K" % r["lifted_index_c"]),
+                    L("parcel 0C", H(r["parcel_freezing_level_msl_m"])),
+                    # CAPE and CIN integrate plain temperatures (stability.parcel_analysis).
+                    "CAPE/CIN use air temps (not virtual)"]),
+        ("thermal", [L("excess", "   +0.0 K"), L("thermal top", H(r["thermal_top_msl_m"])),
+                     L("thermals", " none (air cannot rise)"), L("CCL", H(r["ccl_msl_m"])),
+                     L("trigger temp", T(r["trigger_t_c"]))]),
+    ])
+    r2 = demo_report(2.0)
+    run(s, [
+        ("excess 2K", ["ok: excess +2.0 K"]),
+        ("therm", [L("excess", "   +2.0 K"), L("thermal top", H(r2["thermal_top_msl_m"])),
+                   L("thermals", " blue (dry, no cumulus)"), L("CCL", H(r2["ccl_msl_m"])),
+                   L("trigger temp", T(r2["trigger_t_c"]))]),
+    ])
+
+
+def test_heights_and_isotherms_text():
+    s = session()
+    col = demo_column()
+    z = 9500 * 0.3048
+    z_agl = 411.48 + 3000 * 0.3048
+    z700 = col.z_at(700.0)
+    for line, zz in (("da 9500ft", z), ("at 3000ft agl", z_agl), ("at 700hPa", z700),
+                     ("at 2895.6m msl", z)):
+        got = s.feed(line)
+        assert got[:6] == [L("height", H(zz)), L("temp", T(col.t_at(zz))),
+                           L("pressure", P(col.p_at(zz))),
+                           L("vapour p", P(col.vapour_pressure_at(zz))),
+                           L("density", "%7.3f kg/m3" % col.density_at(zz)),
+                           L("DA", H(col.density_altitude_at(zz)))], line
+        assert got[6].startswith("parcel temp") and len(got) == 7
+    run(s, [("iso -15C", [L("isotherm", T(-15.0)), L("lowest <=T", H(col.level(-15.0)))])])
+
+
+def test_surface_inversion_gives_several_passes():
+    # -5 K/km for 300 m (air warming with height), then cooling: 16 degC is passed
+    # twice above a 15 degC surface... and 15 degC itself is the surface.
+    s = Session()
+    run(s, [("temp 15 dew 5 elev 0 qnh 1013.25 elr -5@300m 8", [
+        "ok: temp 15.0 C, dew 5.0 C, elev 0 ft (0 m), QNH 1013.2 hPa, ELR -5@984ft 8 K/km"])])
+    # Warmest 15 + 0.005 * 300 = 16.5 degC at 300 m; 16 degC at 200 m and at
+    # 300 + 0.5 / 8 * 1000 = 362.5 m (linear layers, exact). The lowest height at or
+    # below 16 degC is the surface itself.
+    run(s, [("iso 16", [L("isotherm", T(16.0)), L("lowest <=T", H(0.0)), L("passes", H(200.0)),
+                        L("", H(362.5))])])
+    s.feed("out kv")
+    run(s, [("iso 16", ["iso_t_c=16", "iso_level_msl_m=0", "iso_levels_msl_m=200,362.5"])])
+
+
+def test_display_units():
+    s = session()
+    r = demo_report()
+    run(s, [
+        ("unit m F inhg", ["ok: units m F inHg"]),
+        ("da", [L("elevation", "%7d m %7d ft" % (411, 1350)),
+                L("station p", "%7.2f inHg" % (r["station_pressure_hpa"] / 33.8639)),
+                L("QNH", "%7.2f inHg" % (1016.0 / 33.8639)),
+                L("press alt", "%7d m %7d ft" % (round(r["pressure_altitude_m"]),
+                                                  round(r["pressure_altitude_m"] / 0.3048))),
+                L("density", "%7.3f kg/m3" % r["air_density_kg_m3"]),
+                L("DA", "%7d m %7d ft" % (round(r["density_altitude_m"]),
+                                          round(r["density_altitude_m"] / 0.3048)))]),
+        # Bare numbers now are in the display units: 80.6 F is 27 degC (exact).
+        ("temp 80.6", ["ok: temp 80.6 F"]),
+        ("elev 411.48", ["ok: elev 411 m (1350 ft)"]),
+        ("qnh 30.0", ["ok: QNH 30.00 inHg"]),
+    ])
+    # 30.00 inHg = 1015.917 hPa (REFERENCES.md, Units); 0 degC = 32 F.
+    z0 = Column.from_qnh(27.0, 13.0, 30.0 * 33.8639, 411.48, DEMO_COLUMN[4]).level(0.0)
+    run(s, [
+        ("iso 32", [L("isotherm", "   32.0 F"), L("lowest <=T", "%7d m %7d ft" % (
+            round(z0), round(z0 / 0.3048)))]),
+        ("unit ft c hpa", ["ok: units ft C hPa"]),
+        ("unit km", ["error: unit: 'km' not accepted; accepted ft m C F hPa inHg"]),
+    ])
+
+
+def test_report_text_has_everything_and_the_cautions():
+    s = session()
+    r = demo_report()
+    got = s.feed("report")
+    heads = [line for line in got if line.startswith("-- ")]
+    assert heads == ["-- surface", "-- cloud base", "-- freezing and icing", "-- stability",
+                     "-- parcel", "-- thermals", "-- cautions"]
+    for key, label in (("cloud_base_msl_m", "base MSL"), ("el_msl_m", "EL"),
+                       ("ccl_msl_m", "CCL"), ("density_altitude_m", "DA"),
+                       ("icing_band_top_msl_m", "icing to")):
+        assert L(label, H(r[key])) in got
+    body = " ".join(line.strip("! ") for line in got[got.index("-- cautions") + 1:])
+    for caution in r["cautions"]:
+        assert caution in body
+    # The cautions close the report: each starts a "!" line, nothing follows the last.
+    tail = got[got.index("-- cautions") + 1:]
+    assert sum(line.startswith("! ") for line in tail) == len(r["cautions"])
+    assert all(line.startswith(("! ", "  ")) for line in tail)
+    assert r["cautions"][-1].split()[-1] in got[-1]
+    # The parcel section says CAPE and CIN are not from virtual temperatures.
+    parcel = got[got.index("-- parcel"):got.index("-- thermals")]
+    assert "CAPE/CIN use air temps (not virtual)" in parcel
+    assert all(len(line) <= 40 for line in got)
+
+
+def test_report_marks_defaults():
+    s = Session()
+    run(s, [("temp 20 dew 10 elev 0", ["ok: temp 20.0 C, dew 10.0 C, elev 0 ft (0 m)"])])
+    got = s.feed("report")
+    assert got[:2] == ["assumed QNH 1013.25 hPa (standard; qnh not set)",
+                       "assumed ELR 6.5 K/km (ISA; elr not set)"]
+    s.feed("out kv")
+    got = s.feed("base")
+    assert got[:2] == ["# assumed QNH 1013.25 hPa (standard; qnh not set)",
+                       "# assumed ELR 6.5 K/km (ISA; elr not set)"]
+    s.feed("qnh 1013.25 elr 6.5")
+    assert not s.feed("base")[0].startswith("#")
+
+
+def test_chart_and_svg_words():
+    s = session()
+    got = s.feed("chart")
+    assert len(got) == 21 and all(len(line) <= 40 for line in got)
+    assert got[0] == "ft MSL vs temperature C"
+    assert s.feed("svg x.svg") == ["error: svg writes a file: only the CPython command line"
+                                   " does (lapsecalc --svg FILE)"]
+    written = {}
+
+    def writer(name, text):
+        written[name] = text
+        return "ok: written " + name
+
+    s2 = Session(svg_writer=writer)
+    for line in SETUP:
+        s2.feed(line)
+    assert s2.feed("svg Profile.svg") == ["ok: written Profile.svg"]
+    assert written["Profile.svg"].startswith("<svg ")
+
+
+def test_balloon_text():
+    s = session()
+    col = demo_column()
+    run(s, [("balloon", ["error: balloon (hot air) needs env, wt, tmax: set first, e.g. env"
+                         " 2800m3 wt 450kg tmax 120C"]),
+            ("env 2800m3 wt 450kg tmax 120C",
+             ["ok: envelope 2800 m3, weight 450 kg, tmax 120.0 C"])])
+    hot = balloon.hot_air_report(col, 2800.0, 450.0, 120.0)
+    got = s.feed("balloon")
+    assert got[0] == L("height", H(411.48))
+    assert L("gross lift", "%7.1f kg %6.0f lb" % (hot["gross_lift_kg"],
+                                                  hot["gross_lift_kg"] / 0.45359237)) in got
+    assert L("ceiling", H(hot["ceiling_msl_m"])) in got
+    assert L("temp to float", T(hot["envelope_t_needed_c"])) in got
+    assert any(line.startswith("- The maximum envelope temperature") for line in got)
+    run(s, [("gas h2 fill 6m3", ["ok: gas hydrogen, fill 6 m3"])])
+    gas = balloon.gas_report(col, "hydrogen", 1.0, 6.0, 2800.0, 450.0, 411.48 + 609.6)
+    got = s.feed("bal 2000ft agl")
+    assert got[0] == "assumed gas purity 100 % (pure not set)"
+    assert L("height", H(411.48 + 609.6)) in got
+    assert L("free lift", "%7.1f kg %6.0f lb" % (gas["free_lift_kg"],
+                                                 gas["free_lift_kg"] / 0.45359237)) in got
+    assert any(line.startswith("! No lift-off") for line in got)
+
+
+# --------------------------------------------------------- scripted sessions, kv
+
+def test_queries_kv():
+    s = session("kv")
+    r = demo_report()
+    col = demo_column()
+    groups = {
+        "obs": ("elevation_m", "t_c", "td_c", "rh_pct", "mixing_ratio_g_kg", "wet_bulb_c",
+                "station_pressure_hpa", "qnh_hpa", "pressure_altitude_m",
+                "air_density_kg_m3", "density_altitude_m", "top_msl_m"),
+        "base": ("cloud_base_agl_m", "cloud_base_msl_m", "lcl_t_c", "lcl_p_hpa"),
+        "ice": ("freezing_level_msl_m", "freezing_levels_msl_m", "minus10_level_msl_m",
+                "minus10_levels_msl_m", "minus20_level_msl_m", "minus20_levels_msl_m",
+                "warm_layer_aloft", "parcel_freezing_level_msl_m",
+                "icing_band_bottom_msl_m", "icing_band_top_msl_m"),
+        "da": ("elevation_m", "station_pressure_hpa", "qnh_hpa", "pressure_altitude_m",
+               "air_density_kg_m3", "density_altitude_m"),
+        "parcel": ("lfc_msl_m", "el_msl_m", "el_above_top", "cape_j_kg", "cin_j_kg",
+                   "lifted_index_c", "parcel_freezing_level_msl_m"),
+        "thermal": ("thermal_excess_c", "thermal_top_msl_m", "thermal_kind", "ccl_msl_m",
+                    "trigger_t_c"),
+    }
+    run(s, [(word, [KV(k, r[k]) for k in keys]) for word, keys in groups.items()])
+    layers = ";".join("%.6g:%.6g:%.6g:%.6g:%s" % (x["bottom_msl_m"], x["top_msl_m"],
+                                                  x["lapse_k_per_km"], x["saturated_k_per_km"],
+                                                  x["class"]) for x in r["stability_layers"])
+    z = 9500 * 0.3048
+    run(s, [
+        ("stab", [KV("stability", r["stability"]), KV("stability_column", r["stability_column"]),
+                  "stability_layers=" + layers]),
+        ("iso -15C", ["iso_t_c=-15", KV("iso_level_msl_m", col.level(-15.0)),
+                      KV("iso_levels_msl_m", col.crossings(-15.0))]),
+        ("show", ["t_c=27", "td_c=13", "rh_pct=", "elevation_m=411.48", "qnh_hpa=1016",
+                  "station_pressure_hpa=", "elr_k_per_km=250:9.5;2400:7.5;:6.5", "top_msl_m=",
+                  "thermal_excess_c=", "envelope_m3=", "weight_kg=", "gas_volume_m3=",
+                  "max_envelope_t_c=", "envelope_t_c=", "gas=", "purity=", "units=ft,c,hpa",
+                  "out=kv"]),
+        ("temp 28 dew 12", ["ok"]),
+        ("clear elr", ["ok"]),
+        ("unit m", ["ok"]),
+        ("help bye", ["bye      end the session. quit exit"]),
+        ("out text", ["ok: out text"]),
+    ])
+    s.feed("out kv")
+    got = s.feed("da 9500ft")
+    assert got[0] == "# assumed ELR 6.5 K/km (ISA; elr not set)"
+    col2 = Column.from_qnh(28.0, 12.0, 1016.0, 411.48, 6.5)
+    assert got[1:] == [KV("at_msl_m", z), KV("at_t_c", col2.t_at(z)),
+                       KV("at_p_hpa", col2.p_at(z)),
+                       KV("at_vapour_pressure_hpa", col2.vapour_pressure_at(z)),
+                       KV("at_air_density_kg_m3", col2.density_at(z)),
+                       KV("at_density_altitude_m", col2.density_altitude_at(z)),
+                       got[-1]]
+    assert got[-1].startswith("at_parcel_t_c=")
+
+
+def test_kv_report_keys_are_the_report_keys():
+    s = session("kv")
+    r = demo_report()
+    got = s.feed("report")
+    keys = [line.split("=", 1)[0] for line in got]
+    assert sorted(keys) == sorted(r) and len(keys) == len(r)
+    assert "cautions=" + " | ".join(r["cautions"]) in got
+    assert "warm_layer_aloft=0" in got and "el_above_top=0" in got
+
+
+def test_balloon_kv():
+    s = session("kv")
+    col = demo_column()
+    run(s, [("env 2800m3 wt 450kg tmax 120C tenv 100C", ["ok"])])
+    hot = balloon.hot_air_report(col, 2800.0, 450.0, 120.0, 100.0)
+    got = s.feed("balloon")
+    keys = [line.split("=", 1)[0] for line in got]
+    assert sorted(keys) == sorted(hot)
+    for k in ("gross_lift_kg", "free_lift_kg", "ceiling_msl_m", "envelope_t_needed_c",
+              "ceiling_above_top", "envelope_t_c"):
+        assert KV(k, hot[k]) in got
+
+
+def test_isa_values_through_the_shell():
+    # ICAO standard atmosphere (ICAO Doc 7488/3; REFERENCES.md table): sea level
+    # 15 degC, 1013.25 hPa, 6.5 K/km; at 1000 m 8.50 degC and 898.75 hPa; the
+    # pressure altitude of the field is 0 and 0 degC lies at 15 / 6.5 km = 2307.7 m.
+    s = Session()
+    run(s, [("temp 15 dew 5 elev 0 qnh 1013.25 elr 6.5", [
+        "ok: temp 15.0 C, dew 5.0 C, elev 0 ft (0 m), QNH 1013.2 hPa, ELR 6.5 K/km"
+        " (1.98 C/1000ft)"]), ("out kv", ["ok"])])
+    vals = kvdict(s.feed("at 1000m"))
+    assert abs(float(vals["at_t_c"]) - 8.5) < MK
+    assert abs(float(vals["at_p_hpa"]) - 898.75) < HPA
+    vals = kvdict(s.feed("da"))
+    assert abs(float(vals["pressure_altitude_m"])) < CM
+    assert abs(float(vals["station_pressure_hpa"]) - 1013.25) < HPA
+    vals = kvdict(s.feed("iso 0"))
+    assert abs(float(vals["iso_level_msl_m"]) - 15.0 / 6.5 * 1000.0) < CM
+
+
+def test_density_altitude_check_value():
+    # Dry air, station pressure 850 hPa, 30 degC -> density altitude 2296.9 m
+    # (REFERENCES.md, Density altitude, computed from ICAO Doc 7488/3). A dewpoint of
+    # -60 degC adds under a metre (vapour pressure 0.02 hPa).
+    s = Session()
+    s.feed("out kv")
+    assert s.feed("stn 850hPa temp 30 dew -60 elev 1500m") == ["ok"]
+    vals = kvdict(s.feed("da"))
+    assert abs(float(vals["density_altitude_m"]) - 2296.9) < 1.5
+
+
+def test_rh_gives_the_dewpoint():
+    # 30 degC at 50 % RH -> dewpoint 18.45 degC (ASHRAE Hyland-Wexler; REFERENCES.md);
+    # the library's fit is within 0.15 degC of it.
+    s = Session()
+    s.feed("out kv")
+    s.feed("temp 30 rh 50 elev 0")
+    vals = kvdict(s.feed("obs"))
+    assert abs(float(vals["td_c"]) - 18.45) < 0.15
+    assert abs(float(vals["rh_pct"]) - 50.0) < 1e-6
+
+
+def test_json_mode():
+    s = session("json")
+    r = demo_report()
+    out = s.feed("report")
+    assert len(out) == 1
+    obj = json.loads(out[0])
+    assert sorted(obj) == sorted(r)
+    assert obj["cloud_base_msl_m"] == r["cloud_base_msl_m"]
+    assert obj["stability_layers"][0]["class"] == r["stability_layers"][0]["class"]
+    assert json.loads(s.feed("base")[0]) == {k: r[k] for k in ("cloud_base_agl_m",
+                                                               "cloud_base_msl_m", "lcl_t_c",
+                                                               "lcl_p_hpa")}
+    for line in s.feed("help") + s.feed("chart") + s.feed("temp 27"):
+        assert isinstance(json.loads(line)["text"], str)
+    assert s.feed("bogus") == ["error: unknown word 'bogus'; (help lists the words)"]
+    assert json.loads(s.feed("show")[0])["out"] == "json"
+
+
+# -------------------------------------------------------------------- robustness
+
+def test_errors_name_the_problem_and_what_is_accepted():
+    s = session()
+    run(s, [
+        ("tmep 30", ["error: unknown word 'tmep'; did you mean 'temp'? (help lists the words)"]),
+        ("rport", ["error: unknown word 'rport'; did you mean 'report'? (help lists the words)"]),
+        ("27C", ["error: a line starts with a word, e.g. temp 27C (help lists them)"]),
+        ("temp", ["error: temp needs a value, e.g. temp 27C"]),
+        ("temp 99C", ["error: temp 99C: temp=99 is outside the allowed range -90..60 degC"]),
+        ("temp nan", ["error: temp nan: 'nan' is not a number; accepted e.g. 12, -3.5, 1e3,"
+                      " with a unit C F K"]),
+        ("temp 1e999", ["error: temp 1e999: '1e999' is not a finite number"]),
+        ("temp 20ft", ["error: temp 20ft: '20ft': unit 'ft' not accepted here; accepted C F K"]),
+        ("qnh 29.92", ["error: qnh 29.92: qnh=29.92 hPa is outside 850..1100 hPa (for inches"
+                       " write 29.92inHg)"]),
+        ("temp 20 dew 25", ["error: td_c=25 is above t_c=20; a dewpoint may not exceed the"
+                            " temperature (allowed -90..20 degC)"]),
+        ("elr 5@300m 3@200m", ["error: elr 5@300m 3@200m: layer top=200 is outside the allowed"
+                               " range 301..32000 m above the field (above the layer below)"]),
+        ("elr 8@1km 6.5@2km@3km", ["error: elr 8@1km 6.5@2km@3km: '6.5@2km@3km': one @ per"
+                                   " layer, e.g. 8@2km"]),
+        ("elr 8 6.5", ["error: elr 8 6.5: '8' has no @top; only the last layer runs to the"
+                       " column top"]),
+        ("temp 20 base", ["error: 'base' cannot share a line with settings; give it its own"
+                          " line"]),
+        ("base now", ["error: base takes nothing after it; got 'now'"]),
+        ("at", ["error: at needs a height, e.g. at 8000ft, at 2000ft agl, at 700hPa"]),
+        ("at 99999ft", ["error: height=30479.7 is outside the allowed range 411.48..16000 m MSL"
+                        " (field to column top)"]),
+        ("at 2000ft up", ["error: at: 'up' after the height; accepted agl or msl"]),
+        ("out xml", ["error: out needs one of text, kv, json"]),
+        ("help nothing", ["error: help takes one word of the list, e.g. help elr; help alone"
+                          " lists them"]),
+        ("clear moon", ["error: clear: 'moon' is not a setting; accepted dew elev elr env excess"
+                        " fill gas pure qnh rh stn temp tenv tmax top wt"]),
+        ("gas neon", ["error: gas neon: 'neon' not accepted; accepted helium (he), hydrogen"
+                      " (h2), none (hot air)"]),
+        ("x" * (MAX_LINE + 1), ["error: line of 257 characters refused; accepted at most 256"]),
+    ])
+    # A station pressure whose QNH at the elevation is out of range: the library says so.
+    got = s.feed("stn 1000 elev 3000m")
+    assert got[0].startswith("error: p_station_hpa=1000 at elev_m=3000 gives QNH")
+    assert got[0].endswith("outside the allowed range 850..1100 hPa") and len(got) == 1
+    assert s.feed(None) == ["error: a line must be text"]
+    assert s.feed(b"temp 20") == ["error: a line must be text"]
+    assert s.feed("#" * MAX_LINE) == []
+
+
+def test_missing_settings_are_named():
+    s = Session()
+    run(s, [
+        ("base", ["error: base needs temp, dew (or rh), elev: set first, e.g. temp 27C dew 13C"
+                  " elev 1350ft"]),
+        ("temp 20", ["ok: temp 20.0 C"]),
+        ("report", ["error: report needs dew (or rh), elev: set first, e.g. temp 27C dew 13C"
+                    " elev 1350ft"]),
+        ("dew 10", ["ok: dew 10.0 C"]),
+        ("chart", ["error: chart needs elev: set first, e.g. temp 27C dew 13C elev 1350ft"]),
+    ])
+
+
+def test_a_line_is_all_or_nothing():
+    s = session("kv")
+    before = s.feed("report"), s.feed("show")
+    for line in ("temp 20 dew 10 qnh 5000", "elev 500m temp 99", "temp 25 elr 8 bogus 3",
+                 "temp 25 metar XKFL 12/10 Q0001", "stn 100 elev 3000m", "top 300m",
+                 "dew 30", "temp 10", "clear top temp moon"):
+        assert s.feed(line)[0].startswith("error: "), line
+        assert (s.feed("report"), s.feed("show")) == before, line
+
+
+def test_bye_and_repl_stream():
+    s = session()
+    assert s.feed("bye") == [] and s.done
+    # repl over a stream: an over-long line is refused whole (its tail is not run),
+    # and reading stops at bye.
+    text = "temp 20 dew 10 elev 0\n" + "temp 30 " + "x" * 400 + " temp 40\nbase\nquit\ntemp 5\n"
+    out = io.StringIO()
+    import sys
+    old = sys.stdout
+    sys.stdout = out
+    try:
+        s2 = repl(stream=io.StringIO(text), prompt="")
+    finally:
+        sys.stdout = old
+    lines = out.getvalue().splitlines()
+    assert lines[0] == "ok: temp 20.0 C, dew 10.0 C, elev 0 ft (0 m)"
+    assert lines[1].startswith("error: line of 258 characters refused")
+    assert lines[2] == "assumed QNH 1013.25 hPa (standard; qnh not set)"
+    assert s2.done and s2.state["t_c"] == 20.0
+
+
+def test_read_line_bounds():
+    src = io.StringIO("a" * 1000 + "\nshort\r\n")
+    first = read_line(src)
+    assert len(first) == MAX_LINE + 2
+    assert read_line(src) == "short" and read_line(src) is None
+
+
+# ---------------------------------------------------------------- fuzz: hypothesis
+
+VALID = tuple(SETUP) + (
+    "temp 27C dew 13C qnh 1016", "t 80F td 50F", "rh 45%", "elev 411m", "qnh 29.92inHg",
+    "stn 967hPa", "elr 6.5", "elr 2C/1000ft", "elr -5@300m 8@1500m 6.5", "top 30000ft",
+    "excess 2C", "metar XKFL 121650Z 24010KT 9999 24/M02 Q1016 RMK T02410021", "obs", "base",
+    "ice", "da", "da 9500ft", "at 3000ft agl", "at 700hPa", "iso -15C", "stab", "parcel",
+    "thermal", "report", "chart", "show", "clear qnh", "unit m F inhg", "unit ft C hPa",
+    "out kv", "out text", "out json", "help", "help elr", "env 2800m3 wt 450kg tmax 120C",
+    "gas he fill 6m3 env 10m3 wt 4kg", "gas none", "balloon", "bal 1000ft agl", "pure 98%",
+    "clear", "bye", "svg a.svg")
+PIECES = ("nan", "inf", "1e999", "-", "@", "%", "/", "1e5", "\x00", "\n", "\r", "\t", "ft",
+          "inHg", "M05/M08", "Q0999", "9" * 40, "-0", ".", "e", "\u00e9", "\u2028", "\ufeff",
+          " agl", "#", "@@", "temp", "K/km", "1e-320", "0x10", "1_000", "\u0663")
+
+
+def mutate(line, ops):
+    # ops: (kind, position, piece or char) tuples applied in turn.
+    for kind, pos, piece in ops:
+        pos = pos % (len(line) + 1)
+        if kind == 0:
+            line = line[:pos] + piece + line[pos:]
+        elif kind == 1:
+            line = line[:pos] + line[pos + 1:]
+        elif kind == 2:
+            line = line[:pos] + piece[:1] + line[pos + 2:]
+        elif kind == 3:
+            line = line + " " + piece
+        elif kind == 4:
+            line = line.upper()
+        else:
+            words = line.split()
+            line = " ".join(words[::-1])
+    return line
+
+
+def check_line(s, line):
+    before = s.snapshot(), s.kv_report()
+    out = s.feed(line)
+    assert isinstance(out, list)
+    for text in out:
+        assert isinstance(text, str) and "\n" not in text and "\r" not in text
+    errors = [text for text in out if text.startswith("error:")]
+    if errors:
+        assert len(out) == 1 and out[0].startswith("error: ")
+        assert (s.snapshot(), s.kv_report()) == before, line
+    return bool(errors)
+
+
+def demo_session():
+    s = Session()
+    for line in DEMO_LINES[:4]:
+        s.feed(line)
+    return s
+
+
+_op = st.tuples(st.integers(0, 5), st.integers(0, 300),
+                st.one_of(st.sampled_from(PIECES + VALID), st.characters()))
+_mutated = st.builds(mutate, st.sampled_from(VALID), st.lists(_op, max_size=4))
+_lines = st.one_of(_mutated, st.text(max_size=300), st.sampled_from(VALID))
+
+
+@settings(max_examples=300, deadline=None)
+@given(st.lists(_lines, min_size=1, max_size=10))
+def test_fuzz_hypothesis_lines_never_escape(batch):
+    s = demo_session()
+    for line in batch:
+        check_line(s, line)
+
+
+@settings(max_examples=200, deadline=None)
+@given(st.lists(st.sampled_from(VALID), min_size=1, max_size=15))
+def test_valid_sequences_never_error_on_queries_of_a_full_state(batch):
+    # Every word of the grammar in any order: output lines are always text lines.
+    s = demo_session()
+    for line in batch:
+        if s.done:
+            break
+        check_line(s, line)
+
+
+# ----------------------------------------------------- fuzz: seeded plain loop
+
+def test_fuzz_seeded_loop_over_ten_thousand_lines():
+    rng = random.Random(20240604)
+    alphabet = "abcdefghijklmnopqrstuvwxyzTFCKMQ0123456789 .-+@%/#\t\x00\x7f\u00e9\u2028"
+    s = demo_session()
+    rejected = taken = 0
+    n = 12000
+    for i in range(n):
+        if i % 150 == 0 or s.done:
+            s = demo_session()
+        r = rng.random()
+        if r < 0.55:
+            ops = [(rng.randrange(6), rng.randrange(300),
+                    rng.choice(PIECES + VALID) if rng.random() < 0.7 else chr(rng.randrange(1, 0x3000)))
+                   for _ in range(rng.randrange(1, 4))]
+            line = mutate(rng.choice(VALID), ops)
+        elif r < 0.8:
+            line = "".join(rng.choice(alphabet) for _ in range(rng.randrange(0, 300)))
+        else:
+            line = rng.choice(VALID)
+        if check_line(s, line):
+            rejected += 1
+        else:
+            taken += 1
+    assert rejected + taken == n
+    # Both paths were exercised many times.
+    assert rejected > 3000 and taken > 3000
+
+
+def test_show_fits_the_screen():
+    s = session()
+    for line in ("show", "unit m", "show", "clear", "show"):
+        assert all(len(out) <= 40 for out in s.feed(line)), line
+
+
+def test_help_states_the_limits_of_parcel_and_balloon():
+    s = Session()
+    parcel = " ".join(line.strip() for line in s.feed("help parcel"))
+    assert "CAPE and CIN use plain air temps" in parcel
+    assert "not virtual temps" in parcel and "humidity aloft is not observed" in parcel
+    bal = " ".join(line.strip() for line in s.feed("help balloon"))
+    assert "envelope maker's maximum temperature, set by you" in bal
+    assert "above about 8 K/km" in bal
+    assert "ceiling is the lowest height where lift falls to the weight" in bal
+
+
+def test_every_word_has_help_and_fits_the_screen():
+    from lapsecalc import shell
+    s = Session()
+    for word in list(shell._SETTINGS) + list(shell._COMMANDS):
+        out = s.feed("help " + word)
+        assert out and not out[0].startswith("error"), word
+        assert all(len(line) <= 40 for line in out), word
+    assert all(len(line) <= 40 for line in s.feed("help"))

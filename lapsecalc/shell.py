@@ -149,11 +149,23 @@ class Session:
                 raise ValueError("%s: %s" % (" ".join([w] + args)[:40], e))
             i = j
         self._commit(new)
-        return self.ack(", ".join(said))
+        return self.ack(said)
 
     def ack(self, what):
-        """The line that says a line was taken: "ok: what" in text mode, else "ok"."""
-        return ["ok: " + what] if self.mode == "text" else ["ok"]
+        """The lines that say a line was taken: "ok: what" in text mode (wrapped to 40
+        columns when several settings share the line), else "ok"."""
+        if self.mode != "text":
+            return ["ok"]
+        if isinstance(what, str):
+            what = [what]
+        out = ["ok: " + what[0]]
+        for x in what[1:]:
+            if len(out[-1]) + 2 + len(x) <= 40:
+                out[-1] += ", " + x
+            else:
+                out[-1] += ","
+                out.append("    " + x)
+        return out
 
     def _commit(self, new):
         # Check the whole new state, then replace the old one (nothing changes before).

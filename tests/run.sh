@@ -10,6 +10,10 @@ if [ ! -x .venv/bin/python ]; then
     "$PY" -m venv .venv
 fi
 .venv/bin/python -m pip install --quiet --disable-pip-version-check -e '.[test]'
+if command -v node >/dev/null 2>&1 && [ ! -d tests/mpy/node_modules/@micropython ]; then
+    # The pinned MicroPython VM, so that pytest's VM comparisons run too (not skipped).
+    (cd tests/mpy && npm ci --silent --no-audit --no-fund)
+fi
 export HYPOTHESIS_PROFILE=ci
 .venv/bin/python -m pytest -q -p no:cacheprovider tests
 PYTHON=.venv/bin/python bash tests/mpy/leg.sh

@@ -40,9 +40,10 @@ def test_e_lines_run_and_exit():
     p = lapsecalc("-e", "temp 15 dew 5 elev 0 qnh 1013.25 elr 6.5", "-e", "out kv", "-e", "iso 0")
     assert p.returncode == 0, p.stderr
     lines = p.stdout.splitlines()
-    assert lines[1] == "ok" and lines[2] == "iso_t_c=0"
+    assert lines[0].startswith("ok: temp 15.0 C") and lines[2].startswith("    ELR 6.5")
+    assert lines[3] == "ok" and lines[4] == "iso_t_c=0"
     # ISA: 0 degC at 15 / 6.5 km = 2307.69 m (ICAO Doc 7488/3 lapse rate).
-    assert abs(float(lines[3].split("=")[1]) - 2307.69) < 0.01
+    assert abs(float(lines[5].split("=")[1]) - 2307.69) < 0.01
 
 
 def test_e_line_with_an_error_sets_the_status():

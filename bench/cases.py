@@ -170,7 +170,7 @@ def call_cases():
         ("stability.layers", stability.layers, (col,), {}),
         ("stability.whole_column", stability.whole_column, (col,), {}),
         ("stability.parcel_analysis", stability.parcel_analysis, (col, levels, lcl), {}),
-        ("stability.lifted_index", stability.lifted_index, (levels, 500.0), {}),
+        ("stability.lifted_index", stability.lifted_index, (col, levels, lcl, 500.0), {}),
         ("stability.thermal_top", stability.thermal_top, (col, 2.0), {}),
         ("stability.ccl", stability.ccl, (col, levels), {}),
         ("stability.icing_band", stability.icing_band,

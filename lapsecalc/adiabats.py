@@ -15,10 +15,16 @@ _ASCENT_CAP = 2000
 DEFAULT_DLNP = 0.1
 # Lv^2 eps / Rd, the constant of the pseudo-adiabat's denominator, J K / kg.
 _LV2_EPS_RD = LV0 * LV0 * EPS / R_DRY
+# Parcel temperature below which no vapour is counted, K (-150 degC).
+_DRY_T_K = 123.15
 
 
 def _rs(t_k, p_hpa):
     # Saturation mixing ratio over water, kg/kg; capped where e_s nears p (hot, thin air).
+    # Below -150 degC it is taken as zero (under 1e-11 kg/kg even at 1 hPa): the fit's
+    # pole at -243 degC would overflow a parcel lifted very far.
+    if t_k < _DRY_T_K:
+        return 0.0
     e = _es_water(t_k - T0_K)
     d = p_hpa - e
     if d < e:
@@ -68,6 +74,7 @@ def saturated_ascent(t_c, p_from_hpa, p_to_hpa, dlnp=DEFAULT_DLNP):
     Fourth-order Runge-Kutta in ln p with equal steps of at most dlnp (0.001..0.2;
     the default 0.1 is about 100 hPa near 1000 hPa), at most 2000 steps; within
     3e-5 K of a fine-step reference from 1000 to 200 hPa at the default step.
+    The result is not range-checked: a long ascent can end below -90 degC.
     """
     t = check_t("t_c", t_c) + T0_K
     p0 = check_p("p_from_hpa", p_from_hpa)

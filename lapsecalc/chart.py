@@ -66,8 +66,9 @@ def text(col, rep, levels, h_unit="ft", t_unit="c", top_m=None, rows=ROWS):
     """The profile as lines of at most 40 columns: environment "#", parcel "o" ("X"
     where both fall), the 0-degree isotherm ".", the cloud base row shaded "-", the
     icing band as ":" in the margin column right of the plot, and letters after it
-    (B cloud base, F freezing level, L LFC, E EL, T thermal top). Row r (0 at the top) spans the heights
-    lo + (rows-1-r)*dz .. lo + (rows-r)*dz with lo the field and dz = (hi-lo)/rows."""
+    (B cloud base, F freezing level, L LFC, E EL, T thermal top). Row r (0 at the top)
+    spans the heights lo + (rows-1-r)*dz .. lo + (rows-r)*dz with lo the field and
+    dz = (hi-lo)/rows."""
     lo = col.elev_m
     hi = top_of(col, rep, top_m)
     dz = (hi - lo) / rows

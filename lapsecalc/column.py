@@ -62,7 +62,8 @@ class Column:
     [(top_agl_m, k_per_km), ...]; the last top may be None and then runs to top_m.
     A last layer that ends below top_m ends the column there (nothing above it is
     invented), and so does the height where the ELR would take the air below -90 degC
-    (the coldest temperature the library handles); top_m then tells the real top. Heights are geopotential metres MSL unless a name says agl.
+    (the coldest temperature the library handles); top_m then tells the real top.
+    Heights are geopotential metres MSL unless a name says agl.
     """
 
     def __init__(self, t_c, td_c, p_hpa, elev_m, lapse=6.5, top_m=16000.0):

@@ -5,7 +5,7 @@
 #   Bolton (1980), Mon. Wea. Rev. 108, 1046-1053, eq. 15 (LCL temperature from T, Td).
 #   Spread rule: about 125 m per degC of temperature-dewpoint spread (common practice).
 from math import exp, log, sqrt, pow, fabs
-from lapsecalc.constants import G0, R_DRY, CP_DRY, KAPPA, T0_K, DRY_LAPSE_K_PER_KM
+from lapsecalc.constants import G0, R_DRY, KAPPA, T0_K, DRY_LAPSE_K_PER_KM
 from lapsecalc.limits import check_p, check_dew
 
 # Romps (2017) constants, SI units; they differ slightly from ours (g 9.81, Ra 287.04)

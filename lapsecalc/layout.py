@@ -71,7 +71,7 @@ LABELS = {
     "lift_per_m3_kg": ("lift per m3", "rho"),
     "gross_lift_kg": ("gross lift", "kg"),
     "free_lift_kg": ("free lift", "kg"),
-    "max_payload_kg": ("payload left", "kg"),
+    "max_payload_kg": ("field payload", "kg"),
     "envelope_t_needed_c": ("temp to float", "t"),
     "envelope_t_needed_over_limit": ("over max", "b"),
     "ceiling_msl_m": ("ceiling", "z"),

@@ -68,7 +68,7 @@ def parse(text):
                     used.append(g)
         elif t is None and "/" in g:
             parts = g.split("/")
-            if len(parts) == 2:
+            if len(parts) == 2 or (len(parts) == 4 and g.endswith("///")):  # TT/// : no dew
                 a = _whole_c(parts[0])
                 b = _whole_c(parts[1])
                 if a is not None and (b is not None or parts[1] == ""):

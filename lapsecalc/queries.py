@@ -160,13 +160,25 @@ def _c_at(s, w, args):
         raise ValueError("at needs a height, e.g. at 8000ft, at 2000ft agl, at 700hPa")
     col = s.column(w)
     z = _height(s, w, args, col)
-    from lapsecalc.chart import parcel_t
     vals = {"at_msl_m": z, "at_t_c": col.t_at(z), "at_p_hpa": col.p_at(z),
             "at_vapour_pressure_hpa": col.vapour_pressure_at(z),
             "at_air_density_kg_m3": col.density_at(z),
             "at_density_altitude_m": col.density_altitude_at(z),
-            "at_parcel_t_c": parcel_t(s.levels(), z)}
+            "at_parcel_t_c": _parcel_t(s, col, z)}
     return emit(s, GROUPS["at"], vals)
+
+
+def _parcel_t(s, col, z):
+    # The parcel temperature at z recomputed between the path's levels, as the report's
+    # parcel levels are (parcel.temperature_at); the chart's linear interpolation is
+    # for drawing only and is up to a few tenths of a K off on the moist adiabat.
+    from lapsecalc.parcel import temperature_at
+    levels = s.levels()
+    for i in range(1, len(levels)):
+        if z <= levels[i][0]:
+            lcl = col.elev_m + s.report()["cloud_base_agl_m"]
+            return temperature_at(col, levels, i, z, lcl)
+    return levels[-1][2]
 
 
 def _c_iso(s, w, args):

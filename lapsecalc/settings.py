@@ -215,12 +215,20 @@ def _s_metar(s, new, args):
     m = parse(" ".join(args))
     new["t_c"] = m["t_c"]
     said = ["METAR temp " + s.f_t(m["t_c"], True)]
+    # A group the report lacks clears the old setting: an older dewpoint or pressure
+    # must not pass for part of this observation.
     if m["td_c"] is not None:
         new["hum"] = ("td", m["td_c"])
         said.append("dew " + s.f_t(m["td_c"], True))
+    else:
+        new.pop("hum", None)
+        said.append("no dewpoint in it (dew cleared)")
     if m["qnh_hpa"] is not None:
         new["press"] = ("qnh", m["qnh_hpa"])
         said.append("QNH " + s.f_p(m["qnh_hpa"], True))
+    else:
+        new.pop("press", None)
+        said.append("no pressure in it (QNH cleared)")
     return ", ".join(said)
 
 

@@ -156,8 +156,10 @@ class Session:
         columns when several settings share the line), else "ok"."""
         if self.mode != "text":
             return ["ok"]
-        if isinstance(what, str):
-            what = [what]
+        parts = []
+        for x in ([what] if isinstance(what, str) else what):
+            parts.extend(x.split(", "))
+        what = parts
         out = ["ok: " + what[0]]
         for x in what[1:]:
             if len(out[-1]) + 2 + len(x) <= 40:
@@ -364,5 +366,4 @@ def repl(session=None, stream=None, prompt=PROMPT):
                 break
         for out in s.feed(line):
             print(out)
-    return s
     return s

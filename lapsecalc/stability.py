@@ -145,18 +145,16 @@ def parcel_analysis(col, levels, lcl_msl_m):
         cin = None
     return {"lfc_msl_m": lfc, "el_msl_m": el, "el_above_top": el_above_top,
             "cape_j_kg": cape, "cin_j_kg": cin,
-            "lifted_index_c": lifted_index(levels, 500.0)}
+            "lifted_index_c": lifted_index(col, levels, lcl_msl_m)}
 
 
-def lifted_index(levels, p_hpa):
-    """Environment minus parcel temperature, degC, at p_hpa (linear in ln p between
-    levels); None when the column does not reach that pressure."""
+def lifted_index(col, levels, lcl_msl_m, p_hpa=500.0):
+    """Environment minus parcel temperature, degC, at p_hpa (the parcel recomputed at
+    that height, parcel.temperature_at); None when the column does not reach it."""
     for i in range(1, len(levels)):
-        _, p0, tp0, te0 = levels[i - 1]
-        _, p1, tp1, te1 = levels[i]
-        if p1 <= p_hpa <= p0:
-            f = log(p0 / p_hpa) / log(p0 / p1) if p0 != p1 else 0.0
-            return (te0 + f * (te1 - te0)) - (tp0 + f * (tp1 - tp0))
+        if levels[i][1] <= p_hpa <= levels[i - 1][1]:
+            z = col.z_at(p_hpa)
+            return col.t_at(z) - parcel.temperature_at(col, levels, i, z, lcl_msl_m)
     return None
 
 
@@ -241,7 +239,8 @@ def add_to_report(col, levels, r, excess_c=0.0):
     r["stability_column"] = whole_column(col)["class"]
     if lcl is None:
         pa = {"lfc_msl_m": None, "el_msl_m": None, "el_above_top": False, "cape_j_kg": 0.0,
-              "cin_j_kg": None, "lifted_index_c": lifted_index(levels, 500.0)}
+              "cin_j_kg": None,
+              "lifted_index_c": lifted_index(col, levels, col.elev_m + r["cloud_base_agl_m"])}
     else:
         pa = parcel_analysis(col, levels, lcl)
     r.update(pa)

@@ -6,7 +6,7 @@
 #     p_stn^n = QNH^n - p0^n L h / T0, n = R L / g0, as in the Smithsonian
 #     Meteorological Tables.
 from math import exp, log, pow
-from lapsecalc.constants import (G0, R_DRY, EPS, T0_K, ISA_T0_K, ISA_P0_HPA,
+from lapsecalc.constants import (G0, R_DRY, T0_K, ISA_T0_K, ISA_P0_HPA,
                                   ISA_LAPSE_K_PER_M)
 from lapsecalc.limits import (check, check_t, check_p, check_elev, check_dew,
                               QNH_MIN_HPA, QNH_MAX_HPA)
@@ -14,6 +14,11 @@ from lapsecalc.moisture import _es_water, virtual_temperature_k
 
 ISA_MIN_M = -1000.0
 ISA_MAX_M = 32000.0
+# Densities isa_height_of_density accepts, kg/m3: about the ISA density at 32000 m
+# (0.01323; the exact limit is checked after solving) up to more than air at -90 degC
+# and 1100 hPa (2.09).
+_RHO_MIN_KG_M3 = 0.0132
+_RHO_MAX_KG_M3 = 2.5
 # Layer bases, m, and temperature gradients dT/dh, K per m (ICAO Doc 7488/3).
 _BASES_M = (-1000.0, 11000.0, 20000.0)
 _GRADS_K_PER_M = (-0.0065, 0.0, 0.001)
@@ -132,7 +137,8 @@ def air_density(p_hpa, t_c, td_c=None):
 
 def isa_height_of_density(rho_kg_m3):
     """The ISA geopotential height, m, whose density is rho_kg_m3 (troposphere
-    extended below -1000 m; refused above 32000 m)."""
+    extended below -1000 m; refused above 32000 m). rho_kg_m3 0.0132..2.5."""
+    rho_kg_m3 = check("rho_kg_m3", rho_kg_m3, _RHO_MIN_KG_M3, _RHO_MAX_KG_M3, "kg/m3")
     for h in (20000.0, 11000.0, 0.0):
         base, t0, grad, p0 = _isa_layer(h)
         rho0 = 100.0 * p0 / (R_DRY * t0)
@@ -146,8 +152,8 @@ def isa_height_of_density(rho_kg_m3):
         z = (t - t0) / grad
     z += base
     if z > ISA_MAX_M:
-        raise ValueError("density %.4f kg/m3 is below the ISA density at %g m; allowed at least"
-                         " %.4f kg/m3" % (rho_kg_m3, ISA_MAX_M, isa(ISA_MAX_M)[2]))
+        raise ValueError("rho_kg_m3=%.4g is below the ISA density at %g m; allowed %.4f..%g"
+                         " kg/m3" % (rho_kg_m3, ISA_MAX_M, isa(ISA_MAX_M)[2], _RHO_MAX_KG_M3))
     return z
 
 

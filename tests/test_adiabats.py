@@ -37,7 +37,9 @@ def test_moist_rate_trade_facts():
 @given(st.floats(-40.0, 40.0), st.floats(200.0, 1050.0))
 def test_moist_rate_bounds(t, p):
     # Between about 3 and 9.8 K/km, and below the dry rate, for air that exists:
-    # nothing warmer than the pseudo-adiabat through 35 degC at 1050 hPa.
+    # nothing warmer than the pseudo-adiabat through 35 degC at 1050 hPa. (REFERENCES.md,
+    # Lapse rates: 3.73 K/km at 26 degC/1000 hPa, computed from the AMS Glossary
+    # formula, lower in warmer air; the dry rate 9.8 K/km is common practice.)
     assume(t <= saturated_ascent(35.0, 1050.0, p))
     g = moist_lapse_rate(t, p)
     assert 3.0 < g < DRY_LAPSE_K_PER_KM
@@ -71,3 +73,11 @@ def test_bad_step():
     with pytest.raises(ValueError) as err:
         saturated_ascent(20.0, 1000.0, 500.0, dlnp=0.0)
     assert "dlnp=0" in str(err.value)
+
+
+def test_very_far_ascent_does_not_overflow():
+    # Regression: -90 degC air lifted from 850 to 1 hPa once overflowed the saturation
+    # fit near its pole (-243 degC). With no vapour left the pseudo-adiabat is the dry
+    # adiabat (Poisson's equation; AMS Glossary form with r_s = 0).
+    t = saturated_ascent(-90.0, 850.0, 1.0)
+    assert abs(t - dry_ascent(-90.0, 850.0, 1.0)) < 0.01

@@ -75,3 +75,20 @@ def test_refusals_name_what_is_accepted():
     assert "850..1100" in _refused("XKFL 121653Z 10/02 Q0500")
     assert "at most" in _refused("X " * 100)
     assert _refused("") is not None
+
+
+def test_missing_groups_clear_the_old_setting():
+    # WMO-No. 306 FM 15 (REFERENCES.md): a missing dewpoint is reported as "//"; the
+    # older dewpoint or pressure must not pass for part of the new observation.
+    from lapsecalc.shell import Session
+    s = Session()
+    s.feed("elev 100m")
+    s.feed("dew 3 qnh 1000")
+    out = s.feed("metar XKFL 041350Z 27012KT 9999 14/// Q1009")
+    assert out[0].startswith("ok: METAR temp 14.0 C")
+    assert any("dew cleared" in line for line in out)
+    assert "hum" not in s.state and s.state["press"] == ("qnh", 1009.0)
+    out = s.feed("metar XKFL 041350Z 27012KT 9999 M04/M07")
+    assert any("QNH cleared" in line for line in out) and "press" not in s.state
+    assert s.state["hum"] == ("td", -7.0) and s.state["t_c"] == -4.0
+    assert all(len(line) <= 40 for line in out)

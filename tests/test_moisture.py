@@ -1,5 +1,4 @@
 """Water vapour: saturation pressure, dewpoint, humidity, mixing ratio, wet bulb."""
-import math
 
 import pytest
 from hypothesis import given, strategies as st

@@ -132,6 +132,8 @@ def test_parcel_against_fine_reference(name):
 
 
 def test_shapes():
+    # The invented cases have the shapes their names say; the thresholds only tell the
+    # shapes apart (the values themselves are checked against the fine reference above).
     r = {k: Column(*v[:5], top_m=v[5]).report() for k, v in CASES.items()}
     assert r["unstable_day"]["cape_j_kg"] > 1000.0
     assert r["stable"]["lfc_msl_m"] is None and r["stable"]["el_msl_m"] is None
@@ -153,7 +155,7 @@ def test_lifted_index_definition():
     t_l = 303.15 * (p_l / 1000.0) ** (RD / CP) - 273.15
     tp = saturated_ascent(t_l, p_l, 500.0, dlnp=0.005)
     te = col.t_at(col.z_at(500.0))
-    assert abs(col.report()["lifted_index_c"] - (te - tp)) < 0.1
+    assert abs(col.report()["lifted_index_c"] - (te - tp)) < 0.02
     low = Column(20.0, 10.0, 1000.0, 0.0, 6.5, top_m=4000.0).report()
     assert low["lifted_index_c"] is None
 

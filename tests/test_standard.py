@@ -128,3 +128,12 @@ def test_bad_input(call, word):
         call()
     assert word in str(err.value)
     assert "allowed" in str(err.value)
+
+
+def test_density_outside_the_isa_is_refused():
+    # Zero, negative, NaN and too dense were a math error or a silent NaN; the ISA density
+    # at 32000 m is 0.0132 kg/m3 (ICAO Doc 7488/3).
+    for rho in (0.0, -1.0, float("nan"), 0.01, 5.0):
+        with pytest.raises(ValueError) as err:
+            isa_height_of_density(rho)
+        assert "rho_kg_m3=" in str(err.value) and "0.0132..2.5 kg/m3" in str(err.value)

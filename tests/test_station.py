@@ -1,5 +1,4 @@
 """lapsecalc.station: the weather-station line, checked against outside values."""
-import math
 import os
 import time
 

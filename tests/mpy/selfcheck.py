@@ -207,7 +207,7 @@ def check_column():
         put("stability.%s.column" % key, stability.whole_column(col))
         put("stability.%s.thermal" % key, stability.thermal_top(col, 3.0))
         put("stability.%s.ccl" % key, stability.ccl(col, levels))
-        put("stability.%s.li700" % key, stability.lifted_index(levels, 700.0))
+        put("stability.%s.li700" % key, stability.lifted_index(col, levels, lcl, 700.0))
     inv = Column(-2.0, -4.0, 990.0, 200.0, [(300.0, -20.0), (1200.0, 4.0), (None, 6.5)],
                  12000.0)
     # The inversion column is below 0 at the ground, above 0 aloft (ELR chosen so).

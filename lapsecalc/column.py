@@ -194,6 +194,7 @@ class Column:
         lcl_agl, lcl_t, lcl_p = self.cloud_base()
         lcl_msl = self.elev_m + lcl_agl
         path = parcel.path(self, lcl_msl)
+        rho = self.density_at(self.elev_m)
         r = {
             "elevation_m": self.elev_m,
             "top_msl_m": self.top_m,
@@ -205,8 +206,8 @@ class Column:
             "station_pressure_hpa": self.p_hpa,
             "qnh_hpa": self.qnh_hpa,
             "pressure_altitude_m": pressure_altitude(self.p_hpa),
-            "air_density_kg_m3": self.density_at(self.elev_m),
-            "density_altitude_m": self.density_altitude_at(self.elev_m),
+            "air_density_kg_m3": rho,
+            "density_altitude_m": isa_height_of_density(rho),
             "cloud_base_agl_m": lcl_agl,
             "cloud_base_msl_m": lcl_msl if lcl_msl <= self.top_m else None,
             "lcl_t_c": lcl_t,

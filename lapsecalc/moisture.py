@@ -9,7 +9,10 @@ from lapsecalc.constants import EPS
 from lapsecalc.limits import check, check_t, check_p, check_dew
 
 # Alduchov & Eskridge (1996) coefficients: hPa, dimensionless, degC.
-_AE_WATER = (6.1094, 17.625, 243.04)
+_AE_A = 6.1094
+_AE_B = 17.625
+_AE_C = 243.04
+_AE_WATER = (_AE_A, _AE_B, _AE_C)
 _AE_ICE = (6.1121, 22.587, 273.86)
 _WET_BULB_CAP = 40
 _WET_BULB_TOL_K = 0.005
@@ -17,7 +20,7 @@ _WET_BULB_TOL_K = 0.005
 
 def _es_water(t_c):
     # Alduchov & Eskridge (1996) eq. 21, hPa; no range check (internal, hot paths).
-    return 6.1094 * exp(17.625 * t_c / (t_c + 243.04))
+    return _AE_A * exp(_AE_B * t_c / (t_c + _AE_C))
 
 
 def saturation_vapour_pressure(t_c, ice=False):

@@ -4,7 +4,8 @@
 import argparse
 import sys
 
-from lapsecalc.shell import Session, PROMPT, read_line, repl
+from lapsecalc.shell import Session, PROMPT, read_lines, split_ends, repl
+from lapsecalc.queries import chart_svg
 from lapsecalc.demo import DEMO_LINES
 
 
@@ -32,15 +33,6 @@ def _run(session, lines, echo, out):
     return errors
 
 
-def _stdin_lines(stream):
-    # Lines of a piped stdin (shell.read_line: an over-long line stays too long to run).
-    while True:
-        line = read_line(stream)
-        if line is None:
-            return
-        yield line
-
-
 def main(argv=None):
     """lapsecalc [demo] [-e LINE ...] [--svg FILE]; returns the exit status."""
     p = argparse.ArgumentParser(
@@ -62,7 +54,7 @@ def main(argv=None):
         if a.what == "demo":
             errors += _run(session, DEMO_LINES, True, out)
         if a.lines:
-            errors += _run(session, a.lines, False, out)
+            errors += _run(session, [x for line in a.lines for x in split_ends(line)], False, out)
         if a.what is None and not a.lines:
             if sys.stdin.isatty():
                 try:
@@ -71,7 +63,7 @@ def main(argv=None):
                     pass
                 repl(session, prompt=PROMPT)
                 return 0
-            errors += _run(session, _stdin_lines(sys.stdin), False, out)
+            errors += _run(session, read_lines(sys.stdin), False, out)
         if a.svg:
             for text in _svg_file(session, a.svg):
                 errors += text.startswith("error:")
@@ -88,7 +80,7 @@ def main(argv=None):
 def _svg_file(session, name):
     # The --svg option: the chart of the final state, or one error line.
     try:
-        return [write_svg(name, session.chart_svg())]
+        return [write_svg(name, chart_svg(session))]
     except ValueError as e:
         return ["error: %s" % e]
 

@@ -2,9 +2,11 @@
 # Sources: none; labels and units only. Every line fits a 40-column screen: a
 #   13-column label, then the value in the session's display units.
 from lapsecalc import units
-from lapsecalc.queries import GROUPS
-from lapsecalc.settings import dewpoint_of, STANDARD_QNH_HPA, ISA_LAPSE_K_PER_KM, DEFAULT_TOP_M
+from lapsecalc.groups import GROUPS
+from lapsecalc.output import f_h, f_t, f_dt, f_p
+from lapsecalc.state import dewpoint_of, STANDARD_QNH_HPA, ISA_LAPSE_K_PER_KM, DEFAULT_TOP_M
 
+# A new result key: its label and kind here (LABELS), its place in lapsecalc.groups.
 # Report key -> (label, kind) for text mode. Kinds: z height MSL, a height AGL,
 # alt an altitude, zl list of heights, t temperature, dt temperature difference,
 # p pressure, rho density, pct, gkg, jkg, b yes/no, s word.
@@ -141,19 +143,19 @@ def text_lines(s, key, v, label_kind=None):
         # Every pass only when there is more than one (else the level line says it).
         if len(v) < 2:
             return []
-        return ["%-13s%s" % (label if i == 0 else "", s.f_h(z)) for i, z in enumerate(v)]
+        return ["%-13s%s" % (label if i == 0 else "", f_h(s, z)) for i, z in enumerate(v)]
     if v is None:
         return ["%-13s%s" % (label, "   none in column" if kind == "z" else "   none")]
     if isinstance(v, float) and -0.05 < v < 0.05 and kind in ("t", "dt", "kg"):
         v = 0.0  # no "-0.0" in a one-decimal column
     if kind in ("z", "a", "alt"):
-        text = s.f_h(v)
+        text = f_h(s, v)
     elif kind == "t":
-        text = s.f_t(v)
+        text = f_t(s, v)
     elif kind == "dt":
-        text = s.f_dt(v)
+        text = f_dt(s, v)
     elif kind == "p":
-        text = s.f_p(v)
+        text = f_p(s, v)
     elif kind == "b":
         text = "    yes" if v else "     no"
     elif kind == "s":
@@ -229,19 +231,19 @@ def show_text(s):
         out.append("%-13s%s" % (label, text))
 
     unset = "   not set"
-    put("temp", s.f_t(st["t_c"]) if "t_c" in st else unset)
+    put("temp", f_t(s, st["t_c"]) if "t_c" in st else unset)
     kind, hum = st.get("hum", ("td", None))
     if kind == "rh":
-        dew = " (dew %s)" % s.f_t(dewpoint_of(st), True) if "t_c" in st else ""
+        dew = " (dew %s)" % f_t(s, dewpoint_of(st), True) if "t_c" in st else ""
         put("rh", "%7.1f %%%s" % (hum, dew))
     else:
-        put("dew", s.f_t(hum) if hum is not None else unset)
-    put("elev", s.f_h(st["elev_m"]) if "elev_m" in st else unset)
+        put("dew", f_t(s, hum) if hum is not None else unset)
+    put("elev", f_h(s, st["elev_m"]) if "elev_m" in st else unset)
     pk, p = st.get("press", ("qnh", None))
     if p is None:
         put("qnh", "%7.2f hPa ISA, assumed" % STANDARD_QNH_HPA)
     else:
-        put("qnh" if pk == "qnh" else "stn", s.f_p(p))
+        put("qnh" if pk == "qnh" else "stn", f_p(s, p))
     lapse = st.get("lapse")
     if lapse is None:
         put("elr", "%7.1f K/km ISA, assumed" % ISA_LAPSE_K_PER_KM)
@@ -254,8 +256,8 @@ def show_text(s):
         put("elr", "%7.1f K/km (%.2f C/1000ft)" % (lapse, units.k_per_km_to_c_per_1000ft(lapse)))
     top = st.get("top_m")
     put("top" if top is not None else "top (default)",
-        s.f_h(DEFAULT_TOP_M if top is None else top))
-    put("excess", s.f_dt(st.get("excess_c", 0.0)))
+        f_h(s, DEFAULT_TOP_M if top is None else top))
+    put("excess", f_dt(s, st.get("excess_c", 0.0)))
     for key, label, kind in (("env_m3", "env", "m3"), ("wt_kg", "wt", "kg"),
                              ("fill_m3", "fill", "m3"), ("tmax_c", "tmax", "t"),
                              ("tenv_c", "tenv", "t"), ("gas", "gas", "s"),

@@ -1,85 +1,21 @@
 """The interpreter's query words (obs base ice da at iso stab parcel thermal report
-chart svg balloon show) and their output in kv and json form (runs on MicroPython)."""
+chart svg balloon show) and their output in text, kv and json form (runs on
+MicroPython)."""
 # Sources: every number comes from the library (Column, Column.report(), parcel,
 #   balloon, chart); this module only picks, orders and formats them.
 #
 # A query is f(session, word, args) -> output lines; it reads the session and never
 # changes it. Output modes: text (display units, laid out by lapsecalc.layout), kv and
-# json (SI, report() keys). kv: None is an empty value, booleans 0/1, numbers %.6g,
-# lists comma-joined, stability_layers bottom:top:elr:salr:class joined by ";", lists
-# of sentences joined by " | "; lines starting "#" are notes (defaults in use).
-# chart, balloon and the text layout are imported only by the words that use them.
+# json (SI, report() keys; kv form in lapsecalc.output); lines starting "#" are notes
+# (defaults in use). chart, balloon and the text layout are imported only by the words
+# that use them. A new query word: its function here and its entry in QUERIES; the
+# keys it shows in lapsecalc.groups, their text labels in lapsecalc.layout, its help in
+# lapsecalc.helptext.
 from lapsecalc.limits import check, check_t
-from lapsecalc.settings import number, shown, unit_kind
-
-# Report keys of each query, in the order shown (dicts have no order on a board).
-GROUPS = {
-    "obs": ("elevation_m", "t_c", "td_c", "rh_pct", "mixing_ratio_g_kg", "wet_bulb_c",
-            "station_pressure_hpa", "qnh_hpa", "pressure_altitude_m", "air_density_kg_m3",
-            "density_altitude_m", "top_msl_m"),
-    "base": ("cloud_base_agl_m", "cloud_base_msl_m", "lcl_t_c", "lcl_p_hpa"),
-    "ice": ("freezing_level_msl_m", "freezing_levels_msl_m", "minus10_level_msl_m",
-            "minus10_levels_msl_m", "minus20_level_msl_m", "minus20_levels_msl_m",
-            "warm_layer_aloft", "parcel_freezing_level_msl_m", "icing_band_bottom_msl_m",
-            "icing_band_top_msl_m"),
-    "da": ("elevation_m", "station_pressure_hpa", "qnh_hpa", "pressure_altitude_m",
-           "air_density_kg_m3", "density_altitude_m"),
-    "stab": ("stability", "stability_column", "stability_layers"),
-    "parcel": ("lfc_msl_m", "el_msl_m", "el_above_top", "cape_j_kg", "cin_j_kg",
-               "lifted_index_c", "parcel_freezing_level_msl_m"),
-    "thermal": ("thermal_excess_c", "thermal_top_msl_m", "thermal_kind", "ccl_msl_m",
-                "trigger_t_c"),
-    "at": ("at_msl_m", "at_t_c", "at_p_hpa", "at_vapour_pressure_hpa", "at_air_density_kg_m3",
-           "at_density_altitude_m", "at_parcel_t_c"),
-    "iso": ("iso_t_c", "iso_level_msl_m", "iso_levels_msl_m"),
-    "hot": ("z_msl_m", "ambient_t_c", "ambient_p_hpa", "ambient_density_kg_m3", "volume_m3",
-            "weight_kg", "max_envelope_t_c", "envelope_t_c", "lift_per_m3_kg",
-            "gross_lift_kg", "free_lift_kg", "max_payload_kg", "envelope_t_needed_c",
-            "envelope_t_needed_over_limit", "ceiling_msl_m", "ceiling_p_hpa",
-            "ceiling_above_top", "gross_lift_per_1000ft_kg",
-            "envelope_t_needed_per_1000ft_c", "warnings", "notes"),
-    "gas": ("z_msl_m", "ambient_t_c", "ambient_p_hpa", "ambient_density_kg_m3", "gas",
-            "gas_molar_mass_g_mol", "purity", "gas_volume_m3", "envelope_m3", "weight_kg",
-            "gas_density_kg_m3", "lift_per_m3_kg", "gas_volume_at_z_m3", "full_at_z",
-            "gross_lift_kg", "free_lift_kg", "full_msl_m", "full_p_hpa", "full_above_top",
-            "float_msl_m", "float_above_top", "ballast_to_hold_kg",
-            "gross_lift_per_1000ft_kg", "warnings", "notes"),
-}
-REPORT_GROUPS = ("obs", "base", "ice", "stab", "parcel", "thermal")
-
-
-def report_keys(rep):
-    """Report keys in display order: the groups' order, then any others sorted."""
-    seen = []
-    for word in REPORT_GROUPS:
-        for k in GROUPS[word]:
-            if k in rep and k not in seen:
-                seen.append(k)
-    rest = sorted(k for k in rep if k not in seen and k != "cautions")
-    return seen + rest + (["cautions"] if "cautions" in rep else [])
-
-
-def kv_value(v):
-    """One value in kv form (see the module comment)."""
-    if v is None:
-        return ""
-    if v is True or v is False:
-        return "1" if v else "0"
-    if isinstance(v, float):
-        return "%.6g" % v
-    if isinstance(v, (list, tuple)):
-        if v and isinstance(v[0], dict):
-            return ";".join(":".join(kv_value(r[k]) for k in (
-                "bottom_msl_m", "top_msl_m", "lapse_k_per_km", "saturated_k_per_km", "class"))
-                for r in v)
-        if v and isinstance(v[0], str):
-            return " | ".join(v)
-        return ",".join(kv_value(x) for x in v)
-    return str(v)
-
-
-def kv_lines(values, keys):
-    return ["%s=%s" % (k, kv_value(values[k])) for k in keys if k in values]
+from lapsecalc.typed import number, shown, unit_kind, no_args
+from lapsecalc.groups import GROUPS, report_keys
+from lapsecalc.output import f_h, kv_value, kv_lines
+from lapsecalc.state import assumed
 
 
 def emit(s, keys, values, balloon=False):
@@ -87,7 +23,7 @@ def emit(s, keys, values, balloon=False):
     defaults in use. A balloon report shows its keys not in keys too."""
     if balloon:
         keys = list(keys) + sorted(k for k in values if k not in keys)
-    notes = s.notes(balloon)
+    notes = assumed(s.state, balloon)
     if s.mode == "kv":
         return ["# assumed " + n for n in notes] + kv_lines(values, keys)
     if s.mode == "json":
@@ -107,18 +43,12 @@ def emit(s, keys, values, balloon=False):
 
 # ---- the query words ----
 
-def no_args(word, args):
-    """Refuse anything after a word that takes nothing."""
-    if args:
-        raise ValueError("%s takes nothing after it; got '%s'" % (word, shown(args[0])))
-
-
 def _c_group(s, w, args):
     no_args(w, args)
     out = emit(s, GROUPS[w], s.report(w))
     if w == "base" and s.mode == "text":
         for method, label in (("bolton", "Bolton LCL"), ("spread", "spread rule")):
-            out.append("%-13s%s AGL" % (label, s.f_h(s.column().cloud_base(method)[0])))
+            out.append("%-13s%s AGL" % (label, f_h(s, s.column().cloud_base(method)[0])))
     if w == "parcel" and s.mode == "text":
         from lapsecalc.layout import PARCEL_NOTE
         out.append(PARCEL_NOTE)
@@ -131,7 +61,7 @@ def _c_report(s, w, args):
     if s.mode != "text":
         return emit(s, report_keys(rep), rep)
     from lapsecalc.layout import report_text
-    return ["assumed " + n for n in s.notes()] + report_text(s, rep, report_keys(rep))
+    return ["assumed " + n for n in assumed(s.state)] + report_text(s, rep, report_keys(rep))
 
 
 def _height(s, w, args, col):
@@ -223,7 +153,22 @@ def _c_svg(s, w, args):
     if s.svg_writer is None:
         raise ValueError("svg writes a file: only the CPython command line does"
                          " (lapsecalc --svg FILE)")
-    return [s.svg_writer(args[0], s.chart_svg())]
+    return [s.svg_writer(args[0], chart_svg(s))]
+
+
+def chart_svg(s):
+    """The profile chart of session s's state as SVG text."""
+    from lapsecalc.chart import svg
+    return svg(s.column("svg"), s.report("svg"), s.levels(), s.disp["h"], s.disp["t"])
+
+
+def kv_report(s):
+    """Session s's report as key=value lines whatever the mode (or one error line)."""
+    try:
+        rep = s.report()
+    except ValueError as e:
+        return ["error: " + shown(str(e), 300)]
+    return kv_lines(rep, report_keys(rep))
 
 
 def _c_show(s, w, args):

@@ -1,28 +1,22 @@
 """The line interpreter: one line in, the output lines back (runs on MicroPython)."""
-# Sources: none of its own; numbers come from the library, units and METAR reading
-#   from lapsecalc.settings, results from lapsecalc.queries.
+# Sources: none of its own; numbers come from the library through the word modules.
 #
 # A line is split into words (split_line, a pure function), its first word is looked
-# up in a table, all new values go into a copy of the state, and only a line that
-# passed every check replaces the state. Errors are caught once, in feed(), and come
-# back as one "error: ..." line. feed() does no I/O; repl() and lapsecalc.cli do.
+# up in the word tables, all new values go into a copy of the state, and only a line
+# that passed every check replaces the state. Errors are caught once, in feed(), and
+# come back as one "error: ..." line. feed() does no I/O; repl() and lapsecalc.cli do.
 #
-# Words (help gives them in short):
-#   settings, several a line, all-or-nothing (lapsecalc.settings): temp dew rh elev qnh
-#     stn elr top excess metar (takes the rest of the line); balloon: env wt tmax tenv
-#     gas pure fill
-#   queries, one a line (lapsecalc.queries): obs base ice da at iso stab parcel thermal
-#     report chart svg balloon show
-#   session words (here): unit out clear help bye
-# Output modes: text (display units), kv and json (SI, report() keys); see queries.
-from lapsecalc import units
-from lapsecalc.settings import (SETTINGS, CLEAR, AIR_KEYS, ONE, NUMBERS, shown, starts_number,
-                                dewpoint_of, missing, build_column, STANDARD_QNH_HPA,
-                                ISA_LAPSE_K_PER_KM)
-from lapsecalc.queries import QUERIES, report_keys, kv_lines, no_args
-# Names this module gave before it was split, kept importable from lapsecalc.shell.
-from lapsecalc.settings import number, DEFAULT_TOP_M  # noqa: F401
-from lapsecalc.queries import GROUPS, kv_value  # noqa: F401
+# Layers, top down: this module (Session: dispatch and state) -> the word modules:
+# lapsecalc.settings (SETTINGS, several a line, all-or-nothing), lapsecalc.queries
+# (QUERIES, one a line), lapsecalc.commands (COMMANDS: clear unit out help bye) ->
+# lapsecalc.layout (text lines, loaded by text output) -> lapsecalc.groups (result
+# keys), lapsecalc.output (display units, acks, kv values), lapsecalc.state (state
+# keys, defaults, the Column), lapsecalc.typed (numbers, units, aliases) -> the library.
+from lapsecalc.typed import ALIASES, shown, starts_number, nearest
+from lapsecalc.state import AIR_KEYS, missing, build_column, dewpoint_of
+from lapsecalc.settings import SETTINGS, ONE, NUMBERS
+from lapsecalc.queries import QUERIES
+from lapsecalc.commands import COMMANDS
 
 try:
     from micropython import const
@@ -33,9 +27,9 @@ except ImportError:
 _MAX_LINE = const(256)
 MAX_LINE = _MAX_LINE
 PROMPT = "lc> "
-_SETTINGS = SETTINGS
-_ALIASES = {"t": "temp", "td": "dew", "frz": "ice", "therm": "thermal", "units": "unit",
-            "bal": "balloon", "?": "help", "quit": "bye", "exit": "bye"}
+# Every word but the settings: the queries, then the session words.
+_WORDS = dict(QUERIES)
+_WORDS.update(COMMANDS)
 
 
 def split_line(line):
@@ -44,31 +38,8 @@ def split_line(line):
     return (line[:i] if i >= 0 else line).split()
 
 
-def _edit_distance(a, b):
-    # Levenshtein distance of two short words (callers cap them at 16 characters).
-    prev = list(range(len(b) + 1))
-    for i in range(1, len(a) + 1):
-        cur = [i] + [0] * len(b)
-        for j in range(1, len(b) + 1):
-            cur[j] = min(prev[j] + 1, cur[j - 1] + 1, prev[j - 1] + (a[i - 1] != b[j - 1]))
-        prev = cur
-    return prev[-1]
-
-
-def nearest(word, known):
-    """The known word closest to word (at most 2 edits, fewer than its length), or None."""
-    w = word.lower()[:16]
-    best, best_d = None, 3
-    for k in sorted(known):
-        if abs(len(k) - len(w)) < best_d:
-            d = _edit_distance(w, k)
-            if d < best_d and d < len(w):
-                best, best_d = k, d
-    return best
-
-
 def _unknown(word):
-    near = nearest(word, list(_SETTINGS) + list(_COMMANDS))
+    near = nearest(word, list(SETTINGS) + list(_WORDS))
     return "unknown word '%s'; %s(help lists the words)" % (
         shown(word), "did you mean '%s'? " % near if near else "")
 
@@ -113,28 +84,29 @@ class Session:
         if not words:
             return []
         w = words[0].lower()
-        w = _ALIASES.get(w, w)
-        if w in _SETTINGS:
+        w = ALIASES.get(w, w)
+        if w in SETTINGS:
             return self._settings(words)
-        if w in _COMMANDS:
-            return _COMMANDS[w](self, w, words[1:])
+        if w in _WORDS:
+            return _WORDS[w](self, w, words[1:])
         if starts_number(w):
             raise ValueError("a line starts with a word, e.g. temp 27C (help lists them)")
         raise ValueError(_unknown(words[0]))
 
     def _settings(self, words):
+        from lapsecalc.output import ack
         new = dict(self.state)
         said = []
         i = 0
         while i < len(words):
             w = words[i].lower()
-            w = _ALIASES.get(w, w)
-            if w not in _SETTINGS:
-                if w in _COMMANDS:
+            w = ALIASES.get(w, w)
+            if w not in SETTINGS:
+                if w in _WORDS:
                     raise ValueError("'%s' cannot share a line with settings; give it its"
                                      " own line" % w)
                 raise ValueError(_unknown(words[i]))
-            fn, takes, example = _SETTINGS[w]
+            fn, takes, example = SETTINGS[w]
             j = i + 2 if takes == ONE else len(words)
             if takes == NUMBERS:
                 j = i + 1
@@ -148,29 +120,11 @@ class Session:
             except ValueError as e:
                 raise ValueError("%s: %s" % (" ".join([w] + args)[:40], e))
             i = j
-        self._commit(new)
-        return self.ack(said)
+        self.commit(new)
+        return ack(self, said)
 
-    def ack(self, what):
-        """The lines that say a line was taken: "ok: what" in text mode (wrapped to 40
-        columns when several settings share the line), else "ok"."""
-        if self.mode != "text":
-            return ["ok"]
-        parts = []
-        for x in ([what] if isinstance(what, str) else what):
-            parts.extend(x.split(", "))
-        what = parts
-        out = ["ok: " + what[0]]
-        for x in what[1:]:
-            if len(out[-1]) + 2 + len(x) <= 40:
-                out[-1] += ", " + x
-            else:
-                out[-1] += ","
-                out.append("    " + x)
-        return out
-
-    def _commit(self, new):
-        # Check the whole new state, then replace the old one (nothing changes before).
+    def commit(self, new):
+        """Check the whole new state, then replace the old one (nothing changes before)."""
         same_air = True
         for k in AIR_KEYS:
             if new.get(k) != self.state.get(k):
@@ -190,7 +144,6 @@ class Session:
         """Everything a line may change, as a comparable value."""
         return sorted(self.state.items()), sorted(self.disp.items()), self.mode, self.done
 
-    # ---- what queries need ----
     def column(self, word="this"):
         """The current Column; ValueError naming the settings still missing."""
         if self._col is None:
@@ -213,147 +166,43 @@ class Session:
             self._levels = path(col, col.elev_m + self.report()["cloud_base_agl_m"])
         return self._levels
 
-    def notes(self, balloon=False):
-        """Defaults in use, announced with every result."""
-        out = []
-        if "press" not in self.state:
-            out.append("QNH %.2f hPa (standard; qnh not set)" % STANDARD_QNH_HPA)
-        if "lapse" not in self.state:
-            out.append("ELR %.1f K/km (ISA; elr not set)" % ISA_LAPSE_K_PER_KM)
-        if balloon and "gas" in self.state and "purity" not in self.state:
-            out.append("gas purity 100 % (pure not set)")
-        return out
 
-    def kv_report(self):
-        """The report as key=value lines whatever the mode (or one error line)."""
-        try:
-            rep = self.report()
-        except ValueError as e:
-            return ["error: " + shown(str(e), 300)]
-        return kv_lines(rep, report_keys(rep))
-
-    def chart_svg(self):
-        """The profile chart of the current state as SVG text."""
-        from lapsecalc.chart import svg
-        return svg(self.column("svg"), self.report("svg"), self.levels(), self.disp["h"],
-                   self.disp["t"])
-
-    # ---- numbers in the display units, padded for columns or compact ----
-    def f_h(self, z_m, compact=False):
-        ft, m = round(units.m_to_ft(z_m)), round(z_m)
-        if self.disp["h"] == "ft":
-            return "%d ft (%d m)" % (ft, m) if compact else "%7d ft %6d m" % (ft, m)
-        return "%d m (%d ft)" % (m, ft) if compact else "%7d m %7d ft" % (m, ft)
-
-    def f_t(self, t_c, compact=False):
-        t, u = (units.c_to_f(t_c), "F") if self.disp["t"] == "f" else (t_c, "C")
-        return ("%.1f %s" if compact else "%7.1f %s") % (t, u)
-
-    def f_dt(self, k, compact=False):
-        d, u = (k * 1.8, "F") if self.disp["t"] == "f" else (k, "K")
-        return ("%+.1f %s" if compact else "%+7.1f %s") % (d, u)
-
-    def f_p(self, hpa, compact=False):
-        if self.disp["p"] == "inhg":
-            return ("%.2f inHg" if compact else "%7.2f inHg") % units.hpa_to_inhg(hpa)
-        return ("%.1f hPa" if compact else "%7.1f hPa") % hpa
-
-    def f_lapse(self, lapse):
-        # In the elr syntax, tops AGL in the display unit: "9.5@820ft 7.5@7874ft 6.5".
-        if not isinstance(lapse, list):
-            return "%.1f K/km (%.2f C/1000ft)" % (lapse, units.k_per_km_to_c_per_1000ft(lapse))
-        h = self.disp["h"]
-        return " ".join("%g" % r + ("" if t is None else "@%d%s" % (
-            round(units.m_to_ft(t) if h == "ft" else t), h)) for t, r in lapse) + " K/km"
+def split_ends(text):
+    """The lines of text ended by LF, CR alone or CRLF (serial terminals send CR)."""
+    return text.replace("\r\n", "\n").replace("\r", "\n").split("\n")
 
 
-def _c_clear(s, w, args):
-    new = {} if not args else dict(s.state)
-    for a in args:
-        if a.lower() not in CLEAR:
-            raise ValueError("clear: '%s' is not a setting; accepted %s"
-                             % (shown(a), " ".join(sorted(CLEAR))))
-        for k in CLEAR[a.lower()]:
-            new.pop(k, None)
-    s._commit(new)
-    return s.ack("cleared " + (" ".join(a.lower() for a in args) if args else "all settings"))
-
-
-_DISPLAY = {"ft": ("h", "ft"), "m": ("h", "m"), "c": ("t", "c"), "degc": ("t", "c"),
-            "f": ("t", "f"), "degf": ("t", "f"), "hpa": ("p", "hpa"), "mb": ("p", "hpa"),
-            "inhg": ("p", "inhg")}
-
-
-def _c_unit(s, w, args):
-    disp = dict(s.disp)
-    for a in args:
-        if a.lower() not in _DISPLAY:
-            raise ValueError("unit: '%s' not accepted; accepted ft m C F hPa inHg" % shown(a))
-        k, v = _DISPLAY[a.lower()]
-        disp[k] = v
-    s.disp = disp
-    return s.ack("units %s %s %s" % (disp["h"], disp["t"].upper(),
-                                     "hPa" if disp["p"] == "hpa" else "inHg"))
-
-
-def _c_out(s, w, args):
-    mode = args[0].lower() if len(args) == 1 else ""
-    if mode not in ("text", "kv", "json"):
-        raise ValueError("out needs one of text, kv, json")
-    if mode == "json" and s.json is None:
-        try:
-            import json
-        except ImportError:
-            raise ValueError("out json needs the json module, missing here; accepted text, kv")
-        s.json = json
-    s.mode = mode
-    return s.ack("out " + mode)
-
-
-def _c_help(s, w, args):
-    from lapsecalc.helptext import OVERVIEW, HELP
-    if not args:
-        return list(OVERVIEW)
-    word = args[0].lower()
-    word = _ALIASES.get(word, word)
-    if len(args) > 1 or word not in HELP:
-        raise ValueError("help takes one word of the list, e.g. help elr; help alone lists them")
-    return list(HELP[word])
-
-
-def _c_bye(s, w, args):
-    no_args(w, args)
-    s.done = True
-    return []
-
-
-# Every word but the settings: the queries, then the session words.
-_COMMANDS = dict(QUERIES)
-_COMMANDS.update({"clear": _c_clear, "unit": _c_unit, "out": _c_out, "help": _c_help,
-                  "bye": _c_bye})
-
-
-def read_line(stream):
-    """One line of stream without its newline, None at the end. A line longer than the
-    shell accepts is kept only in part (bounded memory), still too long to be run."""
-    line = stream.readline(_MAX_LINE + 2)
-    if not line:
-        return None
-    if len(line) > _MAX_LINE and line[-1] != "\n":
-        rest = line
-        while rest and rest[-1] != "\n":
-            rest = stream.readline(_MAX_LINE)
-    return line.rstrip("\r\n")
+def read_lines(stream):
+    """The lines of stream without their ends (LF, CR alone or CRLF), one at a time.
+    A line longer than the shell accepts is kept only in part (bounded memory), still
+    too long to be run."""
+    part = ""
+    after_cr = False
+    while True:
+        chunk = stream.readline(_MAX_LINE + 2)
+        if not chunk:
+            if part:
+                yield part
+            return
+        if after_cr and chunk[0] == "\n":
+            chunk = chunk[1:]  # the LF of a CRLF cut between two reads
+        after_cr = chunk[-1:] == "\r"
+        pieces = split_ends(chunk)
+        for piece in pieces[:-1]:
+            yield (part + piece)[:_MAX_LINE + 2]
+            part = ""
+        part = (part + pieces[-1])[:_MAX_LINE + 2]
 
 
 def repl(session=None, stream=None, prompt=PROMPT):
     """Run lines until the end of input or bye, printing each line's output. Lines
-    come from stream (read_line) when one is given, else from input(), which on a
+    come from stream (read_lines) when one is given, else from input(), which on a
     board reads sys.stdin with line editing."""
     import sys
     s = session if session is not None else Session()
+    lines = None if stream is None else read_lines(stream)
     while not s.done:
-        if stream is None:
+        if lines is None:
             try:
                 line = input(prompt)
             except EOFError:
@@ -361,9 +210,11 @@ def repl(session=None, stream=None, prompt=PROMPT):
         else:
             if prompt:
                 sys.stdout.write(prompt)
-            line = read_line(stream)
-            if line is None:
+            try:
+                line = next(lines)
+            except StopIteration:
                 break
-        for out in s.feed(line):
-            print(out)
+        for piece in split_ends(line):
+            for out in s.feed(piece):
+                print(out)
     return s

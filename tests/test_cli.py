@@ -65,6 +65,20 @@ def test_stdin_piped_has_no_prompt_and_stops_at_bye():
     assert "temp 5" not in p.stdout and len([x for x in lines if x == "ok"]) == 1
 
 
+def test_cr_and_crlf_line_ends_on_stdin_and_in_e():
+    # Serial terminals end a line with CR alone or CRLF (common practice).
+    p = lapsecalc(stdin="temp 20 dew 10\relev 0\r\nout kv\rbase\r\nbye\rtemp 5\r")
+    assert p.returncode == 0, p.stderr
+    lines = p.stdout.splitlines()
+    assert lines[:3] == ["ok: temp 20.0 C, dew 10.0 C", "ok: elev 0 ft (0 m)", "ok"]
+    assert lines[-1].startswith("lcl_p_hpa=") and "temp 5" not in p.stdout
+    p = lapsecalc("-e", "temp 20 dew 10\r\nelev 0\rout kv\r", "-e", "base\r\n")
+    assert p.returncode == 0, p.stdout
+    lines = p.stdout.splitlines()
+    assert lines[:3] == ["ok: temp 20.0 C, dew 10.0 C", "ok: elev 0 ft (0 m)", "ok"]
+    assert lines[-1].startswith("lcl_p_hpa=")
+
+
 def test_stdin_long_line_is_refused_whole():
     p = lapsecalc(stdin="temp 20 " + "x" * 5000 + " temp 30\nshow\n")
     lines = p.stdout.splitlines()

@@ -84,3 +84,42 @@ def test_board_modules_never_import_cpython_only_ones():
     for m in board:
         outside = _lapsecalc_imports(m) - board
         assert not outside, "board module %s imports %s" % (m, sorted(outside))
+
+
+# The interpreter's layers, top down (lapsecalc/shell.py says why): a module imports
+# only modules of the layers below its own, at the top or inside a function.
+INTERPRETER_LAYERS = (
+    ("shell",),
+    ("settings", "queries", "commands"),
+    ("layout", "chart", "metar", "helptext", "balloon"),
+    ("groups", "output", "state", "typed"),
+)
+
+
+def test_interpreter_layers_import_downward():
+    core = set(boardset.core_modules())
+    below = set(core)
+    for layer in reversed(INTERPRETER_LAYERS):
+        for m in layer:
+            wrong = _lapsecalc_imports(m) - below - {"units"}
+            assert not wrong, "%s imports %s from its own layer or above" % (m, sorted(wrong))
+        below |= set(layer)
+    listed = set(m for layer in INTERPRETER_LAYERS for m in layer)
+    assert listed | core | {"demo"} == set(boardset.board_modules())
+
+
+def test_no_module_imports_in_a_circle():
+    modules = boardset.board_modules()
+    deps = dict((m, _lapsecalc_imports(m) & set(modules)) for m in modules)
+
+    def reach(start):
+        seen, todo = set(), list(deps[start])
+        while todo:
+            m = todo.pop()
+            if m not in seen:
+                seen.add(m)
+                todo.extend(deps[m])
+        return seen
+
+    for m in modules:
+        assert m not in reach(m), "%s imports itself through others" % m

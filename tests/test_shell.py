@@ -14,8 +14,10 @@ from hypothesis import given, settings, strategies as st
 from lapsecalc.column import Column
 from lapsecalc.condensation import cloud_base
 from lapsecalc.demo import DEMO_COLUMN, DEMO_LINES
-from lapsecalc.shell import (Session, MAX_LINE, number, split_line, nearest, read_line,
-                             repl, kv_value)
+from lapsecalc.shell import Session, MAX_LINE, split_line, read_lines, split_ends, repl
+from lapsecalc.typed import number, nearest
+from lapsecalc.output import kv_value
+from lapsecalc.queries import kv_report
 from lapsecalc import balloon
 
 SETUP = ["elev 1350ft", "temp 27C dew 13C qnh 1016", "elr 9.5@250m 7.5@2400m 6.5"]
@@ -651,11 +653,35 @@ def test_bye_and_repl_stream():
     assert s2.done and s2.state["t_c"] == 20.0
 
 
-def test_read_line_bounds():
-    src = io.StringIO("a" * 1000 + "\nshort\r\n")
-    first = read_line(src)
-    assert len(first) == MAX_LINE + 2
-    assert read_line(src) == "short" and read_line(src) is None
+def test_read_lines_bounds():
+    # An over-long line is kept in part, still too long to run.
+    lines = list(read_lines(io.StringIO("a" * 1000 + "\nshort\r\n")))
+    assert lines == ["a" * (MAX_LINE + 2), "short"]
+
+
+def test_read_lines_takes_every_line_end():
+    # Serial terminals end lines with CR alone or CRLF (common practice); a CRLF cut
+    # between two reads is one line end, not two.
+    text = "temp 20C\rdew 10C\r\nelev 0\nbase\r"
+    assert list(read_lines(io.StringIO(text))) == ["temp 20C", "dew 10C", "elev 0", "base"]
+    cut = io.StringIO("x" * MAX_LINE + "\r\nend")
+    assert list(read_lines(cut)) == ["x" * MAX_LINE, "end"]
+    assert list(read_lines(io.StringIO("last without end"))) == ["last without end"]
+    assert list(read_lines(io.StringIO("a\r\rb"))) == ["a", "", "b"]
+    assert split_ends("a\r\nb\rc\nd") == ["a", "b", "c", "d"]
+
+
+def test_repl_reads_cr_lines():
+    out = io.StringIO()
+    import sys
+    old, sys.stdout = sys.stdout, out
+    try:
+        s = repl(stream=io.StringIO("temp 20C dew 10C\relev 0\r\nbye\rtemp 30C\r"),
+                 prompt="")
+    finally:
+        sys.stdout = old
+    assert out.getvalue().splitlines() == ["ok: temp 20.0 C, dew 10.0 C", "ok: elev 0 ft (0 m)"]
+    assert s.done and s.state["t_c"] == 20.0
 
 
 # ---------------------------------------------------------------- fuzz: hypothesis
@@ -695,7 +721,7 @@ def mutate(line, ops):
 
 
 def check_line(s, line):
-    before = s.snapshot(), s.kv_report()
+    before = s.snapshot(), kv_report(s)
     out = s.feed(line)
     assert isinstance(out, list)
     for text in out:
@@ -706,7 +732,7 @@ def check_line(s, line):
         # An exception other than ValueError is a library bug, even when feed() turns it
         # into one error line.
         assert not out[0].startswith("error: cannot compute that"), (line, out[0])
-        assert (s.snapshot(), s.kv_report()) == before, line
+        assert (s.snapshot(), kv_report(s)) == before, line
     return bool(errors)
 
 
@@ -792,7 +818,7 @@ def test_help_states_the_limits_of_parcel_and_balloon():
 def test_every_word_has_help_and_fits_the_screen():
     from lapsecalc import shell
     s = Session()
-    for word in list(shell._SETTINGS) + list(shell._COMMANDS):
+    for word in list(shell.SETTINGS) + list(shell._WORDS):
         out = s.feed("help " + word)
         assert out and not out[0].startswith("error"), word
         assert all(len(line) <= 40 for line in out), word

@@ -1,0 +1,73 @@
+"""The interpreter's session words: clear, unit, out, help, bye (runs on MicroPython)."""
+# Sources: none; they change the session's state, display units, output mode or end it.
+#
+# A session word is f(session, word, args) -> output lines, like a query, but it may
+# change the session: it checks everything first and changes only at the end, so a
+# refused line leaves the session as it was.
+from lapsecalc.typed import ALIASES, shown, no_args
+from lapsecalc.state import CLEAR
+from lapsecalc.output import ack
+
+
+def _clear(s, w, args):
+    new = {} if not args else dict(s.state)
+    for a in args:
+        if a.lower() not in CLEAR:
+            raise ValueError("clear: '%s' is not a setting; accepted %s"
+                             % (shown(a), " ".join(sorted(CLEAR))))
+        for k in CLEAR[a.lower()]:
+            new.pop(k, None)
+    s.commit(new)
+    return ack(s, "cleared " + (" ".join(a.lower() for a in args) if args else "all settings"))
+
+
+_DISPLAY = {"ft": ("h", "ft"), "m": ("h", "m"), "c": ("t", "c"), "degc": ("t", "c"),
+            "f": ("t", "f"), "degf": ("t", "f"), "hpa": ("p", "hpa"), "mb": ("p", "hpa"),
+            "inhg": ("p", "inhg")}
+
+
+def _unit(s, w, args):
+    disp = dict(s.disp)
+    for a in args:
+        if a.lower() not in _DISPLAY:
+            raise ValueError("unit: '%s' not accepted; accepted ft m C F hPa inHg" % shown(a))
+        k, v = _DISPLAY[a.lower()]
+        disp[k] = v
+    s.disp = disp
+    return ack(s, "units %s %s %s" % (disp["h"], disp["t"].upper(),
+                                      "hPa" if disp["p"] == "hpa" else "inHg"))
+
+
+def _out(s, w, args):
+    mode = args[0].lower() if len(args) == 1 else ""
+    if mode not in ("text", "kv", "json"):
+        raise ValueError("out needs one of text, kv, json")
+    if mode == "json" and s.json is None:
+        try:
+            import json
+        except ImportError:
+            raise ValueError("out json needs the json module, missing here; accepted text, kv")
+        s.json = json
+    s.mode = mode
+    return ack(s, "out " + mode)
+
+
+def _help(s, w, args):
+    from lapsecalc.helptext import OVERVIEW, HELP
+    if not args:
+        return list(OVERVIEW)
+    word = args[0].lower()
+    word = ALIASES.get(word, word)
+    if len(args) > 1 or word not in HELP:
+        raise ValueError("help takes one word of the list, e.g. help elr; help alone lists them")
+    return list(HELP[word])
+
+
+def _bye(s, w, args):
+    no_args(w, args)
+    s.done = True
+    return []
+
+
+# session word -> f(session, word, args) -> output lines
+COMMANDS = {"clear": _clear, "unit": _unit, "out": _out, "help": _help, "bye": _bye}

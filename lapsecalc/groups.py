@@ -1,0 +1,52 @@
+"""The result keys each query word shows, in order, and the report's order (runs on
+MicroPython)."""
+# Sources: none; the keys are those of Column.report(), lapsecalc.balloon's reports
+#   and the at/iso results of lapsecalc.queries. A list, not a dict, keeps the order
+#   on a board (its dicts have none).
+
+# query word (or result kind) -> its result keys, in the order shown
+GROUPS = {
+    "obs": ("elevation_m", "t_c", "td_c", "rh_pct", "mixing_ratio_g_kg", "wet_bulb_c",
+            "station_pressure_hpa", "qnh_hpa", "pressure_altitude_m", "air_density_kg_m3",
+            "density_altitude_m", "top_msl_m"),
+    "base": ("cloud_base_agl_m", "cloud_base_msl_m", "lcl_t_c", "lcl_p_hpa"),
+    "ice": ("freezing_level_msl_m", "freezing_levels_msl_m", "minus10_level_msl_m",
+            "minus10_levels_msl_m", "minus20_level_msl_m", "minus20_levels_msl_m",
+            "warm_layer_aloft", "parcel_freezing_level_msl_m", "icing_band_bottom_msl_m",
+            "icing_band_top_msl_m"),
+    "da": ("elevation_m", "station_pressure_hpa", "qnh_hpa", "pressure_altitude_m",
+           "air_density_kg_m3", "density_altitude_m"),
+    "stab": ("stability", "stability_column", "stability_layers"),
+    "parcel": ("lfc_msl_m", "el_msl_m", "el_above_top", "cape_j_kg", "cin_j_kg",
+               "lifted_index_c", "parcel_freezing_level_msl_m"),
+    "thermal": ("thermal_excess_c", "thermal_top_msl_m", "thermal_kind", "ccl_msl_m",
+                "trigger_t_c"),
+    "at": ("at_msl_m", "at_t_c", "at_p_hpa", "at_vapour_pressure_hpa", "at_air_density_kg_m3",
+           "at_density_altitude_m", "at_parcel_t_c"),
+    "iso": ("iso_t_c", "iso_level_msl_m", "iso_levels_msl_m"),
+    "hot": ("z_msl_m", "ambient_t_c", "ambient_p_hpa", "ambient_density_kg_m3", "volume_m3",
+            "weight_kg", "max_envelope_t_c", "envelope_t_c", "lift_per_m3_kg",
+            "gross_lift_kg", "free_lift_kg", "max_payload_kg", "envelope_t_needed_c",
+            "envelope_t_needed_over_limit", "ceiling_msl_m", "ceiling_p_hpa",
+            "ceiling_above_top", "gross_lift_per_1000ft_kg",
+            "envelope_t_needed_per_1000ft_c", "warnings", "notes"),
+    "gas": ("z_msl_m", "ambient_t_c", "ambient_p_hpa", "ambient_density_kg_m3", "gas",
+            "gas_molar_mass_g_mol", "purity", "gas_volume_m3", "envelope_m3", "weight_kg",
+            "gas_density_kg_m3", "lift_per_m3_kg", "gas_volume_at_z_m3", "full_at_z",
+            "gross_lift_kg", "free_lift_kg", "full_msl_m", "full_p_hpa", "full_above_top",
+            "float_msl_m", "float_above_top", "ballast_to_hold_kg",
+            "gross_lift_per_1000ft_kg", "warnings", "notes"),
+}
+# The groups of the full report, in order (the text report's sections follow them).
+REPORT_GROUPS = ("obs", "base", "ice", "stab", "parcel", "thermal")
+
+
+def report_keys(rep):
+    """Report keys in display order: the groups' order, then any others sorted."""
+    seen = []
+    for word in REPORT_GROUPS:
+        for k in GROUPS[word]:
+            if k in rep and k not in seen:
+                seen.append(k)
+    rest = sorted(k for k in rep if k not in seen and k != "cautions")
+    return seen + rest + (["cautions"] if "cautions" in rep else [])

@@ -1,0 +1,62 @@
+"""The interpreter's session state: its keys, the defaults assumed for what was not set,
+and the Column it describes (runs on MicroPython)."""
+# Sources: ICAO standard atmosphere for the defaults (common practice).
+#
+# A state is a plain dict. Keys: t_c, hum ("td" or "rh", value), elev_m, press ("qnh"
+# or "stn", hPa), lapse (K/km, or layers [(top_agl_m or None, k_per_km), ...]), top_m,
+# excess_c; balloon: env_m3, wt_kg, fill_m3, tmax_c, tenv_c, gas, purity (0.5..1).
+# The setting words (lapsecalc.settings) write them into a copy; the shell commits it.
+from lapsecalc.limits import check_dew
+from lapsecalc.column import Column
+
+ISA_LAPSE_K_PER_KM = 6.5  # ICAO standard atmosphere below 11 km (common practice)
+STANDARD_QNH_HPA = 1013.25  # ICAO standard sea-level pressure (common practice)
+DEFAULT_TOP_M = 16000.0
+
+# clear WORD -> state keys it forgets
+CLEAR = {"temp": ("t_c",), "dew": ("hum",), "rh": ("hum",), "elev": ("elev_m",),
+         "qnh": ("press",), "stn": ("press",), "elr": ("lapse",), "top": ("top_m",),
+         "excess": ("excess_c",), "env": ("env_m3",), "wt": ("wt_kg",), "fill": ("fill_m3",),
+         "tmax": ("tmax_c",), "tenv": ("tenv_c",), "gas": ("gas",), "pure": ("purity",)}
+# State keys the air column depends on (others leave the cached report alone).
+AIR_KEYS = ("t_c", "hum", "elev_m", "press", "lapse", "top_m", "excess_c")
+
+
+def dewpoint_of(st):
+    """The dewpoint of state dict st, degC (from rh when rh was set)."""
+    kind, v = st["hum"]
+    if kind == "td":
+        return check_dew(st["t_c"], v)[1]
+    from lapsecalc.moisture import dewpoint
+    return dewpoint(st["t_c"], v)
+
+
+def missing(st):
+    """The setting words a Column still needs, in the order to type them."""
+    return [w for w, k in (("temp", "t_c"), ("dew (or rh)", "hum"), ("elev", "elev_m"))
+            if k not in st]
+
+
+def build_column(st):
+    """The Column of a complete state dict (ValueError when the state is not valid)."""
+    td = dewpoint_of(st)
+    kind, p = st.get("press", ("qnh", STANDARD_QNH_HPA))
+    lapse = st.get("lapse", ISA_LAPSE_K_PER_KM)
+    top = st.get("top_m", DEFAULT_TOP_M)
+    if kind == "qnh":
+        return Column.from_qnh(st["t_c"], td, p, st["elev_m"], lapse, top)
+    from lapsecalc.standard import qnh
+    qnh(p, st["elev_m"])  # the report gives QNH: refuse a pressure without one
+    return Column(st["t_c"], td, p, st["elev_m"], lapse, top)
+
+
+def assumed(st, balloon=False):
+    """The defaults in use for state st, said with every result."""
+    out = []
+    if "press" not in st:
+        out.append("QNH %.2f hPa (standard; qnh not set)" % STANDARD_QNH_HPA)
+    if "lapse" not in st:
+        out.append("ELR %.1f K/km (ISA; elr not set)" % ISA_LAPSE_K_PER_KM)
+    if balloon and "gas" in st and "purity" not in st:
+        out.append("gas purity 100 % (pure not set)")
+    return out

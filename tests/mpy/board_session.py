@@ -1,0 +1,86 @@
+"""The full-word board session (tests/mpy/board_session.txt) on MicroPython.
+
+    micropython [-X heapsize=96K] board_session.py [PKG_PARENT [SESSION_FILE [account]]]
+
+Runs every line of the session file through one lapsecalc.shell.Session (lines read
+one at a time, so the script itself holds almost nothing) and exits 1 naming each
+line that failed: an output line starting "error:" (a MemoryError inside a word comes
+back as "error: cannot compute that (MemoryError ...)"), or, on a line marked
+"#!error", anything but one ordinary error line. With "account" it also measures,
+per line, the heap held before it (after collections) and what the line allocates
+with the collector off, and prints the largest sum (the heap the session needs when
+a collection runs between lines; on the Unix port, whose collector works inside a
+run). PKG_PARENT is the folder holding lapsecalc/ (default: the current one);
+SESSION_FILE defaults to board_session.txt beside this script. tests/mpy/run.mjs
+--session uses line_failed() to account line by line in the WebAssembly VM.
+"""
+import gc
+import sys
+
+EXPECT_ERROR = "#!error"
+
+
+def line_failed(line, out):
+    """Why the output lines out of line are a failure, or None."""
+    errors = [o for o in out if o[:6] == "error:"]
+    if line[:1] == "#" or line.find(EXPECT_ERROR) < 0:
+        return errors[0] if errors else None
+    if len(out) != 1 or len(errors) != 1 or out[0].find("cannot compute") >= 0:
+        return "wanted one ordinary error line, got %r" % (out,)
+    return None
+
+
+def held():
+    gc.collect()
+    gc.collect()
+    return gc.mem_alloc()
+
+
+def main(args):
+    if args:
+        sys.path.insert(0, args[0])
+    here = __file__.rsplit("/", 1)[0] if "/" in __file__ else "."
+    account = len(args) > 2 and args[2] == "account"
+    f = open(args[1] if len(args) > 1 else here + "/board_session.txt")
+    base = held()
+    from lapsecalc.shell import Session
+    s = Session()
+    if account:
+        print("import_heap_bytes=%d" % (held() - base))
+    worst = worst_line = n = bad = 0
+    while True:
+        line = f.readline()
+        if not line:
+            break
+        n += 1
+        line = line.rstrip("\n")
+        if account:
+            h = held() - base
+            gc.disable()
+            a0 = gc.mem_alloc()
+            out = s.feed(line)
+            a = gc.mem_alloc() - a0
+            gc.enable()
+            if h + a > worst:
+                worst, worst_line = h + a, n
+            print("line %2d held %6d alloc %6d need %6d | %s" % (n, h, a, h + a, line[:40]))
+        else:
+            out = s.feed(line)
+        why = line_failed(line, out)
+        out = None
+        if why:
+            print("line %d failed: %s -> %s" % (n, line, why))
+            bad += 1
+    f.close()
+    if account:
+        print("session_lines=%d" % n)
+        print("session_need_bytes=%d" % worst)
+        print("session_need_line=%d" % worst_line)
+    if bad:
+        print("board session: %d line(s) failed" % bad)
+        sys.exit(1)
+    print("board session: %d lines OK" % n)
+
+
+if __name__ == "__main__":
+    main(sys.argv[1:])

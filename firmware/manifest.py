@@ -1,24 +1,13 @@
 # Freeze manifest (MicroPython's manifest format) for all of lapsecalc a board can
-# run: the core and the line interpreter (the same modules as
-# lapsecalc/package-full.json). Frozen modules run from the firmware image: their
+# run: the core (manifest-core.py) and the line interpreter; the same modules as
+# lapsecalc/package-full.json. Frozen modules run from the firmware image: their
 # bytecode and strings stay in flash, not in the heap. Build steps: README,
 # "Building it into the firmware". tests/test_firmware_manifest.py keeps this list
 # equal to the mip manifest.
+include("manifest-core.py")
 package(
     "lapsecalc",
     files=(
-        "__init__.py",
-        "constants.py",
-        "limits.py",
-        "units.py",
-        "moisture.py",
-        "standard.py",
-        "condensation.py",
-        "adiabats.py",
-        "column.py",
-        "parcel.py",
-        "stability.py",
-        "station.py",
         "balloon.py",
         "chart.py",
         "commands.py",

@@ -97,10 +97,11 @@ def _bolton(t_c, td_c, p_hpa):
 
 
 def _spread(t_c, td_c, p_hpa):
+    # The parcel rises dry: T falls at g/cp, and p follows Poisson's equation (exact
+    # for that lapse rate in hydrostatic air).
     z = SPREAD_M_PER_C * (t_c - td_c)
     t_lcl = t_c - DRY_LAPSE_K_PER_KM * z / 1000.0
-    t_mean = 0.5 * (t_c + t_lcl) + T0_K
-    p_lcl = p_hpa * exp(-G0 * z / (R_DRY * t_mean))
+    p_lcl = p_hpa * pow((t_lcl + T0_K) / (t_c + T0_K), 1.0 / KAPPA)
     return z, t_lcl, p_lcl
 
 

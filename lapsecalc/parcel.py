@@ -42,9 +42,7 @@ def path(col, lcl_msl_m, max_step_m=MAX_STEP_M):
         marks.append(z1)
         for j in range(len(marks) - 1):
             a, b = marks[j], marks[j + 1]
-            n = int(ceil((b - a) / max_step_m))
-            if n < 1:
-                n = 1
+            n = int(ceil((b - a) / max_step_m))    # at least 1: every mark is above the last
             start = 0 if not out else 1
             for i in range(start, n + 1):
                 z = b if i == n else a + (b - a) * i / n

@@ -80,3 +80,54 @@ def pseudo_adiabat_euler(t_c, p_from, p_to, n=20000):
         t += h * slope(tm, math.exp(lnp + 0.5 * h))
         lnp += h
     return t - 273.15
+
+
+# Constants of the independent references below: ICAO Doc 7488/3 (g, Rd); cp, Rv and
+# Lv from Wallace & Hobbs (REFERENCES.md); Alduchov & Eskridge (1996) eq. 21.
+G0_REF, RD_REF, CP_REF, RV_REF, LV_REF = 9.80665, 287.05287, 1004.0, 461.5, 2.501e6
+
+
+def ae_es_hpa(t_c):
+    # Alduchov & Eskridge (1996) eq. 21 over water, hPa (the published fit, coded here).
+    return 6.1094 * math.exp(17.625 * t_c / (t_c + 243.04))
+
+
+def pseudo_adiabatic_dt_dz(t_k, p_hpa, te_k):
+    # Pseudo-adiabatic dT/dln p (AMS Glossary, REFERENCES.md "Moist ascent") times
+    # dln p/dz = -g / (Rd Te) of the environment the parcel rises through, K/m.
+    eps = RD_REF / RV_REF
+    e = ae_es_hpa(t_k - 273.15)
+    rs = eps * e / (p_hpa - e)
+    dt_dlnp = (RD_REF * t_k + LV_REF * rs) / (CP_REF + LV_REF * LV_REF * rs * eps / (RD_REF * t_k * t_k))
+    return -G0_REF / (RD_REF * te_k) * dt_dlnp
+
+
+def fine_parcel(col, z_lcl, dz=2.0):
+    # The surface parcel in fine height steps through col: Poisson below z_lcl (MSL),
+    # midpoint steps of the pseudo-adiabatic dT/dz above it. [(z_m, tp_c, te_c), ...].
+    n = int(math.ceil((col.top_m - col.elev_m) / dz))
+    zs = [col.elev_m + (col.top_m - col.elev_m) * i / n for i in range(n + 1)]
+    if col.elev_m < z_lcl < col.top_m:
+        zs = sorted(zs + [z_lcl])
+    ts = col.t_c + 273.15
+    out = []
+    tp = None
+    for i, z in enumerate(zs):
+        if z <= z_lcl:
+            tp = ts * (col.p_at(z) / col.p_hpa) ** (RD_REF / CP_REF)
+        else:
+            h = z - zs[i - 1]
+            zm = z - 0.5 * h
+            tm = tp + 0.5 * h * pseudo_adiabatic_dt_dz(tp, col.p_at(z - h), col.t_at(z - h) + 273.15)
+            tp = tp + h * pseudo_adiabatic_dt_dz(tm, col.p_at(zm), col.t_at(zm) + 273.15)
+        out.append((z, tp - 273.15, col.t_at(z)))
+    return out
+
+
+def first_crossing(profile, f):
+    # Lowest z of [(z, ...), ...] where f(row) changes from > 0 to <= 0, linear between rows.
+    for a, b in zip(profile, profile[1:]):
+        fa, fb = f(a), f(b)
+        if fa > 0.0 >= fb:
+            return a[0] + (b[0] - a[0]) * fa / (fa - fb)
+    return None

@@ -89,3 +89,29 @@ def test_bad_method():
     with pytest.raises(ValueError) as err:
         cloud_base(20, 10, 1000, "guess")
     assert "exact" in str(err.value)
+
+
+def test_spread_rule_temperature_and_pressure():
+    # 125 m per degC of spread (common practice); the parcel rises dry to that height:
+    # T falls at g/cp (9.7675 K/km, ICAO g, cp Wallace & Hobbs) and p follows Poisson's
+    # equation p = p0 (T/T0)^(cp/Rd), the dry adiabat's closed form.
+    z, t_l, p_l = cloud_base(25.0, 12.0, 980.0, "spread")
+    assert abs(z - 1625.0) < 1e-9
+    assert abs(t_l - (25.0 - 9.80665 / 1004.0 * 1625.0)) < 1e-9
+    assert abs(p_l - 980.0 * ((t_l + 273.15) / 298.15) ** (1004.0 / 287.05287)) < 1e-6
+    z, t_l, p_l = cloud_base(-5.0, -7.0, 700.0, "spread")
+    assert abs(z - 250.0) < 1e-9 and abs(t_l - (-5.0 - 9.80665 / 1004.0 * 250.0)) < 1e-9
+    assert abs(p_l - 700.0 * ((t_l + 273.15) / 268.15) ** (1004.0 / 287.05287)) < 1e-6
+
+
+def test_bolton_height_and_pressure():
+    # Bolton's T_L (eq. 15, checked above) with Poisson's equation for p and the
+    # hypsometric equation for z (Wallace & Hobbs ch. 3), computed here.
+    t, td, p = 26.85, 15.57, 1000.0
+    z, t_l, p_l = cloud_base(t, td, p, "bolton")
+    t_k, td_k = t + 273.15, td + 273.15
+    t_l_ref = 1.0 / (1.0 / (td_k - 56.0) + math.log(t_k / td_k) / 800.0) + 56.0
+    assert abs(t_l + 273.15 - t_l_ref) < 1e-9
+    p_ref = p * (t_l_ref / t_k) ** (1004.0 / 287.05287)
+    assert abs(p_l - p_ref) < 1e-6
+    assert abs(z - 287.05287 * 0.5 * (t_k + t_l_ref) / 9.80665 * math.log(p / p_ref)) < 1e-6

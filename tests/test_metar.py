@@ -92,3 +92,41 @@ def test_missing_groups_clear_the_old_setting():
     assert any("QNH cleared" in line for line in out) and "press" not in s.state
     assert s.state["hum"] == ("td", -7.0) and s.state["t_c"] == -4.0
     assert all(len(line) <= 40 for line in out)
+
+
+def test_vertical_visibility_groups_are_not_temperatures():
+    # VVhhh is the vertical visibility in hundreds of ft, VV/// when it is not
+    # measured (WMO-No. 306 FM 15; REFERENCES.md, Reports); both hold "/" or digits
+    # but are not the TT/TdTd group that follows them.
+    m = parse("XKFL 041350Z 00000KT 0100 FG VV/// 02/02 Q1021")
+    assert m["t_c"] == 2.0 and m["td_c"] == 2.0 and m["qnh_hpa"] == 1021.0
+    assert m["groups"] == ["02/02", "Q1021"]
+    m = parse("XKFL 041350Z 00000KT 0200 FG VV002 M01/M01 A3005")
+    assert m["t_c"] == -1.0 and m["td_c"] == -1.0
+    assert abs(m["qnh_hpa"] - 30.05 * 33.8639) < HPA_TOL
+    assert "no temperature group" in _refused("XKFL 041350Z 0100 FG VV/// Q1021")
+
+
+def test_malformed_temperature_groups_are_refused():
+    # TT/TdTd has two digits on each side (WMO-No. 306 FM 15): 5/M03 or 05/M3 is
+    # not a temperature group, so a report with only that is refused, naming the form.
+    for bad in ("5/M03", "05/M3", "005/M03", "M5/M03", "0A/01"):
+        msg = _refused("XKFL 041350Z 24010KT 9999 %s Q1016" % bad)
+        assert msg is not None and "TT/TdTd" in msg, bad
+    # A well-formed group after the malformed one is read.
+    m = parse("XKFL 041350Z 5/M03 05/M03 Q1016")
+    assert m["t_c"] == 5.0 and m["td_c"] == -3.0 and m["groups"] == ["05/M03", "Q1016"]
+
+
+def test_remark_group_needs_both_halves_or_five_characters():
+    # RMK T snTTT [snTdTdTd] (REFERENCES.md, Reports): a broken dewpoint half keeps
+    # the whole-degree values; a temperature-only remark keeps the whole dewpoint.
+    m = parse("XKFL 121653Z 10/05 A3001 RMK T0104X039")
+    assert m["t_c"] == 10.0 and m["td_c"] == 5.0
+    m = parse("XKFL 121653Z 10/05 A3001 RMK T01041039")
+    assert abs(m["t_c"] - 10.4) < 1e-9 and abs(m["td_c"] + 3.9) < 1e-9
+    m = parse("XKFL 121653Z 10/05 A3001 RMK T2104")
+    assert m["t_c"] == 10.0
+    # Only the first remark T group counts.
+    m = parse("XKFL 121653Z 10/05 A3001 RMK T01040039 T02000100")
+    assert abs(m["t_c"] - 10.4) < 1e-9 and abs(m["td_c"] - 3.9) < 1e-9

@@ -1,0 +1,322 @@
+"""Every key of Column.report(), each checked against something outside the code that
+computes it: a closed form for the linear layers, a published formula coded here or in
+refs.py, a slow fine-step integration, or an identity with a separately tested public
+function. A new report key fails test_every_key_is_checked until a check is added here.
+
+The columns are invented. Closed forms for a layer with constant lapse rate gamma:
+T = T0 - gamma dz, p = p0 (T/T0)^(g/(Rd gamma)) (Wallace & Hobbs, Atmospheric Science,
+2nd ed., ch. 3); ICAO Doc 7488/3 for the standard atmosphere.
+"""
+import math
+
+import pytest
+
+from lapsecalc import Column, mixing_ratio, wet_bulb, relative_humidity, station_pressure
+from refs import (romps_lcl_m, romps_pvstar_pa, hyland_wexler_water_hpa, ae_es_hpa,
+                  pseudo_adiabatic_dt_dz, fine_parcel, first_crossing, bisect)
+from test_stability import reference_parcel
+
+G0, RD, CP, RV = 9.80665, 287.05287, 1004.0, 461.5   # ICAO Doc 7488/3; Wallace & Hobbs
+EPS, KAPPA = RD / RV, RD / CP
+DRY_RATE = 1000.0 * G0 / CP                            # K/km, g/cp
+ISA_T0, ISA_P0, ISA_L, ISA_RHO0 = 288.15, 1013.25, 0.0065, 1.2250   # ICAO Doc 7488/3
+
+# (t_c, td_c, p_hpa, elev_m, layers, top_m, thermal_excess_c): invented columns.
+MAIN = (26.0, 15.0, 965.0, 420.0, [(300.0, 9.0), (2500.0, 7.0), (None, 6.5)], 14000.0, 1.5)
+CHECKED = set()
+
+
+def _col(spec):
+    t, td, p, elev, layers, top, _ = spec
+    return Column(t, td, p, elev, layers, top_m=top)
+
+
+def _layers_msl(spec):
+    # [(bottom_msl, top_msl, t_bottom_c, rate_k_per_km)] from the spec, by hand.
+    t, _, _, elev, layers, top, _ = spec
+    out, z, tz = [], elev, t
+    for top_agl, rate in layers:
+        z1 = top if top_agl is None else min(elev + top_agl, top)
+        out.append((z, z1, tz, rate))
+        tz -= rate * (z1 - z) / 1000.0
+        z = z1
+    return out
+
+
+def _env_t(spec, z):
+    for z0, z1, t0, rate in _layers_msl(spec):
+        if z <= z1:
+            return t0 - rate * (z - z0) / 1000.0
+    raise AssertionError(z)
+
+
+def _env_p(spec, z):
+    p = spec[2]
+    for z0, z1, t0, rate in _layers_msl(spec):
+        top = min(z, z1)
+        g = rate / 1000.0
+        ta, tb = t0 + 273.15, t0 + 273.15 - g * (top - z0)
+        p *= (tb / ta) ** (G0 / (RD * g)) if g else math.exp(-G0 * (top - z0) / (RD * ta))
+        if z <= z1:
+            return p
+    raise AssertionError(z)
+
+
+@pytest.fixture(scope="module")
+def main():
+    col = _col(MAIN)
+    r = col.report(MAIN[6])
+    lcl_msl = MAIN[3] + r["cloud_base_agl_m"]
+    return col, r, fine_parcel(col, lcl_msl)
+
+
+def covers(*keys):
+    # Marks the report keys a test checks (collected at import, so the coverage test
+    # below does not depend on the order tests run in).
+    CHECKED.update(keys)
+    return lambda fn: fn
+
+
+@covers("elevation_m", "top_msl_m", "t_c", "td_c", "station_pressure_hpa", "thermal_excess_c")
+def test_inputs_come_back(main):
+    col, r, _ = main
+    t, td, p, elev, _, top, excess = MAIN
+    assert (r["elevation_m"], r["top_msl_m"], r["t_c"], r["td_c"]) == (elev, top, t, td)
+    assert (r["station_pressure_hpa"], r["thermal_excess_c"]) == (p, excess)
+
+
+@covers("rh_pct", "mixing_ratio_g_kg", "wet_bulb_c")
+def test_surface_humidity(main):
+    _, r, _ = main
+    t, td, p = MAIN[:3]
+    # Hyland-Wexler (ASHRAE Fundamentals ch. 1) ratio, within the fit's 0.5 %.
+    assert abs(r["rh_pct"] / (100.0 * hyland_wexler_water_hpa(td) / hyland_wexler_water_hpa(t)) - 1) < 0.005
+    assert r["rh_pct"] == relative_humidity(t, td)
+    # r = eps e / (p - e) (Wallace & Hobbs) with Hyland-Wexler e, and the identity.
+    e = hyland_wexler_water_hpa(td)
+    assert abs(r["mixing_ratio_g_kg"] / (1000.0 * EPS * e / (p - e)) - 1) < 0.005
+    assert abs(r["mixing_ratio_g_kg"] - mixing_ratio(td, p)) < 1e-9
+    # The psychrometric balance (ASHRAE Fundamentals ch. 1 eq. 33) solved by bisection.
+    w = EPS * ae_es_hpa(td) / (p - ae_es_hpa(td))
+
+    def balance(tw):
+        ws = EPS * ae_es_hpa(tw) / (p - ae_es_hpa(tw))
+        return ((2501.0 - 2.326 * tw) * ws - 1.006 * (t - tw)) / (2501.0 + 1.86 * t - 4.186 * tw) - w
+    assert abs(r["wet_bulb_c"] - bisect(balance, td, t)) < 0.01
+    assert r["wet_bulb_c"] == wet_bulb(t, td, p)
+
+
+@covers("qnh_hpa", "pressure_altitude_m", "air_density_kg_m3", "density_altitude_m")
+def test_pressures_and_density(main):
+    _, r, _ = main
+    t, td, p, elev = MAIN[:4]
+    n = RD * ISA_L / G0
+    # Altimeter-setting relation p^n = QNH^n - p0^n L h / T0 (REFERENCES.md), solved for h.
+    h = ISA_T0 / ISA_L * (r["qnh_hpa"] ** n - p ** n) / ISA_P0 ** n
+    assert abs(h - elev) < 0.01
+    assert abs(station_pressure(r["qnh_hpa"], elev) - p) < 0.001
+    # ISA troposphere (ICAO Doc 7488/3): p = p0 (1 - L h / T0)^(g/(R L)).
+    assert abs(r["pressure_altitude_m"] - ISA_T0 / ISA_L * (1 - (p / ISA_P0) ** n)) < 0.01
+    # Ideal gas with the virtual temperature (Wallace & Hobbs eq. 3.60).
+    e = ae_es_hpa(td)
+    tv = (t + 273.15) / (1.0 - e / p * (1.0 - EPS))
+    rho = 100.0 * p / (RD * tv)
+    assert abs(r["air_density_kg_m3"] - rho) < 1e-6
+    # ISA height of that density: rho/rho0 = (T/T0)^(g/(R L) - 1).
+    da = ISA_T0 / ISA_L * (1.0 - (rho / ISA_RHO0) ** (1.0 / (G0 / (RD * ISA_L) - 1.0)))
+    assert abs(r["density_altitude_m"] - da) < 0.5
+
+
+@covers("cloud_base_agl_m", "cloud_base_msl_m", "lcl_t_c", "lcl_p_hpa")
+def test_cloud_base(main):
+    col, r, _ = main
+    t, td, p, elev = MAIN[:4]
+    # Romps (2017) eq. 22a with a slow W_-1 (refs.py), humidity from Romps' own e_s.
+    rh = romps_pvstar_pa(td + 273.15) / romps_pvstar_pa(t + 273.15)
+    ref = romps_lcl_m(t + 273.15, rh, 100.0 * p)
+    assert abs(r["cloud_base_agl_m"] - ref) < 2.0 + 0.002 * ref
+    assert r["cloud_base_msl_m"] == elev + r["cloud_base_agl_m"]
+    # At the LCL: saturated with the surface mixing ratio (AE96 e_s), on the dry
+    # adiabat from the surface (Poisson, to Romps' moist exponent: 0.1 K), and at the
+    # column's hydrostatic pressure of that height (closed form).
+    e_l = ae_es_hpa(r["lcl_t_c"])
+    assert abs(EPS * e_l / (r["lcl_p_hpa"] - e_l) / (EPS * ae_es_hpa(td) / (p - ae_es_hpa(td))) - 1) < 0.005
+    assert abs(r["lcl_t_c"] - ((t + 273.15) * (r["lcl_p_hpa"] / p) ** KAPPA - 273.15)) < 0.1
+    assert abs(r["lcl_p_hpa"] - _env_p(MAIN, r["cloud_base_msl_m"])) < 0.5
+
+
+@covers("freezing_level_msl_m", "minus10_level_msl_m", "minus20_level_msl_m",
+           "freezing_levels_msl_m", "minus10_levels_msl_m", "minus20_levels_msl_m",
+           "warm_layer_aloft")
+def test_environment_levels(main):
+    _, r, _ = main
+    # Closed form per linear layer: z = z0 + (T0 - T) / gamma.
+    for name, t_iso in (("freezing", 0.0), ("minus10", -10.0), ("minus20", -20.0)):
+        want = [z0 + (t0 - t_iso) / rate * 1000.0 for z0, z1, t0, rate in _layers_msl(MAIN)
+                if rate and z0 <= z0 + (t0 - t_iso) / rate * 1000.0 <= z1]
+        assert len(want) == 1
+        assert r[name + "_levels_msl_m"] == pytest.approx(want, abs=1e-6)
+        assert r[name + "_level_msl_m"] == pytest.approx(want[0], abs=1e-6)
+    assert r["warm_layer_aloft"] is False                 # cools all the way up
+
+
+@covers("parcel_freezing_level_msl_m", "lfc_msl_m", "el_msl_m", "el_above_top", "cape_j_kg",
+           "cin_j_kg", "lifted_index_c", "icing_band_bottom_msl_m", "icing_band_top_msl_m")
+def test_parcel_levels(main):
+    col, r, prof = main
+    # Fine-step parcel (refs.fine_parcel): 0 and -20 degC of the parcel, in cloud
+    # between the LCL and the EL (the icing band; common practice 0..-20 degC).
+    z0 = first_crossing(prof, lambda row: row[1])
+    z20 = first_crossing(prof, lambda row: row[1] + 20.0)
+    assert abs(r["parcel_freezing_level_msl_m"] - z0) < 5.0
+    lfc, el, cape, cin = reference_parcel(col)
+    assert abs(r["lfc_msl_m"] - lfc) < 60.0 and abs(r["el_msl_m"] - el) < 60.0
+    assert r["el_above_top"] is False
+    assert abs(r["cape_j_kg"] - cape) <= 12.0 + 0.012 * cape
+    assert abs(r["cin_j_kg"] - cin) <= 4.0 + 0.01 * abs(cin)
+    assert r["cloud_base_msl_m"] < z0 < z20 < el          # premise: the whole band in cloud
+    assert abs(r["icing_band_bottom_msl_m"] - z0) < 5.0
+    assert abs(r["icing_band_top_msl_m"] - z20) < 5.0
+    # LI = Te - Tp at 500 hPa (REFERENCES.md), 500 hPa found by bisection on the
+    # closed-form pressure.
+    z500 = bisect(lambda z: 500.0 - _env_p(MAIN, z), MAIN[3], MAIN[5])
+    tp = [row for row in prof if row[0] >= z500][0]
+    assert abs(r["lifted_index_c"] - (_env_t(MAIN, z500) - tp[1])) < 0.05
+
+
+@covers("thermal_top_msl_m", "thermal_kind", "ccl_msl_m", "trigger_t_c")
+def test_thermals_and_ccl(main):
+    col, r, _ = main
+    t, td, p, elev, _, _, excess = MAIN
+    # Dry thermal at t + excess cooling at g/cp meets the air: per layer closed form.
+    top = None
+    for z0, z1, t0, rate in _layers_msl(MAIN):
+        d0 = t + excess - DRY_RATE * (z0 - elev) / 1000.0 - t0
+        d1 = t + excess - DRY_RATE * (z1 - elev) / 1000.0 - (t0 - rate * (z1 - z0) / 1000.0)
+        if d1 <= 0.0:
+            top = z0 + (z1 - z0) * d0 / (d0 - d1)
+            break
+    assert top > MAIN[4][0][0] + elev                      # premise: above the first layer
+    assert abs(r["thermal_top_msl_m"] - top) < 1e-6
+    # Blue: the warmed parcel's own LCL (Romps, refs.py) is above the thermal top.
+    rh = romps_pvstar_pa(td + 273.15) / romps_pvstar_pa(t + excess + 273.15)
+    assert elev + romps_lcl_m(t + excess + 273.15, rh, 100.0 * p) > top
+    assert r["thermal_kind"] == "blue"
+    # CCL: the air's temperature meets the dewpoint of the surface mixing ratio (AE96,
+    # inverted by bisection); the trigger temperature's dry adiabat reaches it.
+    w = EPS * ae_es_hpa(td) / (p - ae_es_hpa(td))
+
+    def gap(z):
+        e = w * _env_p(MAIN, z) / (EPS + w)
+        return bisect(lambda x: ae_es_hpa(x) - e, -90.0, 60.0) - _env_t(MAIN, z)
+    z_ccl = bisect(gap, elev, 8000.0)
+    assert abs(r["ccl_msl_m"] - z_ccl) < 1.0
+    trig = (_env_t(MAIN, z_ccl) + 273.15) * (p / _env_p(MAIN, z_ccl)) ** KAPPA - 273.15
+    assert abs(r["trigger_t_c"] - trig) < 0.02
+
+
+@covers("stability", "stability_layers", "stability_column")
+def test_stability_keys(main):
+    col, r, _ = main
+    # Bands of at most 2 km in each layer; each class from the layer's ELR against the
+    # dry rate g/cp and the saturated rate at the band's middle (AMS Glossary, refs.py).
+    bands = []
+    for z0, z1, t0, rate in _layers_msl(MAIN):
+        n = int(math.ceil((z1 - z0) / 2000.0))
+        bands += [(z0 + (z1 - z0) * i / n, z0 + (z1 - z0) * (i + 1) / n, rate) for i in range(n)]
+    got = r["stability_layers"]
+    assert len(got) == len(bands)
+
+    def salr(z):
+        te = _env_t(MAIN, z) + 273.15
+        return -1000.0 * pseudo_adiabatic_dt_dz(te, _env_p(MAIN, z), te)
+
+    def cls(rate, s):
+        if abs(rate - DRY_RATE) <= 0.1 or abs(rate - s) <= 0.1:
+            return "neutral"
+        return "absolutely_unstable" if rate > DRY_RATE else \
+            "absolutely_stable" if rate < s else "conditionally_unstable"
+    for (a, b, rate), band in zip(bands, got):
+        s = salr(0.5 * (a + b))
+        assert band["bottom_msl_m"] == pytest.approx(a) and band["top_msl_m"] == pytest.approx(b)
+        assert band["lapse_k_per_km"] == pytest.approx(rate)
+        assert abs(band["saturated_k_per_km"] - s) < 0.01
+        assert band["class"] == cls(rate, s)
+    assert r["stability"] == got[0]["class"] == "conditionally_unstable"
+    if "stability_column" in r:
+        top = r["top_msl_m"]
+        mean = 1000.0 * (MAIN[0] - _env_t(MAIN, top)) / (top - MAIN[3])
+        assert r["stability_column"] == cls(mean, salr(0.5 * (MAIN[3] + top)))
+
+
+@covers("cautions")
+def test_cautions(main):
+    _, r, _ = main
+    # The usual cautions (common practice for flight-planning aids).
+    text = " ".join(r["cautions"]).lower()
+    assert "one surface observation" in text and "not an official forecast" in text
+    assert "flight manual" in text and "local regulations" in text
+
+
+def test_every_key_is_checked(main):
+    _, r, _ = main
+    missing = sorted(set(r) - CHECKED)
+    assert not missing, "report keys with no outside check in this file: %s" % missing
+
+
+def _warm_over_cold_by_scan(spec, dz=1.0):
+    # Slow definition: some air above 0 degC lies over air at or below 0 degC.
+    elev, top = spec[3], spec[5]
+    cold = False
+    for i in range(int((top - elev) / dz) + 1):
+        t = _env_t(spec, min(elev + i * dz, top))
+        if cold and t > 0.0:
+            return True
+        cold = cold or t <= 0.0
+    return False
+
+
+@pytest.mark.parametrize("t_c,layers,want", [
+    (-5.0, [(None, 6.5)], False),                        # below freezing throughout
+    (0.0, [(None, 6.5)], False),                         # exactly 0 degC at the surface
+    (0.0, [(500.0, -4.0), (None, 6.5)], True),           # 0 degC under a warm inversion
+    (-2.0, [(500.0, -4.0), (None, 6.5)], False),         # the inversion tops out at 0 degC
+    (-2.0, [(600.0, -4.0), (None, 6.5)], True),          # ... or just above it
+    (5.0, [(1000.0, 8.0), (2000.0, -6.0), (None, 6.5)], True),   # warm nose aloft
+    (5.0, [(500.0, -4.0), (None, 6.5)], False),          # warm inversion over warm air
+])
+def test_warm_layer_aloft_edges(t_c, layers, want):
+    spec = (t_c, t_c - 3.0, 1000.0, 0.0, layers, 6000.0, 0.0)
+    assert _warm_over_cold_by_scan(spec) is want
+    assert _col(spec).report()["warm_layer_aloft"] is want
+
+
+def test_crossing_at_a_layer_boundary_is_listed_once():
+    # 0 degC exactly at the 1000 m boundary, then a warm inversion and cooling again:
+    # two crossings, the boundary one once (closed form per layer).
+    spec = (10.0, 0.0, 1000.0, 0.0, [(1000.0, 10.0), (2000.0, -5.0), (None, 6.5)], 8000.0, 0.0)
+    r = _col(spec).report()
+    assert r["freezing_levels_msl_m"] == pytest.approx([1000.0, 2000.0 + 5.0 / 6.5 * 1000.0])
+    assert r["freezing_level_msl_m"] == pytest.approx(1000.0)
+    spec = (10.0, 0.0, 1000.0, 0.0, [(1000.0, 10.0), (None, 6.5)], 8000.0, 0.0)
+    assert _col(spec).report()["minus10_levels_msl_m"] == pytest.approx([1000.0 + 10.0 / 6.5 * 1000.0])
+    assert _col(spec).report()["freezing_levels_msl_m"] == pytest.approx([1000.0])
+
+
+@pytest.mark.parametrize("spread", [0.0, 0.01, 0.3])
+def test_ccl_of_nearly_saturated_air(spread):
+    # The CCL of nearly saturated air is just above the ground: where the air (6.5 K/km)
+    # meets the dewpoint of the surface mixing ratio (AE96 inverted by bisection).
+    spec = (20.0, 20.0 - spread, 1000.0, 300.0, [(None, 6.5)], 8000.0, 0.0)
+    r = _col(spec).report()
+    if spread == 0.0:
+        assert r["ccl_msl_m"] == 300.0
+        return
+    w = EPS * ae_es_hpa(20.0 - spread) / (1000.0 - ae_es_hpa(20.0 - spread))
+
+    def gap(z):
+        e = w * _env_p(spec, z) / (EPS + w)
+        return bisect(lambda x: ae_es_hpa(x) - e, -90.0, 60.0) - _env_t(spec, z)
+    z = bisect(gap, 300.0, 2000.0)
+    assert z - 300.0 < 250.0 * spread                   # premise: near the ground
+    assert abs(r["ccl_msl_m"] - z) < 0.6

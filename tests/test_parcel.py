@@ -205,6 +205,7 @@ def _expected_levels(col, lcl_msl_m, spacing=1250.0):
     ((25.0, 15.0, 1000.0, 0.0, [(800.0, 9.0), (None, 6.5)]), 9000.0),
     ((18.0, 18.0, 990.0, 200.0, [(300.0, -2.0), (2800.0, 7.0), (None, 6.0)]), 12000.0),
     ((10.0, 2.0, 950.0, 500.0, 6.5), 3000.0),
+    ((15.0, 15.0, 1000.0, 0.0, 6.5), 2510.0),       # 2510 m: three levels apart, not two
 ])
 def test_path_levels(args, top):
     # The path's heights are the documented levels, strictly rising (a saturated

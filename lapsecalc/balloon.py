@@ -9,17 +9,22 @@
 #   Molar masses of helium and hydrogen: from memory (below).
 #   Zero-pressure gas balloon: the gas is at the ambient pressure, the volume grows
 #     as T/p until the envelope is full, then gas vents through the open appendix
-#     (common practice).
+#     (common practice). The pressure height is where it becomes full.
+#   Working (mean) envelope temperature and its margin below the maximum: see
+#     DEFAULT_MARGIN_K. Oxygen heights: see OXYGEN_LONG_M.
 # Assumptions (stated in the reports' notes):
 #   Hot air: the envelope holds ambient air heated at the same pressure with the same
 #     vapour pressure (the same mixing ratio); burner exhaust (water vapour, CO2) is
-#     not modelled. Then rho_envelope = rho_air * T_air / T_envelope exactly.
-#   Gas: the gas is at the ambient temperature (no superheat in sunshine) and dry;
-#     its impurity is dry air; purity is a volume (mole) fraction.
+#     not modelled. Then rho_envelope = rho_air * T_air / T_envelope exactly. The
+#     envelope temperature is the MEAN of the envelope air; the crown (top) is hotter.
+#   Gas: the gas is at the ambient temperature plus a superheat the user sets (0 when
+#     not set), the same at every height, and dry; its impurity is dry air; purity is
+#     a volume (mole) fraction. The fill is the gas volume at the field at the
+#     ambient temperature (before any superheat).
 from math import isfinite
 from lapsecalc.constants import R_DRY, T0_K
 from lapsecalc.limits import check, check_p
-from lapsecalc.standard import _density
+from lapsecalc.standard import _density, pressure_altitude
 
 # Molar masses, g/mol (= kg/kmol).
 M_AIR_G_MOL = 28.9644       # dry air, ICAO Doc 7488/3
@@ -49,6 +54,30 @@ MAX_ENVELOPE_T_MIN_C = 50.0
 MAX_ENVELOPE_T_MAX_C = 150.0
 # An envelope temperature asked for runs from the ambient temperature up to this, degC.
 ENVELOPE_T_MAX_C = 150.0
+# The working envelope temperature: the MEAN temperature of the air in the envelope,
+# which every hot-air figure uses. The maker's maximum is a limit read at the crown
+# (the top of the envelope, where the air is hottest); the mean runs well below it.
+# When the user sets no working temperature it is the maximum less this margin, K:
+# flight-manual load charts are commonly drawn for a mean of about 100 degC against a
+# 120 degC maximum (common practice; from memory). The user can set another margin
+# (0..MARGIN_MAX_K) or the working temperature itself.
+DEFAULT_MARGIN_K = 20.0
+MARGIN_MAX_K = 60.0
+# Superheat of the lifting gas over the outside air, K: 0..50 admits a dark envelope
+# in strong sun (tens of kelvin; common practice, from memory).
+SUPERHEAT_MAX_K = 50.0
+# Supplemental oxygen: many regulations require it above about 10,000 ft pressure
+# altitude for longer than 30 minutes and above 13,000 ft at all times (ICAO-style
+# rules; others use 12,500 and 14,000 ft). Common practice, from memory: the user
+# must check the rules that apply. Pressure altitude, m (exact from ft).
+OXYGEN_LONG_M = 3048.0
+OXYGEN_ALWAYS_M = 3962.4
+# The load table: default field temperatures, degC, and row spacing, m; at most
+# TABLE_MAX rows or columns (a 40-column screen shows six temperatures).
+TABLE_TEMPS_C = (-10.0, 0.0, 10.0, 20.0, 30.0, 40.0)
+TABLE_STEP_M = 500.0
+TABLE_DEPTH_M = 3000.0
+TABLE_MAX = 40
 # Purity of the lifting gas, volume fraction; below one half it is mostly air.
 PURITY_MIN = 0.5
 # Densities the plain formulas accept, kg/m3 (ISA at 32 km is 0.0132; -90 degC air at
@@ -107,26 +136,45 @@ def envelope_t_for_lift(rho_air_kg_m3, t_air_c, lift_per_m3_kg):
     return (t_air + T0_K) / (1.0 - lift / rho) - T0_K
 
 
-def gas_density(p_hpa, t_c, gas, purity=1.0):
+def gas_density(p_hpa, t_c, gas, purity=1.0, superheat_k=0.0):
     """Density, kg/m3, of the lifting gas ("helium" or "hydrogen", volume fraction
-    purity 0.5..1, the rest dry air) at p_hpa (1..1100) and t_c degC (-90..60).
+    purity 0.5..1, the rest dry air) at p_hpa (1..1100) and t_c degC (-90..60, the
+    outside air) plus superheat_k (0..50 K: the gas that much warmer than the air).
 
     Ideal gas: rho = p M / (R* T) with R* = R_DRY * M_air (ICAO Doc 7488/3), so
-    rho = rho_dry_air(p, T) * (purity M_gas / M_air + 1 - purity).
+    rho = rho_dry_air(p, T) * (purity M_gas / M_air + 1 - purity), T = t_c + superheat.
     """
     m_gas = molar_mass(gas)
     f = check("purity", purity, PURITY_MIN, 1.0, "(volume fraction of the gas; the rest air)")
     p = check_p("p_hpa", p_hpa)
     t = check("t_c", t_c, -90.0, 60.0, "degC")
-    return 100.0 * p / (R_DRY * (t + T0_K)) * (f * m_gas / M_AIR_G_MOL + 1.0 - f)
+    dt = check("superheat_k", superheat_k, 0.0, SUPERHEAT_MAX_K, "K")
+    return 100.0 * p / (R_DRY * (t + dt + T0_K)) * (f * m_gas / M_AIR_G_MOL + 1.0 - f)
 
 
-def gas_lift_per_m3(rho_air_kg_m3, p_hpa, t_c, gas, purity=1.0):
-    """Gross lift, kg per m3 of gas at the ambient p_hpa and t_c: ambient density
-    rho_air_kg_m3 (0.001..2.5, moist or dry) less gas_density(p_hpa, t_c, gas, purity).
+def gas_lift_per_m3(rho_air_kg_m3, p_hpa, t_c, gas, purity=1.0, superheat_k=0.0):
+    """Gross lift, kg per m3 of gas at the ambient p_hpa and t_c plus superheat_k:
+    ambient density rho_air_kg_m3 (0.001..2.5, moist or dry) less
+    gas_density(p_hpa, t_c, gas, purity, superheat_k).
     Pure helium in the ISA at sea level: 1.0557 kg/m3."""
     rho = check("rho_air_kg_m3", rho_air_kg_m3, RHO_MIN_KG_M3, RHO_MAX_KG_M3, "kg/m3")
-    return rho - gas_density(p_hpa, t_c, gas, purity)
+    return rho - gas_density(p_hpa, t_c, gas, purity, superheat_k)
+
+
+def superheat_loss_kg(rho_air_kg_m3, t_air_c, gas_volume_m3, superheat_k):
+    """Lift lost, kg, when gas of volume gas_volume_m3 (m3, 0..2e6, as it is with
+    superheat_k 0..50 K) cools to the air temperature t_air_c (-90..60 degC) at the
+    same pressure, in air of density rho_air_kg_m3: the ballast to drop to hold
+    level when the superheat goes (sunset, cloud shadow).
+
+    Same gas mass, same pressure: the volume shrinks by the factor T / (T + dT), so the
+    air displaced falls by rho_air V dT / (T + dT) (ideal gas).
+    """
+    rho = check("rho_air_kg_m3", rho_air_kg_m3, RHO_MIN_KG_M3, RHO_MAX_KG_M3, "kg/m3")
+    t = check("t_air_c", t_air_c, -90.0, 60.0, "degC") + T0_K
+    v = check("gas_volume_m3", gas_volume_m3, 0.0, ENVELOPE_MAX_M3, "m3")
+    dt = check("superheat_k", superheat_k, 0.0, SUPERHEAT_MAX_K, "K")
+    return rho * v * dt / (t + dt)
 
 
 def gas_volume_at(v0_m3, p0_hpa, t0_c, p_hpa, t_c):
@@ -223,64 +271,120 @@ def _per_1000ft(col, z_m, f):
     return (fb - fa) * FT1000_M / (zb - za)
 
 
-def hot_air_report(col, volume_m3, weight_kg, max_envelope_t_c, envelope_t_c=None, z_m=None):
+def working_envelope_t(max_envelope_t_c, envelope_t_c=None, margin_k=DEFAULT_MARGIN_K):
+    """The working (mean) envelope temperature, degC, that hot-air figures use.
+
+    max_envelope_t_c 50..150 degC, the maker's maximum (a limit, read at the crown);
+    envelope_t_c, when given, the mean envelope-air temperature the crew plans to fly
+    (-90 up to max_envelope_t_c; above it is refused naming both); when None, the
+    maximum less margin_k (0..60 K, default DEFAULT_MARGIN_K, common practice).
+    """
+    t_max = check("max_envelope_t_c", max_envelope_t_c, MAX_ENVELOPE_T_MIN_C,
+                  MAX_ENVELOPE_T_MAX_C, "degC (the envelope maker's figure)")
+    if envelope_t_c is None:
+        return t_max - check("margin_k", margin_k, 0.0, MARGIN_MAX_K, "K (below the maximum)")
+    t = check("envelope_t_c", envelope_t_c, -90.0, ENVELOPE_T_MAX_C, "degC")
+    if t > t_max:
+        raise ValueError("envelope_t_c=%g is above max_envelope_t_c=%g; the working"
+                         " temperature is allowed up to %g degC (the maximum is a limit)"
+                         % (t, t_max, t_max))
+    return t
+
+
+def oxygen_note(col, heights):
+    """A note (str) when any of heights, (label, m MSL inside col or None) pairs,
+    passes the pressure altitudes at which regulations commonly require supplemental
+    oxygen (OXYGEN_LONG_M, OXYGEN_ALWAYS_M; common practice); None when none does."""
+    worst = None
+    for label, z in heights:
+        if z is None:
+            continue
+        p = col.p_at(z)
+        pa = pressure_altitude(p) if p > 8.68 else 32000.0
+        if pa > OXYGEN_LONG_M and (worst is None or pa > worst[1]):
+            worst = (label, pa, z)
+    if worst is None:
+        return None
+    label, pa, z = worst
+    return ("Oxygen: the %s, %.0f m MSL (%.0f ft pressure altitude), passes %s."
+            " Regulations commonly require supplemental oxygen above 10000 ft for over 30 min"
+            " and above 13000 ft always (common practice); check your local regulations."
+            % (label, z, pa / 0.3048, "13000 ft" if pa > OXYGEN_ALWAYS_M else "10000 ft"))
+
+
+def _ceiling(col, v, w, t_env):
+    # (ceiling m MSL or None, above the top) at t_env: None, False when too heavy.
+    if v * _hot_lift(col, col.elev_m, t_env) < w:
+        return None, False
+    c = first_drop(col, lambda zz: v * _hot_lift(col, zz, t_env) - w, col.elev_m)
+    return c, c is None
+
+
+def hot_air_report(col, volume_m3, weight_kg, max_envelope_t_c, envelope_t_c=None, z_m=None,
+                   margin_k=DEFAULT_MARGIN_K):
     """Hot-air balloon in the column col (a Column): a dict of plain values.
 
     volume_m3 10..20000; weight_kg 1..20000, everything that flies (envelope, basket,
-    burners, fuel, people); max_envelope_t_c 50..150 degC, the envelope maker's figure,
-    set by the user; envelope_t_c (default max_envelope_t_c) from the ambient
-    temperature at z up to 150 degC; z_m MSL inside the column (default the field).
+    burners, fuel, people); max_envelope_t_c 50..150 degC, the envelope maker's
+    maximum, set by the user: a LIMIT; envelope_t_c the working (mean) envelope
+    temperature (working_envelope_t: default the maximum less margin_k), from the
+    ambient temperature at z up to the maximum; z_m MSL inside the column (default
+    the field).
 
-    Keys: z_msl_m, ambient_t_c, ambient_p_hpa, ambient_density_kg_m3, volume_m3,
-    weight_kg, max_envelope_t_c, envelope_t_c, lift_per_m3_kg and gross_lift_kg (at z
-    and envelope_t_c), free_lift_kg (gross less weight), max_payload_kg (gross less
-    weight at the field at max_envelope_t_c: the most extra load that still takes off;
-    negative = that much too heavy), envelope_t_needed_c (floats the weight at z; None
-    if no temperature does), envelope_t_needed_over_limit (bool), ceiling_msl_m and
-    ceiling_p_hpa (lowest height where the lift at max_envelope_t_c falls to the
-    weight; None if it cannot take off or if the ceiling is above the column top),
-    ceiling_above_top (bool), gross_lift_per_1000ft_kg and
-    envelope_t_needed_per_1000ft_c (change over the 1000 ft above z), notes (tuple of
-    str), warnings (tuple of str, empty when none).
+    Working-temperature keys (what to plan with): z_msl_m, ambient_t_c, ambient_p_hpa,
+    ambient_density_kg_m3, volume_m3, weight_kg, envelope_t_c, envelope_t_set (bool:
+    given, not the default), margin_k (maximum less working), lift_per_m3_kg,
+    gross_lift_kg and free_lift_kg (at z), payload_kg (gross less weight at the field:
+    the most extra load that still takes off; negative = that much too heavy),
+    envelope_t_needed_c (floats the weight at z; None if no temperature does),
+    envelope_t_needed_over_working (bool), ceiling_msl_m and ceiling_p_hpa (lowest
+    height where the lift falls to the weight; None if it cannot take off or if the
+    ceiling is above the column top), ceiling_above_top, gross_lift_per_1000ft_kg and
+    envelope_t_needed_per_1000ft_c (change over the 1000 ft above z).
+    Absolute-limit keys (at the maximum; never to plan on): max_envelope_t_c,
+    limit_gross_lift_kg (at z), limit_payload_kg, envelope_t_needed_over_limit,
+    limit_ceiling_msl_m, limit_ceiling_p_hpa, limit_ceiling_above_top.
+    oxygen_note (str or None), notes, warnings (tuples of str, empty when none).
     """
     v = check("volume_m3", volume_m3, HOT_VOLUME_MIN_M3, HOT_VOLUME_MAX_M3, "m3")
     w = check("weight_kg", weight_kg, HOT_WEIGHT_MIN_KG, WEIGHT_MAX_KG, "kg")
     t_max = check("max_envelope_t_c", max_envelope_t_c, MAX_ENVELOPE_T_MIN_C,
                   MAX_ENVELOPE_T_MAX_C, "degC (the envelope maker's figure)")
+    t_env = working_envelope_t(t_max, envelope_t_c, margin_k)
     z = _z(col, z_m)
     p, t_air, e, rho = _air(col, z)
-    if envelope_t_c is None:
-        t_env = t_max
-        if t_env < t_air:
-            raise ValueError("max_envelope_t_c=%g is below the ambient %.1f degC at %.0f m MSL;"
-                             " allowed %.1f..%g degC" % (t_max, t_air, z, t_air, ENVELOPE_T_MAX_C))
-    else:
-        t_env = check("envelope_t_c", envelope_t_c, t_air, ENVELOPE_T_MAX_C,
-                      "degC (from the ambient temperature at z)")
+    if t_env < t_air:
+        raise ValueError("envelope_t_c=%g (working) is below the ambient %.1f degC at %.0f m MSL;"
+                         " allowed %.1f..%g degC" % (t_env, t_air, z, t_air, t_max))
     lift = hot_air_lift_per_m3(rho, p, t_env, e)
     need = w / v
     t_need = _t_needed(col, z, need)
-    payload = v * _hot_lift(col, col.elev_m, t_max) - w
-    ceiling = None
-    above = False
-    if payload >= 0.0:
-        ceiling = first_drop(col, lambda zz: v * _hot_lift(col, zz, t_max) - w, col.elev_m)
-        above = ceiling is None
+    payload = v * _hot_lift(col, col.elev_m, t_env) - w
+    limit_payload = v * _hot_lift(col, col.elev_m, t_max) - w
+    ceiling, above = _ceiling(col, v, w, t_env)
+    limit_ceiling, limit_above = _ceiling(col, v, w, t_max)
     warnings = []
     if payload < 0.0:
-        warnings.append("Too heavy to take off at the maximum envelope temperature %.0f degC:"
-                        " %.0f kg over." % (t_max, -payload))
+        warnings.append("Too heavy to take off at the working envelope temperature %.0f degC:"
+                        " %.0f kg over." % (t_env, -payload))
     if t_need is None:
         warnings.append("No envelope temperature floats %.0f kg at %.0f m MSL." % (w, z))
     elif t_need > t_max:
         warnings.append("Floating %.0f kg at %.0f m MSL needs %.1f degC in the envelope, above"
                         " the maximum envelope temperature %.0f degC you set."
                         % (w, z, t_need, t_max))
-    if t_env > t_max:
-        warnings.append("The envelope temperature asked for, %.1f degC, is above the maximum"
-                        " envelope temperature %.0f degC you set." % (t_env, t_max))
+    elif t_need > t_env:
+        warnings.append("Floating %.0f kg at %.0f m MSL needs %.1f degC in the envelope, above"
+                        " the working temperature %.0f degC." % (w, z, t_need, t_env))
+    if t_env == t_max:
+        warnings.append("The working temperature is the maximum: every figure is the absolute"
+                        " limit, with no margin.")
     if above:
         warnings.append("The ceiling lies above the column top (%.0f m MSL)." % col.top_m)
+    oxygen = oxygen_note(col, (("planned height", z),
+                               ("ceiling", col.top_m if above else ceiling)))
+    if oxygen:
+        warnings.append(oxygen)
     return {
         "z_msl_m": z,
         "ambient_t_c": t_air,
@@ -288,22 +392,37 @@ def hot_air_report(col, volume_m3, weight_kg, max_envelope_t_c, envelope_t_c=Non
         "ambient_density_kg_m3": rho,
         "volume_m3": v,
         "weight_kg": w,
-        "max_envelope_t_c": t_max,
         "envelope_t_c": t_env,
+        "envelope_t_set": envelope_t_c is not None,
+        "margin_k": t_max - t_env,
         "lift_per_m3_kg": lift,
         "gross_lift_kg": v * lift,
         "free_lift_kg": v * lift - w,
-        "max_payload_kg": payload,
+        "payload_kg": payload,
         "envelope_t_needed_c": t_need,
-        "envelope_t_needed_over_limit": t_need is None or t_need > t_max,
+        "envelope_t_needed_over_working": t_need is None or t_need > t_env,
         "ceiling_msl_m": ceiling,
         "ceiling_p_hpa": None if ceiling is None else col.p_at(ceiling),
         "ceiling_above_top": above,
         "gross_lift_per_1000ft_kg": _per_1000ft(col, z, lambda zz: v * _hot_lift(col, zz, t_env)),
         "envelope_t_needed_per_1000ft_c": _per_1000ft(col, z, lambda zz: _t_needed(col, zz, need)),
+        "max_envelope_t_c": t_max,
+        "limit_gross_lift_kg": v * hot_air_lift_per_m3(rho, p, t_max, e),
+        "limit_payload_kg": limit_payload,
+        "envelope_t_needed_over_limit": t_need is None or t_need > t_max,
+        "limit_ceiling_msl_m": limit_ceiling,
+        "limit_ceiling_p_hpa": None if limit_ceiling is None else col.p_at(limit_ceiling),
+        "limit_ceiling_above_top": limit_above,
+        "oxygen_note": oxygen,
         "notes": (
-            "The maximum envelope temperature, %.0f degC, is the envelope maker's figure as"
-            " you set it; lapsecalc does not know your envelope." % t_max,
+            "Working figures: mean envelope air at %.0f degC (%s, %.0f K under the maximum)."
+            " The %.0f degC maximum is the maker's limit as you set it, read at the crown:"
+            " figures at it are the absolute limit, never a plan."
+            % (t_env, "set by you" if envelope_t_c is not None else "the default",
+               t_max - t_env, t_max),
+            "A crown reading is hotter than the mean: lapsecalc takes every working"
+            " temperature as the mean, so enter a crown reading less the margin, never as"
+            " it is.",
             "Envelope air is taken as the outside air heated at the same pressure with the"
             " same humidity; burner exhaust and heat losses are not modelled.",
             "Lift comes from the assumed lapse rate, not a sounding; the real air differs.",
@@ -312,17 +431,117 @@ def hot_air_report(col, volume_m3, weight_kg, max_envelope_t_c, envelope_t_c=Non
     }
 
 
-def gas_report(col, gas, purity, gas_volume_m3, envelope_m3, weight_kg, z_m=None):
+def field_column(col, t_c):
+    """The column col with the field temperature t_c degC (-60..60): the same field
+    pressure, elevation, ELR layers and top, the same dewpoint (capped at t_c), so the
+    same humidity rule aloft. The load table's columns; a Column, or None when this
+    ELR leaves no column above the field at t_c."""
+    from lapsecalc.column import Column
+    t = check("t_c", t_c, -60.0, 60.0, "degC (field temperature)")
+    spec = [(z1 - col.elev_m, -1000.0 * grad) for _, z1, _, grad, _ in col.layers]
+    try:
+        return Column(t, col.td_c if col.td_c < t else t, col.p_hpa, col.elev_m, spec, col.top_m)
+    except ValueError:
+        return None
+
+
+def _heights(col, heights_msl_m, step_m, depth_m):
+    if heights_msl_m is not None:
+        hs = [_z(col, z) for z in heights_msl_m]
+        if not hs or len(hs) > TABLE_MAX:
+            raise ValueError("heights_msl_m has %d heights; allowed 1..%d" % (len(hs), TABLE_MAX))
+        return hs
+    step = check("step_m", step_m, 50.0, 5000.0, "m")
+    end = col.elev_m + check("depth_m", depth_m, 1.0, 40000.0, "m")
+    if end > col.top_m:
+        end = col.top_m
+    hs = [col.elev_m]
+    z = (int(col.elev_m / step) + 1) * step
+    while z <= end and len(hs) < TABLE_MAX:
+        if z - col.elev_m > 1.0:
+            hs.append(z)
+        z += step
+    return hs
+
+
+def load_table(col, volume_m3, envelope_t_c, max_envelope_t_c=None, empty_kg=None,
+               temps_c=TABLE_TEMPS_C, heights_msl_m=None, step_m=TABLE_STEP_M,
+               depth_m=None):
+    """The greatest gross weight, kg, a hot-air balloon of volume_m3 (10..20000) lifts
+    at the working envelope temperature envelope_t_c (-90..150 degC; not above
+    max_envelope_t_c when that is given) over field temperatures and heights.
+
+    For each field temperature in temps_c (1..40 values, -60..60 degC) the column is
+    field_column(col, t): the same pressure at the field, ELR and dewpoint rule, the
+    air shifted warmer or colder. Heights: heights_msl_m (1..40, inside col), or the
+    field and every multiple of step_m MSL above it up to depth_m above the field (the
+    column top at most; default 3000 m, or the column top with empty_kg); with
+    empty_kg (1..20000, the balloon with fuel and crew but no payload) the rows end
+    where no field temperature lifts the empty weight any more.
+
+    Returns temps_c, heights_msl_m, gross_kg (one row per height, one value per
+    temperature; None where the column at that temperature ends below the height),
+    payload_kg (gross less empty_kg, same shape; None without empty_kg), volume_m3,
+    envelope_t_c, max_envelope_t_c, empty_kg, dewpoint_c, oxygen_note.
+    """
+    v = check("volume_m3", volume_m3, HOT_VOLUME_MIN_M3, HOT_VOLUME_MAX_M3, "m3")
+    if max_envelope_t_c is None:
+        t_env = check("envelope_t_c", envelope_t_c, -90.0, ENVELOPE_T_MAX_C, "degC")
+    else:
+        t_env = working_envelope_t(max_envelope_t_c, envelope_t_c)
+    empty = None
+    if empty_kg is not None:
+        empty = check("empty_kg", empty_kg, HOT_WEIGHT_MIN_KG, WEIGHT_MAX_KG, "kg")
+    temps = list(temps_c)
+    if not temps or len(temps) > TABLE_MAX:
+        raise ValueError("temps_c has %d temperatures; allowed 1..%d" % (len(temps), TABLE_MAX))
+    temps = [check("t_c", t, -60.0, 60.0, "degC (field temperature)") for t in temps]
+    cols = [field_column(col, t) for t in temps]
+    if depth_m is None:
+        depth_m = TABLE_DEPTH_M if empty is None else col.top_m - col.elev_m
+    hs = _heights(col, heights_msl_m, step_m, depth_m)
+    gross = []
+    for z in hs:
+        row = []
+        for c in cols:
+            row.append(None if c is None or z > c.top_m else v * _hot_lift(c, z, t_env))
+        gross.append(row)
+    payload = None
+    if empty is not None:
+        if heights_msl_m is None:
+            while len(gross) > 1 and all(g is None or g < empty for g in gross[-1]):
+                gross.pop()
+                hs.pop()
+        payload = [[None if g is None else g - empty for g in row] for row in gross]
+    return {
+        "temps_c": temps,
+        "heights_msl_m": hs,
+        "gross_kg": gross,
+        "payload_kg": payload,
+        "volume_m3": v,
+        "envelope_t_c": t_env,
+        "max_envelope_t_c": max_envelope_t_c,
+        "empty_kg": empty,
+        "dewpoint_c": col.td_c,
+        "oxygen_note": oxygen_note(col, (("table's top row", hs[-1]),)),
+    }
+
+
+def gas_report(col, gas, purity, gas_volume_m3, envelope_m3, weight_kg, z_m=None,
+               superheat_k=0.0):
     """Zero-pressure gas balloon in the column col (a Column): a dict of plain values.
 
     gas "helium" or "hydrogen"; purity 0.5..1 (volume fraction, the rest air);
     gas_volume_m3 0.1..100000, the gas volume at the field at launch (not more than
     the envelope); envelope_m3 0.1..2e6, the full envelope; weight_kg 0.01..20000,
-    everything that flies except the gas, ballast included; z_m MSL (default field).
+    everything that flies except the gas, ballast included; z_m MSL (default field);
+    superheat_k 0..50 K, the gas warmer than the air (sun on the envelope), taken the
+    same at every height.
 
-    The gas is at the ambient pressure and temperature; below the full height all of
-    it is aboard and its volume grows as T/p; above, the envelope stays full and the
-    excess vents (the balloon is assumed to have climbed straight from the field).
+    The gas is at the ambient pressure and the ambient temperature plus superheat_k;
+    below the full height all of it is aboard and its volume grows as T/p; above, the
+    envelope stays full and the excess vents (the balloon is assumed to have climbed
+    straight from the field).
 
     Keys: z_msl_m, ambient_t_c, ambient_p_hpa, ambient_density_kg_m3, gas, purity,
     gas_density_kg_m3, lift_per_m3_kg (at z), gas_volume_at_z_m3, full_at_z (bool),
@@ -333,7 +552,11 @@ def gas_report(col, gas, purity, gas_volume_m3, envelope_m3, weight_kg, z_m=None
     cannot take off or it is above the column top), float_above_top (bool),
     ballast_to_hold_kg (ballast to drop at z to stop sinking there: weight less gross
     lift, 0 when the free lift is positive; then free_lift_kg is the lift to spend,
-    by valving gas, to hold z), gross_lift_per_1000ft_kg, notes, warnings.
+    by valving gas, to hold z), gross_lift_per_1000ft_kg, superheat_k, gas_t_c,
+    superheat_lift_kg (gross lift at z gained by the superheat over the same balloon
+    without it), ballast_superheat_lost_kg (ballast to drop at z to hold level when
+    the superheat goes: superheat_loss_kg of the gas aboard; more than the lift gained
+    once gas vented while warm), notes, warnings.
     """
     m_gas = molar_mass(gas)
     f = check("purity", purity, PURITY_MIN, 1.0, "(volume fraction of the gas; the rest air)")
@@ -341,24 +564,25 @@ def gas_report(col, gas, purity, gas_volume_m3, envelope_m3, weight_kg, z_m=None
     v0 = check("gas_volume_m3", gas_volume_m3, GAS_VOLUME_MIN_M3, min(v_env, GAS_VOLUME_MAX_M3),
                "m3 (not more than envelope_m3)")
     w = check("weight_kg", weight_kg, GAS_WEIGHT_MIN_KG, WEIGHT_MAX_KG, "kg")
+    dt = check("superheat_k", superheat_k, 0.0, SUPERHEAT_MAX_K, "K")
     z = _z(col, z_m)
     p0, t0 = col.p_hpa, col.t_c
 
-    def volume(zz):
-        return gas_volume_at(v0, p0, t0, col.p_at(zz), col.t_at(zz))
+    def volume(zz, heat=dt):
+        return gas_volume_at(v0, p0, t0, col.p_at(zz), col.t_at(zz) + heat)
 
-    def lift_m3(zz):
+    def lift_m3(zz, heat=dt):
         pp, tt, _, rr = _air(col, zz)
-        return gas_lift_per_m3(rr, pp, tt, gas, f)
+        return gas_lift_per_m3(rr, pp, tt, gas, f, heat)
 
-    def gross(zz):
-        return min(volume(zz), v_env) * lift_m3(zz)
+    def gross(zz, heat=dt):
+        return min(volume(zz, heat), v_env) * lift_m3(zz, heat)
 
     p, t_air, _, rho = _air(col, z)
     v_z = volume(z)
     g_z = gross(z)
     lift_off = gross(col.elev_m) >= w
-    if v0 >= v_env:
+    if volume(col.elev_m) >= v_env:
         full = col.elev_m
     else:
         full = first_drop(col, lambda zz: v_env - volume(zz), col.elev_m)
@@ -376,13 +600,18 @@ def gas_report(col, gas, purity, gas_volume_m3, envelope_m3, weight_kg, z_m=None
     if full is None:
         warnings.append("The envelope is not full below the column top (%.0f m MSL)." % col.top_m)
     notes = [
-        "The gas is taken at the outside temperature and pressure (no warming in sunshine,"
-        " no cooling at night); its impurity is dry air.",
+        "The gas is taken at the outside pressure and at the outside temperature plus the"
+        " superheat you set (%.1f K), the same at every height; its impurity is dry air."
+        % dt,
         "Zero-pressure envelope: below the full height all the gas is aboard and the lift"
         " hardly changes; above it gas vents and the lift falls with the air density.",
         "ballast_to_hold_kg is the ballast to drop at this height to stop sinking there;"
         " with free lift, valve gas instead.",
     ]
+    if dt > 0.0:
+        notes.append("When the superheat goes (sunset, cloud shadow) the lift falls by"
+                     " ballast_superheat_lost_kg: drop that to hold level. Gas vented while"
+                     " warm makes it more than the lift the superheat gave.")
     if gas == "hydrogen":
         notes.append("Hydrogen burns in air: handle it under the rules that apply to it.")
     return {
@@ -396,7 +625,7 @@ def gas_report(col, gas, purity, gas_volume_m3, envelope_m3, weight_kg, z_m=None
         "gas_volume_m3": v0,
         "envelope_m3": v_env,
         "weight_kg": w,
-        "gas_density_kg_m3": gas_density(p, t_air, gas, f),
+        "gas_density_kg_m3": gas_density(p, t_air, gas, f, dt),
         "lift_per_m3_kg": lift_m3(z),
         "gas_volume_at_z_m3": v_z if v_z < v_env else v_env,
         "full_at_z": full is not None and z >= full,
@@ -409,6 +638,10 @@ def gas_report(col, gas, purity, gas_volume_m3, envelope_m3, weight_kg, z_m=None
         "float_above_top": flt_above,
         "ballast_to_hold_kg": w - g_z if w > g_z else 0.0,
         "gross_lift_per_1000ft_kg": _per_1000ft(col, z, gross),
+        "superheat_k": dt,
+        "gas_t_c": t_air + dt,
+        "superheat_lift_kg": g_z - gross(z, 0.0),
+        "ballast_superheat_lost_kg": superheat_loss_kg(rho, t_air, min(v_z, v_env), dt),
         "notes": tuple(notes),
         "warnings": tuple(warnings),
     }

@@ -34,9 +34,11 @@ def emit(s, keys, values, balloon=False):
         if notes:
             obj["assumed"] = notes
         return [s.json.dumps(obj)]
-    from lapsecalc.layout import text_lines
+    from lapsecalc.layout import text_lines, HEADINGS
     out = ["assumed " + n for n in notes]
     for k in keys:
+        if balloon and k in HEADINGS:
+            out.append(HEADINGS[k])
         out.extend(text_lines(s, k, values[k]))
     return out
 

@@ -7,7 +7,8 @@ from hypothesis import assume, given, strategies as st
 from lapsecalc.column import Column
 from lapsecalc.balloon import (hot_air_lift_per_m3, envelope_t_for_lift, gas_density,
                                gas_lift_per_m3, gas_volume_at, molar_mass, hot_air_report,
-                               gas_report)
+                               gas_report, load_table, working_envelope_t, superheat_loss_kg,
+                               DEFAULT_MARGIN_K)
 from refs import bisect
 
 # Constants of the independent computations below (ICAO Doc 7488/3 unless marked).
@@ -55,9 +56,16 @@ def test_hot_air_100c_in_isa_sea_level():
     lift = hot_air_lift_per_m3(1.2250, 1013.25, 100.0)
     assert abs(lift - 0.28) < 0.005
     assert abs(lift - (1.2250 - 101325.0 / (R_DRY * 373.15))) < 1e-9
-    r = hot_air_report(dry_isa_column(), 1000.0, 100.0, 100.0)
+    # The working (mean) temperature, 100 degC, is the default for a 120 degC maximum
+    # (20 K margin, common practice): the same figure at the working temperature.
+    r = hot_air_report(dry_isa_column(), 1000.0, 100.0, 120.0)
+    assert r["envelope_t_c"] == 100.0 and not r["envelope_t_set"] and r["margin_k"] == 20.0
     assert abs(r["gross_lift_kg"] - 279.04) < 0.05
     assert abs(r["free_lift_kg"] - 179.04) < 0.05
+    assert abs(r["payload_kg"] - 179.04) < 0.05
+    # At the 120 degC limit: 1.2250 - 101325 / (287.05287 * 393.15) = 0.32718 kg/m3.
+    assert abs(r["limit_gross_lift_kg"] - 1000.0 * (1.2250 - 101325.0 / (R_DRY * 393.15))) < 0.05
+    assert abs(r["limit_payload_kg"] - (r["limit_gross_lift_kg"] - 100.0)) < 1e-9
 
 
 def test_helium_lifts_a_little_over_1_kg_per_m3():
@@ -213,34 +221,51 @@ def test_hot_air_lift_rises_with_envelope_temperature(cs, a, d1, d2):
     t_air = col.t_at(z)
     t1, t2 = t_air + min(d1, d2), t_air + max(d1, d2)
     assume(t2 - t1 > 0.01 and t2 <= 150.0)
-    r1 = hot_air_report(col, 2500.0, 300.0, 120.0, t1, z)
-    r2 = hot_air_report(col, 2500.0, 300.0, 120.0, t2, z)
+    r1 = hot_air_report(col, 2500.0, 300.0, 150.0, t1, z)
+    r2 = hot_air_report(col, 2500.0, 300.0, 150.0, t2, z)
     assert r2["gross_lift_kg"] > r1["gross_lift_kg"]
 
 
-@given(columns(), st.floats(500.0, 20000.0), st.floats(0.05, 0.4), st.floats(50.0, 150.0))
-def test_ceiling_is_where_lift_equals_weight(cs, volume, load, t_max):
-    col, _ = cs
-    w = volume * load
-    r = hot_air_report(col, volume, w, t_max)
-    field = volume * hot_lift_m3(col, col.elev_m, t_max) - w
-    assert abs(r["max_payload_kg"] - field) < 1e-6 * w
+def check_ceiling(col, volume, w, t_env, payload, c, above):
+    # The ceiling at t_env: where lift equals weight within 1 kg (issue 6), and the
+    # lowest such height (an independent 25 m scan stays above the weight).
+    field = volume * hot_lift_m3(col, col.elev_m, t_env) - w
+    assert abs(payload - field) < 1e-6 * w
     if field < 0.0:
-        assert r["ceiling_msl_m"] is None and not r["ceiling_above_top"]
-        assert r["warnings"]
+        assert c is None and not above
         return
-    c = r["ceiling_msl_m"]
     end = col.top_m if c is None else c
-    assert r["ceiling_above_top"] == (c is None)
+    assert above == (c is None)
     if c is not None:
-        # The ceiling is where lift equals weight within 1 kg (issue 6).
-        assert abs(volume * hot_lift_m3(col, c, t_max) - w) < ONE_KG
-        assert abs(r["ceiling_p_hpa"] - col.p_at(c)) < 1e-9
-    # ... and the lowest such height: an independent 25 m scan stays above the weight.
+        assert abs(volume * hot_lift_m3(col, c, t_env) - w) < ONE_KG
     n = int((end - col.elev_m) / 25.0)
     for i in range(n + 1):
         z = col.elev_m + (end - col.elev_m) * i / max(n, 1)
-        assert volume * hot_lift_m3(col, z, t_max) > w - ONE_KG
+        assert volume * hot_lift_m3(col, z, t_env) > w - ONE_KG
+
+
+@given(columns(), st.floats(500.0, 20000.0), st.floats(0.05, 0.4), st.floats(70.0, 150.0),
+       st.floats(0.0, 60.0))
+def test_ceiling_is_where_lift_equals_weight(cs, volume, load, t_max, margin):
+    # Both ceilings: at the working temperature (the maximum less the margin) and at
+    # the maximum (the absolute limit), each against the ideal-gas lift of the test.
+    col, _ = cs
+    w = volume * load
+    assume(t_max - margin > col.t_c + 1.0)
+    r = hot_air_report(col, volume, w, t_max, None, None, margin)
+    assert abs(r["envelope_t_c"] - (t_max - margin)) < 1e-9
+    check_ceiling(col, volume, w, t_max - margin, r["payload_kg"], r["ceiling_msl_m"],
+                  r["ceiling_above_top"])
+    check_ceiling(col, volume, w, t_max, r["limit_payload_kg"], r["limit_ceiling_msl_m"],
+                  r["limit_ceiling_above_top"])
+    if r["payload_kg"] < 0.0:
+        assert any(s.startswith("Too heavy") for s in r["warnings"])
+    for c, p in ((r["ceiling_msl_m"], r["ceiling_p_hpa"]),
+                 (r["limit_ceiling_msl_m"], r["limit_ceiling_p_hpa"])):
+        assert (p is None) if c is None else abs(p - col.p_at(c)) < 1e-9
+    # The limit is never below the working ceiling (more lift at a hotter envelope).
+    if r["ceiling_msl_m"] is not None and r["limit_ceiling_msl_m"] is not None:
+        assert r["limit_ceiling_msl_m"] >= r["ceiling_msl_m"] - ONE_M
 
 
 @given(columns(), st.floats(0.0, 1.0), st.floats(500.0, 20000.0), st.floats(0.02, 0.6))
@@ -248,7 +273,7 @@ def test_needed_temperature_round_trip(cs, a, volume, load):
     col, _ = cs
     z = col.elev_m + a * (col.top_m - col.elev_m)
     w = volume * load
-    r = hot_air_report(col, volume, w, 120.0, None, z)
+    r = hot_air_report(col, volume, w, 120.0, None, z, 0.0)
     t_need = r["envelope_t_needed_c"]
     if t_need is None:
         assert w >= volume * moist_density(col, z)
@@ -258,7 +283,7 @@ def test_needed_temperature_round_trip(cs, a, volume, load):
     assert r["envelope_t_needed_over_limit"] == (t_need > 120.0)
     # The over-limit warning (others, e.g. too heavy at the field, may stand too).
     assert any(s.startswith("Floating") for s in r["warnings"]) == (t_need > 120.0)
-    if t_need <= 150.0:
+    if t_need <= 120.0:
         r2 = hot_air_report(col, volume, w, 120.0, t_need, z)
         assert abs(r2["gross_lift_kg"] - w) < 1e-6 * w
         assert abs(r2["free_lift_kg"]) < 1e-6 * w
@@ -320,16 +345,24 @@ def test_hot_air_notes_and_limit_warnings():
     assert any("maker" in s and "100 degC" in s for s in r["notes"])
     assert r["envelope_t_needed_c"] > 100.0 and r["envelope_t_needed_over_limit"]
     assert any("above the maximum envelope temperature" in s for s in r["warnings"])
-    r = hot_air_report(col, 2000.0, 300.0, 100.0, 130.0)
-    assert not r["envelope_t_needed_over_limit"]
-    assert any("asked for" in s for s in r["warnings"])
-    # Too heavy at the maximum envelope temperature: no ceiling, a warning.
+    r = hot_air_report(col, 2000.0, 300.0, 100.0, 90.0)
+    assert not r["envelope_t_needed_over_limit"] and not r["envelope_t_needed_over_working"]
+    # Between the working temperature and the maximum: over working, not over limit.
+    r = hot_air_report(col, 2000.0, 500.0, 120.0, 80.0)
+    assert 80.0 < r["envelope_t_needed_c"] < 120.0
+    assert r["envelope_t_needed_over_working"] and not r["envelope_t_needed_over_limit"]
+    assert any("above the working temperature" in s for s in r["warnings"])
+    # Margin 0: the working temperature is the limit, and the report says so.
+    r = hot_air_report(col, 2000.0, 300.0, 100.0, None, None, 0.0)
+    assert r["envelope_t_c"] == 100.0 and any("no margin" in s for s in r["warnings"])
+    # Too heavy at the working envelope temperature: no ceiling, a warning.
     r = hot_air_report(col, 500.0, 400.0, 100.0)
-    assert r["max_payload_kg"] < 0.0 and r["ceiling_msl_m"] is None
+    assert r["payload_kg"] < 0.0 and r["ceiling_msl_m"] is None
     assert not r["ceiling_above_top"] and r["warnings"]
     # Light enough to rise past the column top.
     r = hot_air_report(dry_isa_column(1500.0), 3000.0, 100.0, 120.0)
     assert r["ceiling_msl_m"] is None and r["ceiling_above_top"]
+    assert r["limit_ceiling_msl_m"] is None and r["limit_ceiling_above_top"]
 
 
 def test_gas_heavier_than_lift_needs_ballast():
@@ -395,3 +428,253 @@ def test_plain_formula_bad_input():
         with pytest.raises(ValueError) as err:
             call()
         assert str(err.value).startswith(name + "=")
+
+
+# ---- working temperature, load table, oxygen, superheat ------------------------------
+
+@given(st.floats(50.0, 150.0))
+def test_default_working_temperature_is_below_the_maximum(t_max):
+    # The maximum is a crown limit; the mean envelope air runs below it (common
+    # practice), so the default working temperature is strictly below the maximum.
+    t = working_envelope_t(t_max)
+    assert t < t_max and abs(t_max - t - DEFAULT_MARGIN_K) < 1e-9
+    assert DEFAULT_MARGIN_K >= 10.0  # a margin a crew would notice, not a rounding
+    assert working_envelope_t(t_max, None, 5.0) == t_max - 5.0
+    assert working_envelope_t(t_max, t_max - 1.0) == t_max - 1.0
+
+
+def test_working_temperature_above_the_maximum_is_refused():
+    for call in (lambda: working_envelope_t(120.0, 130.0),
+                 lambda: hot_air_report(dry_isa_column(), 2800.0, 450.0, 120.0, 130.0),
+                 lambda: load_table(dry_isa_column(), 2800.0, 130.0, 120.0)):
+        with pytest.raises(ValueError) as err:
+            call()
+        msg = str(err.value)
+        assert "envelope_t_c=130" in msg and "max_envelope_t_c=120" in msg
+    # Equal to the maximum is allowed (the limit itself), a hair above is not.
+    assert working_envelope_t(120.0, 120.0) == 120.0
+    with pytest.raises(ValueError):
+        working_envelope_t(120.0, 120.001)
+    with pytest.raises(ValueError) as err:
+        working_envelope_t(120.0, None, 61.0)
+    assert str(err.value).startswith("margin_k=")
+    with pytest.raises(ValueError):
+        working_envelope_t(120.0, None, -1.0)
+
+
+def test_issue_example_working_against_limit():
+    # 2800 m3, 700 kg, 120 degC maximum in the ISA at sea level (ICAO Doc 7488/3, dry):
+    # lift per m3 = p / R (1/T - 1/Te) (ideal gas, computed here). At the 100 degC
+    # working temperature the gross lift is 2800 * 101325 / 287.05287 * (1/373.15 -
+    # 1/393.15) = 134.7 kg less than at the 120 degC limit.
+    col = dry_isa_column()
+    r = hot_air_report(col, 2800.0, 700.0, 120.0)
+    gross = 2800.0 * 101325.0 / R_DRY * (1.0 / 288.15 - 1.0 / 373.15)
+    limit = 2800.0 * 101325.0 / R_DRY * (1.0 / 288.15 - 1.0 / 393.15)
+    assert abs(r["gross_lift_kg"] - gross) < 0.05
+    assert abs(r["limit_gross_lift_kg"] - limit) < 0.05
+    assert abs((limit - gross) - 134.7) < 0.1
+    assert r["ceiling_msl_m"] < r["limit_ceiling_msl_m"]
+    assert any("absolute limit" in n for n in r["notes"])
+    assert any("crown" in n for n in r["notes"])
+
+
+def field_col(col, spec, t):
+    # Independent of balloon.field_column: the column rebuilt from the test's own ELR
+    # spec with the field temperature t, the same station pressure, and the dewpoint
+    # kept (capped at t).
+    try:
+        return Column(t, min(col.td_c, t), col.p_hpa, col.elev_m, spec, col.top_m)
+    except ValueError:
+        return None
+
+
+@given(columns(), st.lists(st.floats(-30.0, 45.0), min_size=1, max_size=6),
+       st.floats(60.0, 150.0), st.floats(100.0, 1500.0))
+def test_load_table_cells_equal_direct_lift(cs, temps, t_env, step):
+    # Every cell is the lift computed directly (ideal gas with the virtual
+    # temperature, Wallace & Hobbs eq. 3.60, in the test's own column at that field
+    # temperature) times the volume.
+    col, spec = cs
+    tab = load_table(col, 2800.0, t_env, None, None, temps, None, step)
+    assert tab["temps_c"] == temps
+    hs = tab["heights_msl_m"]
+    assert hs[0] == col.elev_m and hs[-1] <= min(col.top_m, col.elev_m + 3000.0)
+    assert all(b > a for a, b in zip(hs, hs[1:]))
+    assert len(tab["gross_kg"]) == len(hs)
+    for z, row in zip(hs, tab["gross_kg"]):
+        assert len(row) == len(temps)
+        for t, g in zip(temps, row):
+            c = field_col(col, spec, t)
+            if c is None or z > c.top_m:
+                assert g is None
+                continue
+            assert abs(g - 2800.0 * hot_lift_m3(c, z, t_env)) < 1e-6 * 2800.0
+    # The column's own field temperature gives the report's own lift.
+    tab = load_table(col, 2800.0, t_env, None, None, [col.t_c], [col.elev_m])
+    assert abs(tab["gross_kg"][0][0] - 2800.0 * hot_lift_m3(col, col.elev_m, t_env)) < 1e-6
+
+
+@given(columns(), st.floats(-30.0, 40.0), st.floats(0.5, 10.0), st.floats(0.0, 1.0),
+       st.floats(60.0, 150.0))
+def test_load_table_falls_with_warmer_field(cs, t, dt, a, t_env):
+    # Warmer field air at a fixed envelope temperature: lift = p/R (1/T - 1/Te) at a
+    # height dz above the field, with p(z) from the shifted column. d ln(lift)/dT0 =
+    # (1/T)(g dz/(R T0) - 1 - T/(Te - T)) (hydrostatic equation, ideal gas; derived
+    # here): negative when dz < R T0 / g (8 km and more), which every row below 5 km
+    # above the field meets. The humidity rule keeps the dewpoint, so the sign holds
+    # for moist columns too (vapour shifts the magnitude, not the sign, at 1 K and up).
+    col, spec = cs
+    z = col.elev_m + a * min(5000.0, col.top_m - col.elev_m)
+    tab = load_table(col, 2800.0, t_env, None, None, [t, t + dt], [z])
+    g1, g2 = tab["gross_kg"][0]
+    assume(g1 is not None and g2 is not None)
+    assume(field_col(col, spec, t).t_at(z) + K + 5.0 < t_env + K)
+    assert g2 < g1
+
+
+@given(columns(), st.floats(-20.0, 40.0), st.floats(60.0, 150.0), st.floats(100.0, 1000.0))
+def test_load_table_with_height_follows_the_sign_rule(cs, t, t_env, step):
+    # With height, the rule this project found for hot envelopes (see
+    # test_hot_air_lift_with_height_follows_the_sign_rule): lift falls where
+    # G Te / (Te - T) < g/R in every layer between two rows, and rises where it
+    # exceeds g/R in all of them. Pairs within 20 % of the boundary are skipped.
+    col, spec = cs
+    tab = load_table(col, 2800.0, t_env, None, None, [t], None, step)
+    c = field_col(col, spec, t)
+    te = t_env + K
+    hs = tab["heights_msl_m"]
+    for i in range(len(hs) - 1):
+        g1, g2 = tab["gross_kg"][i][0], tab["gross_kg"][i + 1][0]
+        if g1 is None or g2 is None:
+            continue
+        signs = []
+        for z0, z1, _, grad, _ in c.layers:
+            lo, hi = max(z0, hs[i]), min(z1, hs[i + 1])
+            if hi <= lo:
+                continue
+            for zz in (lo, hi):
+                ta = c.t_at(zz) + K
+                crit = (-grad * te / (te - ta) - G0 / R_DRY) if te - ta > 5.0 else None
+                signs.append(None if crit is None or abs(crit) < 0.2 * G0 / R_DRY
+                             else crit < 0.0)
+        if signs and all(x is True for x in signs):
+            assert g2 < g1
+        elif signs and all(x is False for x in signs):
+            assert g2 > g1
+
+
+def test_load_table_rows_and_payload():
+    # Steep 9.8 K/km-free ISA column (ICAO Doc 7488/3); payload = gross - empty weight
+    # in every cell, and the rows run from the field to the last height where some
+    # field temperature still lifts the empty balloon.
+    col = Column(15.0, 5.0, 1013.25, 300.0, 6.5, 11000.0)
+    tab = load_table(col, 2800.0, 100.0, 120.0, 500.0)
+    assert tab["heights_msl_m"][:3] == [300.0, 500.0, 1000.0]
+    for grow, prow in zip(tab["gross_kg"], tab["payload_kg"]):
+        for g, p in zip(grow, prow):
+            assert abs(p - (g - 500.0)) < 1e-9
+    assert any(p >= 0.0 for p in tab["payload_kg"][-1])
+    nxt = tab["heights_msl_m"][-1] + 500.0
+    beyond = load_table(col, 2800.0, 100.0, 120.0, 500.0, TEMPS, [nxt])["payload_kg"][0]
+    assert all(p < 0.0 for p in beyond)
+    # Colder air lifts more: the -10 degC column is the first to reach the top row.
+    assert tab["payload_kg"][-1][0] == max(tab["payload_kg"][-1])
+    # No empty weight: no payload, 3000 m of rows by default.
+    tab = load_table(col, 2800.0, 100.0)
+    assert tab["payload_kg"] is None and tab["heights_msl_m"][-1] == 3000.0
+    with pytest.raises(ValueError) as err:
+        load_table(col, 2800.0, 100.0, None, None, [])
+    assert str(err.value).startswith("temps_c")
+    with pytest.raises(ValueError) as err:
+        load_table(col, 2800.0, 100.0, None, None, [70.0])
+    assert str(err.value).startswith("t_c=70")
+
+
+TEMPS = (-10.0, 0.0, 10.0, 20.0, 30.0, 40.0)
+
+
+def test_oxygen_note_at_the_common_heights():
+    # Supplemental oxygen is commonly required above 10000 ft pressure altitude for
+    # more than 30 min and above 13000 ft at all times (common practice). In the ISA
+    # (ICAO Doc 7488/3) pressure altitude equals the height: 3000 m = 9843 ft (no
+    # note), 3100 m = 10171 ft, 4000 m = 13123 ft.
+    col = dry_isa_column()
+    heavy = 2000.0  # 2800 m3 at 100 degC cannot lift 2000 kg: no ceiling to pass
+    r = hot_air_report(col, 2800.0, heavy, 120.0, None, 3000.0)
+    assert r["oxygen_note"] is None
+    r = hot_air_report(col, 2800.0, heavy, 120.0, None, 3100.0)
+    assert "passes 10000 ft" in r["oxygen_note"] and "13000 ft always" in r["oxygen_note"]
+    assert "local regulations" in r["oxygen_note"] and r["oxygen_note"] in r["warnings"]
+    assert "10171 ft" in r["oxygen_note"]
+    r = hot_air_report(col, 2800.0, heavy, 120.0, None, 4000.0)
+    assert "passes 13000 ft" in r["oxygen_note"]
+    # A light balloon's ceiling passes the heights even from the field.
+    r = hot_air_report(col, 2800.0, 500.0, 120.0)
+    assert r["ceiling_msl_m"] > 3962.4 and "ceiling" in r["oxygen_note"]
+    assert load_table(col, 2800.0, 100.0, None, None, TEMPS, [0.0, 3000.0])["oxygen_note"] is None
+    assert load_table(col, 2800.0, 100.0, None, None, TEMPS, [0.0, 3200.0])["oxygen_note"]
+
+
+def superheat_gross(col, v0, v_env, z, dt, m_gas, purity):
+    # Ideal gas, written here: the gas filled v0 at the field at the air temperature;
+    # at z it is at p(z) and T(z) + dt, so V = v0 (p0 / p) (T + dt) / T0 until the
+    # envelope is full; lift = V (rho_air - p M / (R* (T + dt))), R* = 8314.32.
+    p, t = col.p_at(z), col.t_at(z) + K
+    v = min(v0 * col.p_hpa / p * (t + dt) / (col.t_c + K), v_env)
+    m = purity * m_gas + (1.0 - purity) * M_AIR
+    rho_gas = 100.0 * p * m / (R_DRY * M_AIR * (t + dt))
+    return v, v * (moist_density(col, z) - rho_gas), v * rho_gas
+
+
+@given(columns(), st.floats(0.05, 1.0), st.floats(0.0, 1.0), st.floats(0.0, 50.0),
+       st.sampled_from(("helium", "hydrogen")), st.floats(0.5, 1.0))
+def test_superheat_against_the_ideal_gas_law(cs, fill, a, dt, gas, purity):
+    col, _ = cs
+    z = col.elev_m + a * (col.top_m - col.elev_m)
+    v_env = 3000.0
+    r = gas_report(col, gas, purity, fill * v_env, v_env, 200.0, z, dt)
+    m_gas = M_HE if gas == "helium" else M_H2
+    v, lift, mass = superheat_gross(col, fill * v_env, v_env, z, dt, m_gas, purity)
+    _, lift0, _ = superheat_gross(col, fill * v_env, v_env, z, 0.0, m_gas, purity)
+    assert abs(r["gross_lift_kg"] - lift) < 0.01
+    assert abs(r["superheat_lift_kg"] - (lift - lift0)) < 0.01
+    assert r["superheat_k"] == dt and abs(r["gas_t_c"] - col.t_at(z) - dt) < 1e-9
+    # Sunset: the same gas mass cooled to the air at the same pressure displaces
+    # mass / rho_gas(T) of air; the lift lost is the ballast to hold level.
+    p, t = col.p_at(z), col.t_at(z) + K
+    m = purity * m_gas + (1.0 - purity) * M_AIR
+    v_cool = mass / (100.0 * p * m / (R_DRY * M_AIR * t))
+    lost = lift - (v_cool * moist_density(col, z) - mass)
+    assert abs(r["ballast_superheat_lost_kg"] - lost) < 0.01
+    if not r["full_at_z"]:
+        # Slack envelope: nothing vented, so the ballast equals the lift gained.
+        assert abs(r["ballast_superheat_lost_kg"] - r["superheat_lift_kg"]) < 0.01
+    else:
+        # Gas vented while warm: the cooling costs more than the sun gave.
+        assert r["ballast_superheat_lost_kg"] >= r["superheat_lift_kg"] - 1e-9
+
+
+def test_superheat_worked_example():
+    # 1000 m3 of helium in the ISA at sea level (ICAO Doc 7488/3, dry), 15 K superheat,
+    # envelope large enough to stay slack: the gas expands by 303.15/288.15, so the
+    # lift gained is rho V dT / T = 1.2250 * 1000 * 15 / 288.15 = 63.77 kg, and the
+    # ballast at sunset equals it (ideal gas, computed here).
+    col = dry_isa_column()
+    r = gas_report(col, "helium", 1.0, 1000.0, 2000.0, 500.0, None, 15.0)
+    assert abs(r["superheat_lift_kg"] - 63.77) < 0.02
+    assert abs(r["ballast_superheat_lost_kg"] - 63.77) < 0.02
+    assert abs(superheat_loss_kg(1.2250, 15.0, 1000.0 * 303.15 / 288.15, 15.0) - 63.77) < 0.02
+    assert gas_report(col, "helium", 1.0, 1000.0, 2000.0, 500.0)["ballast_superheat_lost_kg"] == 0.0
+    # The superheat lowers the pressure height: full where V0 (p0/p)(T+15)/T0 = Venv.
+    r0 = gas_report(col, "helium", 1.0, 1000.0, 2000.0, 500.0)
+    assert r["full_msl_m"] < r0["full_msl_m"]
+    z = r["full_msl_m"]
+    v = 1000.0 * 1013.25 / col.p_at(z) * (col.t_at(z) + K + 15.0) / 288.15
+    assert abs(v - 2000.0) < 0.1
+    # Full at launch once the superheat swells a tight fill past the envelope.
+    assert gas_report(col, "helium", 1.0, 1000.0, 1040.0, 500.0, None, 15.0)["full_msl_m"] == 0.0
+    assert gas_report(col, "helium", 1.0, 1000.0, 1040.0, 500.0)["full_msl_m"] > 0.0
+    with pytest.raises(ValueError) as err:
+        gas_report(col, "helium", 1.0, 1000.0, 2000.0, 500.0, None, 51.0)
+    assert str(err.value).startswith("superheat_k=")

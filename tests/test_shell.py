@@ -412,7 +412,14 @@ def test_balloon_text():
                                                   hot["gross_lift_kg"] / 0.45359237)) in got
     assert L("ceiling", H(hot["ceiling_msl_m"])) in got
     assert L("temp to float", T(hot["envelope_t_needed_c"])) in got
-    assert any(line.startswith("- The maximum envelope temperature") for line in got)
+    assert any(line.startswith("- Working figures: mean envelope") for line in got)
+    # Working-temperature figures first, then the absolute limit, each labelled.
+    work = got.index("-- working temp (mean envelope air)")
+    limit = got.index("-- absolute limit: never plan on it")
+    assert work < got.index(L("working temp", T(100.0))) < limit
+    assert limit < got.index(L("LIMIT temp", T(120.0)))
+    assert limit < got.index(L("LIMIT ceiling", H(hot["limit_ceiling_msl_m"])))
+    assert work < got.index(L("ceiling", H(hot["ceiling_msl_m"]))) < limit
     run(s, [("gas h2 fill 6m3", ["ok: gas hydrogen, fill 6 m3"])])
     gas = balloon.gas_report(col, "hydrogen", 1.0, 6.0, 2800.0, 450.0, 411.48 + 609.6)
     got = s.feed("bal 2000ft agl")

@@ -242,6 +242,10 @@ def check_balloon():
     put("balloon.hot_z", balloon.hot_air_report(col, 2200.0, 380.0, 110.0, 95.0, 1500.0))
     put("balloon.gas", balloon.gas_report(col, "helium", 0.98, 12.0, 40.0, 5.0))
     put("balloon.h2", balloon.gas_report(col, "hydrogen", 1.0, 3.0, 900.0, 1.2))
+    put("balloon.sun", balloon.gas_report(col, "helium", 1.0, 600.0, 1000.0, 300.0, 900.0, 12.0))
+    put("balloon.margin", balloon.hot_air_report(col, 2800.0, 450.0, 120.0, None, None, 30.0))
+    put("balloon.table", balloon.load_table(col, 2800.0, 100.0, 120.0, 420.0))
+    refused("balloon.over_max", balloon.working_envelope_t, 120.0, 130.0)
 
 
 def session_lines():

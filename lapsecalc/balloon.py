@@ -22,9 +22,10 @@
 #     a volume (mole) fraction. The fill is the gas volume at the field at the
 #     ambient temperature (before any superheat).
 from math import isfinite
-from lapsecalc.constants import R_DRY, T0_K
+from lapsecalc.constants import R_DRY, T0_K, EPS
 from lapsecalc.limits import check, check_p
 from lapsecalc.standard import _density, pressure_altitude
+from lapsecalc.moisture import _es_water
 
 # Molar masses, g/mol (= kg/kmol).
 M_AIR_G_MOL = 28.9644       # dry air, ICAO Doc 7488/3
@@ -72,12 +73,6 @@ SUPERHEAT_MAX_K = 50.0
 # must check the rules that apply. Pressure altitude, m (exact from ft).
 OXYGEN_LONG_M = 3048.0
 OXYGEN_ALWAYS_M = 3962.4
-# The load table: default field temperatures, degC, and row spacing, m; at most
-# TABLE_MAX rows or columns (a 40-column screen shows six temperatures).
-TABLE_TEMPS_C = (-10.0, 0.0, 10.0, 20.0, 30.0, 40.0)
-TABLE_STEP_M = 500.0
-TABLE_DEPTH_M = 3000.0
-TABLE_MAX = 40
 # Purity of the lifting gas, volume fraction; below one half it is mostly air.
 PURITY_MIN = 0.5
 # Densities the plain formulas accept, kg/m3 (ISA at 32 km is 0.0132; -90 degC air at
@@ -188,8 +183,8 @@ def first_drop(col, f, z_from_m):
     to zero, or None when f stays at or above zero up to the column top.
 
     Scans the column in steps of at most 500 m that also end at every ELR layer top,
-    then bisects the first step whose top has f < 0 until the bracket is under 0.1 m
-    (at most 40 steps; ValueError if not). Sound when f has no minimum inside a step:
+    then narrows the first step whose top has f < 0 (regula falsi, Illinois) until the
+    bracket is under 0.1 m (at most 40 steps; ValueError if not). Sound when f has no minimum inside a step:
     inside one linear layer, gas lift falls monotonically and hot-air lift at a fixed
     envelope temperature either falls or rises to one maximum and then falls.
     """
@@ -204,41 +199,63 @@ def first_drop(col, f, z_from_m):
                 z_next = z_layer_top
             f_next = f(z_next)
             if f_next < 0.0:
-                return _bisect(f, z, z_next)
-            z = z_next
+                return _narrow(f, z, z_next, fz, f_next)
+            z, fz = z_next, f_next
     return None
 
 
-def _bisect(f, lo, hi):
-    # f(lo) >= 0 > f(hi); bisection to _TOL_M, at most _CAP steps.
+def _narrow(f, lo, hi, f_lo, f_hi):
+    # f(lo) = f_lo >= 0 > f_hi = f(hi). Regula falsi with the Illinois modification
+    # (Dowell & Jarratt 1971: halve the value kept at an end chosen twice), each point
+    # at least _TOL_M / 4 inside the bracket so that it narrows below _TOL_M; at most
+    # _CAP steps (about 6 from 500 m; plain bisection takes 13).
+    side = 0
     for _ in range(_CAP):
         if hi - lo < _TOL_M:
             return 0.5 * (lo + hi)
-        mid = 0.5 * (lo + hi)
-        f_mid = f(mid)
-        if not isfinite(f_mid):
-            raise ValueError("first_drop: f(%g m) is not finite" % mid)
-        if f_mid < 0.0:
-            hi = mid
+        x = hi - f_hi * (hi - lo) / (f_hi - f_lo)
+        edge = 0.25 * _TOL_M
+        if x < lo + edge:
+            x = lo + edge
+        elif x > hi - edge:
+            x = hi - edge
+        fx = f(x)
+        if not isfinite(fx):
+            raise ValueError("first_drop: f(%g m) is not finite" % x)
+        if fx < 0.0:
+            hi, f_hi = x, fx
+            if side == -1:
+                f_lo *= 0.5
+            side = -1
         else:
-            lo = mid
+            lo, f_lo = x, fx
+            if side == 1:
+                f_hi *= 0.5
+            side = 1
     if hi - lo < _TOL_M:
         return 0.5 * (lo + hi)
     raise ValueError("first_drop did not converge between %g and %g m" % (lo, hi))
 
 
 def _air(col, z_m):
-    # (p_hpa, t_c, e_hpa, rho_kg_m3) of the column at z_m, each computed once.
+    # (p_hpa, t_c, e_hpa, rho_kg_m3) of the column at z_m, each computed once; the
+    # vapour pressure by the column's rule (Column.vapour_pressure_at: the surface
+    # mixing ratio, capped at saturation) without computing p and T twice (boards).
     p = col.p_at(z_m)
     t = col.t_at(z_m)
-    e = col.vapour_pressure_at(z_m)
+    r = col.r_kg_kg
+    e = r * p / (EPS + r)
+    es = _es_water(t)
+    if e > es:
+        e = es
     return p, t, e, _density(p, t, e)
 
 
 def _hot_lift(col, z_m, envelope_t_c):
-    # Gross lift, kg/m3, at z_m of ambient air heated to envelope_t_c.
-    p, t, e, rho = _air(col, z_m)
-    return hot_air_lift_per_m3(rho, p, envelope_t_c, e)
+    # Gross lift, kg/m3, at z_m of ambient air heated to envelope_t_c: the closed form
+    # of hot_air_lift_per_m3 (same p and e inside: rho_env = rho T_air / T_env).
+    _, t, _, rho = _air(col, z_m)
+    return rho * (1.0 - (t + T0_K) / (envelope_t_c + T0_K))
 
 
 def _t_needed(col, z_m, lift_per_m3_kg):
@@ -312,11 +329,13 @@ def oxygen_note(col, heights):
             % (label, z, pa / 0.3048, "13000 ft" if pa > OXYGEN_ALWAYS_M else "10000 ft"))
 
 
-def _ceiling(col, v, w, t_env):
-    # (ceiling m MSL or None, above the top) at t_env: None, False when too heavy.
+def _ceiling(col, v, w, t_env, z_from):
+    # (ceiling m MSL or None, above the top) at t_env, the lift at z_from (the field,
+    # or a height known to lie under this ceiling) at least the weight; None, False
+    # when too heavy at the field.
     if v * _hot_lift(col, col.elev_m, t_env) < w:
         return None, False
-    c = first_drop(col, lambda zz: v * _hot_lift(col, zz, t_env) - w, col.elev_m)
+    c = first_drop(col, lambda zz: v * _hot_lift(col, zz, t_env) - w, z_from)
     return c, c is None
 
 
@@ -361,8 +380,14 @@ def hot_air_report(col, volume_m3, weight_kg, max_envelope_t_c, envelope_t_c=Non
     t_need = _t_needed(col, z, need)
     payload = v * _hot_lift(col, col.elev_m, t_env) - w
     limit_payload = v * _hot_lift(col, col.elev_m, t_max) - w
-    ceiling, above = _ceiling(col, v, w, t_env)
-    limit_ceiling, limit_above = _ceiling(col, v, w, t_max)
+    ceiling, above = _ceiling(col, v, w, t_env, col.elev_m)
+    # A hotter envelope lifts more at every height, so the limit ceiling lies at or
+    # above the working one: its scan starts just under it (the lower end of the
+    # working ceiling's final bracket, where the lift is at least the weight).
+    limit_ceiling, limit_above = _ceiling(col, v, w, t_max, col.elev_m if ceiling is None
+                                          else max(col.elev_m, ceiling - _TOL_M))
+    if above:
+        limit_ceiling, limit_above = None, True
     warnings = []
     if payload < 0.0:
         warnings.append("Too heavy to take off at the working envelope temperature %.0f degC:"
@@ -428,102 +453,6 @@ def hot_air_report(col, volume_m3, weight_kg, max_envelope_t_c, envelope_t_c=Non
             "Lift comes from the assumed lapse rate, not a sounding; the real air differs.",
         ),
         "warnings": tuple(warnings),
-    }
-
-
-def field_column(col, t_c):
-    """The column col with the field temperature t_c degC (-60..60): the same field
-    pressure, elevation, ELR layers and top, the same dewpoint (capped at t_c), so the
-    same humidity rule aloft. The load table's columns; a Column, or None when this
-    ELR leaves no column above the field at t_c."""
-    from lapsecalc.column import Column
-    t = check("t_c", t_c, -60.0, 60.0, "degC (field temperature)")
-    spec = [(z1 - col.elev_m, -1000.0 * grad) for _, z1, _, grad, _ in col.layers]
-    try:
-        return Column(t, col.td_c if col.td_c < t else t, col.p_hpa, col.elev_m, spec, col.top_m)
-    except ValueError:
-        return None
-
-
-def _heights(col, heights_msl_m, step_m, depth_m):
-    if heights_msl_m is not None:
-        hs = [_z(col, z) for z in heights_msl_m]
-        if not hs or len(hs) > TABLE_MAX:
-            raise ValueError("heights_msl_m has %d heights; allowed 1..%d" % (len(hs), TABLE_MAX))
-        return hs
-    step = check("step_m", step_m, 50.0, 5000.0, "m")
-    end = col.elev_m + check("depth_m", depth_m, 1.0, 40000.0, "m")
-    if end > col.top_m:
-        end = col.top_m
-    hs = [col.elev_m]
-    z = (int(col.elev_m / step) + 1) * step
-    while z <= end and len(hs) < TABLE_MAX:
-        if z - col.elev_m > 1.0:
-            hs.append(z)
-        z += step
-    return hs
-
-
-def load_table(col, volume_m3, envelope_t_c, max_envelope_t_c=None, empty_kg=None,
-               temps_c=TABLE_TEMPS_C, heights_msl_m=None, step_m=TABLE_STEP_M,
-               depth_m=None):
-    """The greatest gross weight, kg, a hot-air balloon of volume_m3 (10..20000) lifts
-    at the working envelope temperature envelope_t_c (-90..150 degC; not above
-    max_envelope_t_c when that is given) over field temperatures and heights.
-
-    For each field temperature in temps_c (1..40 values, -60..60 degC) the column is
-    field_column(col, t): the same pressure at the field, ELR and dewpoint rule, the
-    air shifted warmer or colder. Heights: heights_msl_m (1..40, inside col), or the
-    field and every multiple of step_m MSL above it up to depth_m above the field (the
-    column top at most; default 3000 m, or the column top with empty_kg); with
-    empty_kg (1..20000, the balloon with fuel and crew but no payload) the rows end
-    where no field temperature lifts the empty weight any more.
-
-    Returns temps_c, heights_msl_m, gross_kg (one row per height, one value per
-    temperature; None where the column at that temperature ends below the height),
-    payload_kg (gross less empty_kg, same shape; None without empty_kg), volume_m3,
-    envelope_t_c, max_envelope_t_c, empty_kg, dewpoint_c, oxygen_note.
-    """
-    v = check("volume_m3", volume_m3, HOT_VOLUME_MIN_M3, HOT_VOLUME_MAX_M3, "m3")
-    if max_envelope_t_c is None:
-        t_env = check("envelope_t_c", envelope_t_c, -90.0, ENVELOPE_T_MAX_C, "degC")
-    else:
-        t_env = working_envelope_t(max_envelope_t_c, envelope_t_c)
-    empty = None
-    if empty_kg is not None:
-        empty = check("empty_kg", empty_kg, HOT_WEIGHT_MIN_KG, WEIGHT_MAX_KG, "kg")
-    temps = list(temps_c)
-    if not temps or len(temps) > TABLE_MAX:
-        raise ValueError("temps_c has %d temperatures; allowed 1..%d" % (len(temps), TABLE_MAX))
-    temps = [check("t_c", t, -60.0, 60.0, "degC (field temperature)") for t in temps]
-    cols = [field_column(col, t) for t in temps]
-    if depth_m is None:
-        depth_m = TABLE_DEPTH_M if empty is None else col.top_m - col.elev_m
-    hs = _heights(col, heights_msl_m, step_m, depth_m)
-    gross = []
-    for z in hs:
-        row = []
-        for c in cols:
-            row.append(None if c is None or z > c.top_m else v * _hot_lift(c, z, t_env))
-        gross.append(row)
-    payload = None
-    if empty is not None:
-        if heights_msl_m is None:
-            while len(gross) > 1 and all(g is None or g < empty for g in gross[-1]):
-                gross.pop()
-                hs.pop()
-        payload = [[None if g is None else g - empty for g in row] for row in gross]
-    return {
-        "temps_c": temps,
-        "heights_msl_m": hs,
-        "gross_kg": gross,
-        "payload_kg": payload,
-        "volume_m3": v,
-        "envelope_t_c": t_env,
-        "max_envelope_t_c": max_envelope_t_c,
-        "empty_kg": empty,
-        "dewpoint_c": col.td_c,
-        "oxygen_note": oxygen_note(col, (("table's top row", hs[-1]),)),
     }
 
 

@@ -7,8 +7,9 @@ from hypothesis import assume, given, strategies as st
 from lapsecalc.column import Column
 from lapsecalc.balloon import (hot_air_lift_per_m3, envelope_t_for_lift, gas_density,
                                gas_lift_per_m3, gas_volume_at, molar_mass, hot_air_report,
-                               gas_report, load_table, working_envelope_t, superheat_loss_kg,
+                               gas_report, working_envelope_t, superheat_loss_kg,
                                DEFAULT_MARGIN_K)
+from lapsecalc.loadtable import load_table
 from refs import bisect
 
 # Constants of the independent computations below (ICAO Doc 7488/3 unless marked).

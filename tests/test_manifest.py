@@ -91,8 +91,8 @@ def test_board_modules_never_import_cpython_only_ones():
 INTERPRETER_LAYERS = (
     ("shell",),
     ("settings", "queries", "commands"),
-    ("layout", "chart", "metar", "helptext", "balloon"),
-    ("groups", "output", "state", "typed"),
+    ("layout", "chart", "metar", "helptext", "loadtable"),
+    ("balloon", "groups", "output", "state", "typed"),
 )
 
 

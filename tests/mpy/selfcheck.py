@@ -244,7 +244,8 @@ def check_balloon():
     put("balloon.h2", balloon.gas_report(col, "hydrogen", 1.0, 3.0, 900.0, 1.2))
     put("balloon.sun", balloon.gas_report(col, "helium", 1.0, 600.0, 1000.0, 300.0, 900.0, 12.0))
     put("balloon.margin", balloon.hot_air_report(col, 2800.0, 450.0, 120.0, None, None, 30.0))
-    put("balloon.table", balloon.load_table(col, 2800.0, 100.0, 120.0, 420.0))
+    from lapsecalc import loadtable
+    put("balloon.table", loadtable.load_table(col, 2800.0, 100.0, 120.0, 420.0))
     refused("balloon.over_max", balloon.working_envelope_t, 120.0, 130.0)
 
 

@@ -1,0 +1,117 @@
+"""The load table of a hot-air balloon: the greatest gross weight (and payload) over
+the field temperature and the height, in one air column shifted warmer or colder."""
+# Sources: the lift per m3 is lapsecalc.balloon's (Archimedes' principle with the ideal
+#   gas law, moist air through the virtual temperature); each field temperature gets
+#   its own Column (lapsecalc.column: hydrostatic per linear layer, humidity aloft the
+#   surface mixing ratio capped at saturation), so the table follows the same lapse
+#   rate and the same humidity rule as every other figure.
+# Assumption: through the day the field temperature changes, the dewpoint stays (the
+#   air mass's moisture changes slowly; common practice), capped at the temperature;
+#   the field pressure and the ELR stay as observed and assumed.
+from lapsecalc.limits import check
+from lapsecalc.column import Column
+from lapsecalc.balloon import (_hot_lift, _z, working_envelope_t, oxygen_note,
+                               HOT_VOLUME_MIN_M3, HOT_VOLUME_MAX_M3, HOT_WEIGHT_MIN_KG,
+                               WEIGHT_MAX_KG, ENVELOPE_T_MAX_C)
+
+# The load table: default field temperatures, degC, and row spacing, m; at most
+# TABLE_MAX rows or columns (a 40-column screen shows six temperatures).
+TABLE_TEMPS_C = (-10.0, 0.0, 10.0, 20.0, 30.0, 40.0)
+TABLE_STEP_M = 500.0
+TABLE_DEPTH_M = 3000.0
+TABLE_MAX = 40
+
+
+def field_column(col, t_c):
+    """The column col with the field temperature t_c degC (-60..60): the same field
+    pressure, elevation, ELR layers and top, the same dewpoint (capped at t_c), so the
+    same humidity rule aloft. The load table's columns; a Column, or None when this
+    ELR leaves no column above the field at t_c."""
+    t = check("t_c", t_c, -60.0, 60.0, "degC (field temperature)")
+    spec = [(z1 - col.elev_m, -1000.0 * grad) for _, z1, _, grad, _ in col.layers]
+    try:
+        return Column(t, col.td_c if col.td_c < t else t, col.p_hpa, col.elev_m, spec, col.top_m)
+    except ValueError:
+        return None
+
+
+def _heights(col, heights_msl_m, step_m, depth_m):
+    if heights_msl_m is not None:
+        hs = [_z(col, z) for z in heights_msl_m]
+        if not hs or len(hs) > TABLE_MAX:
+            raise ValueError("heights_msl_m has %d heights; allowed 1..%d" % (len(hs), TABLE_MAX))
+        return hs
+    step = check("step_m", step_m, 50.0, 5000.0, "m")
+    end = col.elev_m + check("depth_m", depth_m, 1.0, 40000.0, "m")
+    if end > col.top_m:
+        end = col.top_m
+    hs = [col.elev_m]
+    z = (int(col.elev_m / step) + 1) * step
+    while z <= end and len(hs) < TABLE_MAX:
+        if z - col.elev_m > 1.0:
+            hs.append(z)
+        z += step
+    return hs
+
+
+def load_table(col, volume_m3, envelope_t_c, max_envelope_t_c=None, empty_kg=None,
+               temps_c=TABLE_TEMPS_C, heights_msl_m=None, step_m=TABLE_STEP_M,
+               depth_m=None):
+    """The greatest gross weight, kg, a hot-air balloon of volume_m3 (10..20000) lifts
+    at the working envelope temperature envelope_t_c (-90..150 degC; not above
+    max_envelope_t_c when that is given) over field temperatures and heights.
+
+    For each field temperature in temps_c (1..40 values, -60..60 degC) the column is
+    field_column(col, t): the same pressure at the field, ELR and dewpoint rule, the
+    air shifted warmer or colder. Heights: heights_msl_m (1..40, inside col), or the
+    field and every multiple of step_m MSL above it up to depth_m above the field (the
+    column top at most; default 3000 m, or the column top with empty_kg); with
+    empty_kg (1..20000, the balloon with fuel and crew but no payload) the rows end
+    where no field temperature lifts the empty weight any more.
+
+    Returns temps_c, heights_msl_m, gross_kg (one row per height, one value per
+    temperature; None where the column at that temperature ends below the height),
+    payload_kg (gross less empty_kg, same shape; None without empty_kg), volume_m3,
+    envelope_t_c, max_envelope_t_c, empty_kg, dewpoint_c, oxygen_note.
+    """
+    v = check("volume_m3", volume_m3, HOT_VOLUME_MIN_M3, HOT_VOLUME_MAX_M3, "m3")
+    if max_envelope_t_c is None:
+        t_env = check("envelope_t_c", envelope_t_c, -90.0, ENVELOPE_T_MAX_C, "degC")
+    else:
+        t_env = working_envelope_t(max_envelope_t_c, envelope_t_c)
+    empty = None
+    if empty_kg is not None:
+        empty = check("empty_kg", empty_kg, HOT_WEIGHT_MIN_KG, WEIGHT_MAX_KG, "kg")
+    temps = list(temps_c)
+    if not temps or len(temps) > TABLE_MAX:
+        raise ValueError("temps_c has %d temperatures; allowed 1..%d" % (len(temps), TABLE_MAX))
+    temps = [check("t_c", t, -60.0, 60.0, "degC (field temperature)") for t in temps]
+    cols = [field_column(col, t) for t in temps]
+    if depth_m is None:
+        depth_m = TABLE_DEPTH_M if empty is None else col.top_m - col.elev_m
+    hs = _heights(col, heights_msl_m, step_m, depth_m)
+    gross = []
+    for z in hs:
+        row = []
+        for c in cols:
+            row.append(None if c is None or z > c.top_m else v * _hot_lift(c, z, t_env))
+        gross.append(row)
+    payload = None
+    if empty is not None:
+        if heights_msl_m is None:
+            while len(gross) > 1 and all(g is None or g < empty for g in gross[-1]):
+                gross.pop()
+                hs.pop()
+        payload = [[None if g is None else g - empty for g in row] for row in gross]
+    return {
+        "temps_c": temps,
+        "heights_msl_m": hs,
+        "gross_kg": gross,
+        "payload_kg": payload,
+        "volume_m3": v,
+        "envelope_t_c": t_env,
+        "max_envelope_t_c": max_envelope_t_c,
+        "empty_kg": empty,
+        "dewpoint_c": col.td_c,
+        "oxygen_note": oxygen_note(col, (("table's top row", hs[-1]),)),
+    }

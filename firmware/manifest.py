@@ -15,6 +15,7 @@ package(
         "groups.py",
         "helptext.py",
         "layout.py",
+        "loadtable.py",
         "metar.py",
         "output.py",
         "queries.py",

@@ -27,6 +27,10 @@ except ImportError:
 _MAX_LINE = const(256)
 MAX_LINE = _MAX_LINE
 PROMPT = "lc> "
+# Modules that a word imports for its own line (help, chart, svg, balloon, metar,
+# demo): on a board a Session forgets them after the line, so the heap between lines
+# holds only the dispatch layer (a new word module that few lines need goes here).
+WORD_MODULES = ("helptext", "chart", "balloon", "metar", "demo")
 # Every word but the settings: the queries, then the session words.
 _WORDS = dict(QUERIES)
 _WORDS.update(COMMANDS)
@@ -42,6 +46,24 @@ def _unknown(word):
     near = nearest(word, list(SETTINGS) + list(_WORDS))
     return "unknown word '%s'; %s(help lists the words)" % (
         shown(word), "did you mean '%s'? " % near if near else "")
+
+
+def drop_modules(names):
+    """Forget the lapsecalc submodules names: the next import loads them afresh, and
+    until then they hold no heap."""
+    import sys
+    pkg = sys.modules.get("lapsecalc")
+    for n in names:
+        if sys.modules.pop("lapsecalc." + n, None) is not None and pkg is not None:
+            try:
+                delattr(pkg, n)
+            except AttributeError:
+                pass
+
+
+def _on_board():
+    import sys
+    return sys.implementation.name == "micropython"
 
 
 class Session:
@@ -60,6 +82,8 @@ class Session:
         self.svg_writer = svg_writer
         self.json = None  # the json module, once "out json" was asked for
         self._col = self._rep = self._levels = None
+        # On a board, WORD_MODULES are dropped after each line (drop_modules).
+        self.drop_word_modules = _on_board()
 
     def feed(self, line):
         """Run one line; return its output lines (no newlines in them)."""
@@ -70,6 +94,9 @@ class Session:
         except Exception as e:  # a corner the library did not foresee: still one line
             return ["error: cannot compute that (%s: %s); nothing changed"
                     % (type(e).__name__, shown(str(e), 200))]
+        finally:
+            if self.drop_word_modules:
+                drop_modules(WORD_MODULES)
         if self.mode == "json":
             out = [x if x[:1] == "{" else self.json.dumps({"text": x}) for x in out]
         return out

@@ -6,7 +6,9 @@ modules were compiled from lapsecalc/*.py after an AST rewrite:
   - every float literal becomes F32(literal), so constants and literals are float32;
   - float(x) becomes F32(x), so checked inputs are float32;
   - "from math import ..." / "import math" take the float32 shim MATH instead;
-  - "lapsecalc" imports become "lapsecalc_f32" imports;
+  - "lapsecalc" imports become "lapsecalc_f32" imports, and so do module paths in
+    strings ("lapsecalc.x", as __init__'s lazy __import__ has), so that a lazily
+    imported module (column.report's stability and parcel) is the float32 copy too;
   - range(NAME) over a module constant named *_CAP becomes a counting range that
     records how many passes each capped loop took and whether it ran out.
 F32 is a float whose every arithmetic result (with float, int or F32 on either side)
@@ -154,6 +156,10 @@ class _Rewrite(ast.NodeTransformer):
     def visit_Constant(self, node):
         if type(node.value) is float:
             return ast.copy_location(ast.Call(ast.Name("_F32", ast.Load()), [node], []), node)
+        if type(node.value) is str and (node.value == "lapsecalc" or
+                                        node.value.startswith("lapsecalc.")):
+            # A module path in a string (__init__'s lazy __import__): the float32 copy's.
+            return ast.copy_location(ast.Constant(_rename(node.value)), node)
         return node
 
     def visit_Call(self, node):

@@ -5,6 +5,8 @@ WebAssembly VM; tests/mpy/hardlimit.py, a hard heap limit in the Unix port)."""
 import os
 import sys
 
+import pytest
+
 HERE = os.path.dirname(os.path.abspath(__file__))
 sys.path.insert(0, os.path.join(HERE, "mpy"))
 import board_session  # noqa: E402  (tests/mpy/board_session.py)
@@ -65,3 +67,70 @@ def test_line_check_rules():
         is not None
     # A comment that names the marker is still a comment.
     assert ok("# a line marked " + board_session.EXPECT_ERROR, []) is None
+
+
+def _top_level_imports(module):
+    # lapsecalc modules a module's source imports at its top (not inside functions).
+    import ast
+    with open(os.path.join(os.path.dirname(shell.__file__), module + ".py")) as f:
+        tree = ast.parse(f.read())
+    out = set()
+    for node in tree.body:
+        if isinstance(node, ast.ImportFrom) and node.module:
+            if node.module == "lapsecalc":
+                out.update(a.name for a in node.names)
+            elif node.module.startswith("lapsecalc."):
+                out.add(node.module.split(".")[1])
+    return out
+
+
+def test_word_modules_are_loaded_only_by_their_words():
+    # A dropped module that a resident one imports at its top would stay loaded anyway.
+    resident, todo = set(), ["shell"]
+    while todo:
+        m = todo.pop()
+        if m not in resident:
+            resident.add(m)
+            todo.extend(_top_level_imports(m))
+    for m in shell.WORD_MODULES:
+        assert os.path.exists(os.path.join(os.path.dirname(shell.__file__), m + ".py")), m
+        assert m not in resident, m
+
+
+LINES = ("help", "help elr", "elev 1350ft", "temp 27C dew 13C", "chart", "help",
+         "env 2800m3 wt 450kg tmax 120C", "balloon", "metar XXXX 021250Z 27/13 Q1016",
+         "chart")
+
+
+@pytest.fixture
+def restore_word_modules():
+    # Other tests hold the modules they imported: put those back afterwards.
+    import lapsecalc
+    saved = dict((m, sys.modules.get("lapsecalc." + m)) for m in shell.WORD_MODULES)
+    yield
+    for m, mod in saved.items():
+        if mod is None:
+            sys.modules.pop("lapsecalc." + m, None)
+            lapsecalc.__dict__.pop(m, None)
+        else:
+            sys.modules["lapsecalc." + m] = mod
+            setattr(lapsecalc, m, mod)
+
+
+def test_a_board_session_drops_word_modules_after_their_line(restore_word_modules):
+    import lapsecalc
+    keep, drop = shell.Session(), shell.Session()
+    assert keep.drop_word_modules is False  # CPython keeps them (no heap to save)
+    drop.drop_word_modules = True
+    for line in LINES:
+        want = keep.feed(line)
+        assert drop.feed(line) == want, line
+        for m in shell.WORD_MODULES:
+            assert "lapsecalc." + m not in sys.modules, (line, m)
+            assert m not in lapsecalc.__dict__, (line, m)
+    # An error line drops them too.
+    assert drop.feed("help nosuchword")[0].startswith("error:")
+    assert "lapsecalc.helptext" not in sys.modules
+    # The modules load again for whoever needs them next.
+    from lapsecalc import helptext
+    assert "elr" in helptext.HELP

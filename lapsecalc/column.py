@@ -5,7 +5,7 @@
 #   Freezing and icing levels: airframe icing is most likely in cloud between 0 and
 #     -20 degC (common practice).
 from lapsecalc.constants import T0_K, EPS
-from lapsecalc.limits import (check, check_p, check_elev, check_lapse, check_dew,
+from lapsecalc.limits import (check, check_p, check_elev, check_lapse, check_dew, finite,
                               T_MIN_C, T_MAX_C)
 from lapsecalc.moisture import _es_water, _mixing_ratio_kg_kg, relative_humidity, wet_bulb
 from lapsecalc.standard import (layer_pressure, layer_height, station_pressure, qnh,
@@ -98,7 +98,7 @@ class Column:
             p = layer_pressure(p, t, grad, z_top - z)
             z, t = z_top, t_top
         if not layers:
-            raise ValueError("t_c=%g with this ELR leaves no column above the surface; allowed"
+            raise ValueError("t_c=%s with this ELR leaves no column above the surface; allowed"
                              " a surface above %g degC" % (self.t_c, T_MIN_C))
         self.layers = layers
         self.top_m = z
@@ -110,7 +110,7 @@ class Column:
         return cls(t_c, td_c, station_pressure(qnh_hpa, elev_m), elev_m, lapse, top_m)
 
     def _layer(self, z_m):
-        z = float(z_m)
+        z = finite("z_m", z_m)
         # A millimetre of rounding at either end is the end itself.
         if self.elev_m - 0.001 <= z < self.elev_m:
             z = self.elev_m
@@ -163,7 +163,7 @@ class Column:
     def crossings(self, t_c):
         """Every height, m MSL, where the environment temperature passes t_c degC,
         lowest first (an inversion can give several)."""
-        t_k = t_c + T0_K
+        t_k = finite("t_c", t_c) + T0_K
         out = []
         for z0, z1, t0, grad, _ in self.layers:
             if grad == 0.0:
@@ -177,6 +177,7 @@ class Column:
         """Lowest height, m MSL, at or above the surface where the environment is at or
         below t_c degC: the elevation if the surface already is; None if never.
         crossings, when given, are this column's crossings(t_c)."""
+        t_c = finite("t_c", t_c)
         if self.t_c <= t_c:
             return self.elev_m
         for z in self.crossings(t_c) if crossings is None else crossings:

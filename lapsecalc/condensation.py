@@ -6,7 +6,7 @@
 #   Spread rule: about 125 m per degC of temperature-dewpoint spread (common practice).
 from math import exp, log, sqrt, pow, fabs
 from lapsecalc.constants import G0, R_DRY, KAPPA, T0_K, DRY_LAPSE_K_PER_KM
-from lapsecalc.limits import check_p, check_dew
+from lapsecalc.limits import check_p, check_dew, finite
 
 # Romps (2017) constants, SI units; they differ slightly from ours (g 9.81, Ra 287.04)
 # and are kept as the paper gives them so that the paper's numbers are reproduced.
@@ -32,6 +32,7 @@ def lambert_w_minus1(x):
     Start from the branch-point series (x near -1/e) or the logarithmic asymptote,
     then Halley steps: at most 12, stopping when a step is under 1e-6 relative.
     """
+    x = finite("x", x)
     if not (-0.36787944117144233 <= x < 0.0):
         if fabs(x + 0.36787944117144233) < 1e-9:
             return -1.0

@@ -1,5 +1,4 @@
 """Input ranges and the checks that enforce them (every public function uses these)."""
-from math import isfinite
 
 T_MIN_C = -90.0
 T_MAX_C = 60.0
@@ -15,15 +14,32 @@ LAPSE_MAX_K_PER_KM = 30.0
 DEW_SLACK_K = 0.05
 
 
+def shown(value):
+    """value as an error message shows it: every digit of a float (100.0001, not 100),
+    anything else by repr, at most 24 characters."""
+    text = repr(value)
+    return text if len(text) <= 24 else text[:21] + "..."
+
+
 def check(name, value, lo, hi, unit):
-    """Return value as a float, or raise ValueError naming it and the range lo..hi."""
+    """Return value as a float, or raise ValueError naming it as given and the range
+    lo..hi. Never OverflowError or TypeError: an int too big for a float, None, text,
+    NaN and infinities are all refused the same way."""
     try:
         x = float(value)
-    except (TypeError, ValueError):
-        raise ValueError("%s=%r is not a number; allowed %g..%g %s" % (name, value, lo, hi, unit))
-    if not isfinite(x) or x < lo or x > hi:
-        raise ValueError("%s=%g is outside the allowed range %g..%g %s" % (name, x, lo, hi, unit))
+    except (TypeError, ValueError, OverflowError):
+        x = None
+    if x is None or not lo <= x <= hi:  # NaN fails every comparison
+        raise ValueError("%s=%s is %s the allowed range %g..%g %s" % (
+            name, shown(value), "outside" if x is not None else "not a number in", lo, hi,
+            unit))
     return x
+
+
+def finite(name, value):
+    """value as a float within +-1e30 (any physical value a caller can mean), else
+    ValueError naming it."""
+    return check(name, value, -1e30, 1e30, "")
 
 
 def check_t(name, t_c):
@@ -47,8 +63,8 @@ def check_dew(t_c, td_c):
     t = check_t("t_c", t_c)
     td = check_t("td_c", td_c)
     if td > t + DEW_SLACK_K:
-        raise ValueError("td_c=%g is above t_c=%g; a dewpoint may not exceed the temperature"
-                         " (allowed -90..%g degC)" % (td, t, t))
+        raise ValueError("td_c=%r is above t_c=%r; a dewpoint may not exceed the temperature"
+                         " (allowed -90..%r degC)" % (td, t, t))
     if td > t:
         td = t
     return t, td

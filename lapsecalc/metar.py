@@ -8,7 +8,7 @@
 # Only these groups are read; the rest of the report (wind, visibility, weather,
 # cloud) is skipped. The field elevation is not in a METAR: the user gives it.
 from lapsecalc.units import inhg_to_hpa
-from lapsecalc.limits import check, check_dew, QNH_MIN_HPA, QNH_MAX_HPA
+from lapsecalc.limits import check, check_dew, shown, QNH_MIN_HPA, QNH_MAX_HPA
 
 # Most groups read from one report (a report line is capped by the shell anyway).
 _MAX_GROUPS = 80
@@ -50,6 +50,8 @@ def parse(text):
     tenths). A Q group is preferred over an A group. Raises ValueError when there is
     no temperature group or a value is out of range.
     """
+    if not isinstance(text, str):
+        raise ValueError("a METAR is text; got %s" % shown(text))
     words = text.upper().split()
     if len(words) > _MAX_GROUPS:
         raise ValueError("the METAR has %d groups; accepted at most %d" % (len(words), _MAX_GROUPS))

@@ -33,7 +33,7 @@ def saturation_vapour_pressure(t_c, ice=False):
     t_c = check_t("t_c", t_c)
     if ice:
         if t_c > 0.0:
-            raise ValueError("t_c=%g is above 0 degC with ice=True; allowed -90..0 degC over ice"
+            raise ValueError("t_c=%s is above 0 degC with ice=True; allowed -90..0 degC over ice"
                              % t_c)
         a, b, c = _AE_ICE
     else:
@@ -61,7 +61,7 @@ def dewpoint(t_c, rh_pct):
         raise ValueError("rh_pct=0 has no dewpoint; allowed above 0 up to 100 %")
     td = _dewpoint_from_e(rh / 100.0 * _es_water(t_c))
     if td < -90.0:
-        raise ValueError("rh_pct=%g at t_c=%g gives a dewpoint below -90 degC; allowed 0..100 %%"
+        raise ValueError("rh_pct=%s at t_c=%s gives a dewpoint below -90 degC; allowed 0..100 %%"
                          " with a dewpoint of at least -90 degC" % (rh, t_c))
     return min(td, t_c)
 
@@ -88,7 +88,7 @@ def mixing_ratio(td_c, p_hpa):
     p_hpa = check_p("p_hpa", p_hpa)
     e = _es_water(td_c)
     if e > 0.5 * p_hpa:
-        raise ValueError("p_hpa=%g is too low for td_c=%g (vapour pressure %.1f hPa);"
+        raise ValueError("p_hpa=%s is too low for td_c=%s (vapour pressure %.1f hPa);"
                          " allowed p_hpa above %.1f hPa" % (p_hpa, td_c, e, 2.0 * e))
     return 1000.0 * _mixing_ratio_kg_kg(e, p_hpa)
 
@@ -110,7 +110,7 @@ def wet_bulb(t_c, td_c, p_hpa):
     t_c, td_c = check_dew(t_c, td_c)
     p_hpa = check_p("p_hpa", p_hpa)
     if _es_water(t_c) > 0.5 * p_hpa:
-        raise ValueError("p_hpa=%g is too low for t_c=%g; allowed p_hpa above %.1f hPa"
+        raise ValueError("p_hpa=%s is too low for t_c=%s; allowed p_hpa above %.1f hPa"
                          % (p_hpa, t_c, 2.0 * _es_water(t_c)))
     w = _mixing_ratio_kg_kg(_es_water(td_c), p_hpa)
 
@@ -142,7 +142,8 @@ def wet_bulb(t_c, td_c, p_hpa):
             return mid
     if fabs(hi - lo) < 10.0 * _WET_BULB_TOL_K:
         return 0.5 * (lo + hi)
-    raise ValueError("wet_bulb did not converge for t_c=%g td_c=%g p_hpa=%g" % (t_c, td_c, p_hpa))
+    raise ValueError("wet_bulb did not converge for t_c=%s td_c=%s p_hpa=%s"
+                     % (t_c, td_c, p_hpa))
 
 
 def virtual_temperature_k(t_k, e_hpa, p_hpa):

@@ -115,7 +115,7 @@ def qnh(p_station_hpa, elev_m):
     h = check_elev("elev_m", elev_m)
     q = pow(pow(p, _N) + pow(ISA_P0_HPA, _N) * ISA_LAPSE_K_PER_M * h / ISA_T0_K, 1.0 / _N)
     if q < QNH_MIN_HPA or q > QNH_MAX_HPA:
-        raise ValueError("p_station_hpa=%g at elev_m=%g gives QNH %.1f hPa, outside the allowed"
+        raise ValueError("p_station_hpa=%s at elev_m=%s gives QNH %.1f hPa, outside the allowed"
                          " range %g..%g hPa" % (p, h, q, QNH_MIN_HPA, QNH_MAX_HPA))
     return q
 

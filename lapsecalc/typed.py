@@ -23,6 +23,11 @@ _UNITS = {
     "%": ("rh", None), "m3": ("v", None), "ft3": ("v", units.ft3_to_m3),
     "kg": ("w", None), "lb": ("w", units.lb_to_kg),
 }
+# How a unit is written back to the user.
+_WRITTEN = {"c": "C", "degc": "C", "f": "F", "degf": "F", "k": "K", "hpa": "hPa",
+            "mb": "mb", "mbar": "mbar", "inhg": "inHg", "mmhg": "mmHg", "kpa": "kPa",
+            "k/km": "K/km", "c/km": "C/km", "c/1000ft": "C/1000ft", "k/1000ft": "K/1000ft",
+            "f/1000ft": "F/1000ft", "c/100m": "C/100m", "k/100m": "K/100m"}
 _ACCEPTED = {"t": "C F K", "h": "ft m km", "p": "hPa mb inHg mmHg kPa",
              "l": "K/km C/1000ft C/100m F/1000ft", "rh": "%", "v": "m3 ft3", "w": "kg lb"}
 
@@ -78,6 +83,16 @@ def number(tok, kind, bare):
     if kind == "dt":
         return x * 5.0 / 9.0 if u in ("f", "degf") else x
     return x if entry[1] is None else entry[1](x)
+
+
+def said(tok, bare):
+    """The typed number tok as it is said back: its digits as typed and its unit
+    ("700 ft" for 700 typed with ft the bare unit, "2.5 km", "45 %")."""
+    sp = split_number(tok)
+    if sp is None:
+        return shown(tok)
+    u = sp[1] or bare
+    return "%s %s" % (sp[0], _WRITTEN.get(u, u))
 
 
 def unit_kind(tok):

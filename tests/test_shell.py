@@ -571,6 +571,7 @@ def test_json_mode():
 
 def test_errors_name_the_problem_and_what_is_accepted():
     s = session()
+    COL = demo_column()
     run(s, [
         ("tmep 30", ["error: unknown word 'tmep'; did you mean 'temp'? (help lists the words)"]),
         ("rport", ["error: unknown word 'rport'; did you mean 'report'? (help lists the words)"]),
@@ -595,8 +596,12 @@ def test_errors_name_the_problem_and_what_is_accepted():
                           " line"]),
         ("base now", ["error: base takes nothing after it; got 'now'"]),
         ("at", ["error: at needs a height, e.g. at 8000ft, at 2000ft agl, at 700hPa"]),
-        ("at 99999ft", ["error: height=30479.695200000002 is outside the allowed range 411.48..16000 m MSL"
-                        " (field to column top)"]),
+        # Errors in the user's words and display units, never SI values not typed.
+        ("at 99999ft", ["error: at: 99999 ft is above the column top (52493 ft)"]),
+        ("at 700", ["error: at: 700 ft is below the field (1350 ft)"]),
+        ("at 200m", ["error: at: 200 m is below the field (1350 ft)"]),
+        ("at 1100hPa", ["error: at: 1100 hPa is not in the column (%.1f hPa at the"
+                        " field, %.1f hPa at the top)" % (COL.p_hpa, COL.p_at(COL.top_m))]),
         ("at 2000ft up", ["error: at: 'up' after the height; accepted agl or msl"]),
         ("out xml", ["error: out needs one of text, kv, json"]),
         ("help nothing", ["error: help takes one word of the list, e.g. help elr; help alone"

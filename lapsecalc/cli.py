@@ -34,12 +34,19 @@ def _run(session, lines, echo, out):
 
 
 def main(argv=None):
-    """lapsecalc [demo] [-e LINE ...] [--svg FILE]; returns the exit status."""
+    """lapsecalc [demo] [-e LINE ...] [--svg FILE] | lapsecalc page FILE; returns the exit
+    status."""
+    argv = sys.argv[1:] if argv is None else list(argv)
+    if argv[:1] == ["page"]:
+        from lapsecalc.page import main as page_main
+        return page_main(argv[1:])
     p = argparse.ArgumentParser(
         prog="lapsecalc",
         description="Cloud base, freezing level, density altitude and stability from one"
                     " surface observation and an assumed lapse rate. Reads interpreter lines"
-                    " from stdin (type help), or runs the -e lines, or the built-in demo.")
+                    " from stdin (type help), or runs the -e lines, or the built-in demo.",
+        epilog="lapsecalc page FILE writes the offline page, one HTML file for a tablet"
+               " or phone browser (lapsecalc page -h).")
     p.add_argument("what", nargs="?", choices=["demo"],
                    help="run the built-in invented scenario (Kestrel Flats)")
     p.add_argument("-e", dest="lines", action="append", metavar="LINE", default=[],

@@ -14,6 +14,21 @@ if command -v node >/dev/null 2>&1 && [ ! -d tests/mpy/node_modules/@micropython
     # The pinned MicroPython VM, so that pytest's VM comparisons run too (not skipped).
     (cd tests/mpy && npm ci --silent --no-audit --no-fund)
 fi
+# The browser leg (tests/test_page.py): the OS's headless Chromium and its driver.
+# Under CI=true they are installed when missing (or the run fails); elsewhere a
+# missing browser is one skip line.
+have_chromium() { command -v chromedriver >/dev/null 2>&1 && { command -v chromium >/dev/null 2>&1 || command -v chromium-browser >/dev/null 2>&1; }; }
+if ! have_chromium; then
+    if [ "${CI:-}" = "true" ]; then
+        echo "browser leg: installing chromium and chromium-driver (apt-get)"
+        if ! { apt-get update -qq && DEBIAN_FRONTEND=noninteractive apt-get install -y -qq chromium chromium-driver >/dev/null; } || ! have_chromium; then
+            echo "browser leg: FAILED (cannot install chromium and chromium-driver; under CI=true this leg must run)"
+            exit 1
+        fi
+    else
+        echo "browser leg: SKIPPED (no chromium or chromedriver; apt-get install -y chromium chromium-driver)"
+    fi
+fi
 export HYPOTHESIS_PROFILE=ci
 .venv/bin/python -m pytest -q -p no:cacheprovider tests
 PYTHON=.venv/bin/python bash tests/mpy/leg.sh

@@ -13,7 +13,7 @@ PKG = os.path.join(ROOT, "lapsecalc")
 CORE_MANIFEST = os.path.join(PKG, "package.json")
 FULL_MANIFEST = os.path.join(PKG, "package-full.json")
 # Modules that need CPython (argparse, files): never installed on a board.
-CPYTHON_ONLY = ("__main__", "cli")
+CPYTHON_ONLY = ("__main__", "cli", "page")
 
 
 def read_manifest(path):

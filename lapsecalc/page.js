@@ -23,6 +23,7 @@ const GLUE = `
 import gc, json, sys
 import lapsecalc
 from lapsecalc.shell import Session
+from lapsecalc.queries import chart_svg
 _pg_s = Session()
 _pg_banner = "lapsecalc %s, MicroPython %s" % (
     lapsecalc.__version__, ".".join(str(x) for x in sys.implementation.version[:3]))
@@ -47,7 +48,7 @@ def _pg_chart():
         _pg_svg = ""
         return
     try:
-        _pg_svg = _pg_s.chart_svg()
+        _pg_svg = chart_svg(_pg_s)
     except ValueError as e:
         _pg_svg = "!" + str(e)
     _pg_drawn = now

@@ -18,6 +18,7 @@ import pytest
 import lapsecalc
 from lapsecalc import page
 from lapsecalc.demo import DEMO_LINES
+from lapsecalc.queries import chart_svg
 from lapsecalc.shell import PROMPT, Session
 from lapsecalc.stability import CAUTIONS
 
@@ -238,11 +239,11 @@ def test_page_output_equals_cpython_line_for_line(tab):
             for w, g in zip(want_lines, got):
                 assert same_line(w, g), (line, w, g)
         if n == 0:
-            # The demo's chart: the same SVG as CPython's chart_svg(), element for element.
+            # The demo's chart: the same SVG as CPython's, element for element.
             svg = t.driver.execute_script(
                 "const s = document.querySelector('#chart svg');"
                 "return s ? new XMLSerializer().serializeToString(s) : ''")
-            assert svg and same_svg(cpython.chart_svg(), svg)
+            assert svg and same_svg(chart_svg(cpython), svg)
             points = t.driver.execute_script(
                 "return [...document.querySelectorAll('#chart polyline')]"
                 ".map(p => p.getAttribute('points').split(' ').length)")

@@ -137,12 +137,13 @@ def test_cloud_base(main):
     assert abs(r["cloud_base_agl_m"] - ref) < 2.0 + 0.002 * ref
     assert r["cloud_base_msl_m"] == elev + r["cloud_base_agl_m"]
     # At the LCL: saturated with the surface mixing ratio (AE96 e_s), on the dry
-    # adiabat from the surface (Poisson, to Romps' moist exponent: 0.1 K), and at the
-    # column's hydrostatic pressure of that height (closed form).
+    # adiabat from the surface (Poisson, to Romps' moist exponent: 0.1 K), and within
+    # 1 hPa of the air's pressure at that height (closed form; the parcel, warmer than
+    # the air below its base, has its own hydrostatics in Romps' formula).
     e_l = ae_es_hpa(r["lcl_t_c"])
     assert abs(EPS * e_l / (r["lcl_p_hpa"] - e_l) / (EPS * ae_es_hpa(td) / (p - ae_es_hpa(td))) - 1) < 0.005
     assert abs(r["lcl_t_c"] - ((t + 273.15) * (r["lcl_p_hpa"] / p) ** KAPPA - 273.15)) < 0.1
-    assert abs(r["lcl_p_hpa"] - _env_p(MAIN, r["cloud_base_msl_m"])) < 0.5
+    assert abs(r["lcl_p_hpa"] - _env_p(MAIN, r["cloud_base_msl_m"])) < 1.0
 
 
 @covers("freezing_level_msl_m", "minus10_level_msl_m", "minus20_level_msl_m",
@@ -172,7 +173,7 @@ def test_parcel_levels(main):
     lfc, el, cape, cin = reference_parcel(col)
     assert abs(r["lfc_msl_m"] - lfc) < 60.0 and abs(r["el_msl_m"] - el) < 60.0
     assert r["el_above_top"] is False
-    assert abs(r["cape_j_kg"] - cape) <= 12.0 + 0.012 * cape
+    assert -(15.0 + 0.015 * cape) <= r["cape_j_kg"] - cape <= 1.0
     assert abs(r["cin_j_kg"] - cin) <= 4.0 + 0.01 * abs(cin)
     assert r["cloud_base_msl_m"] < z0 < z20 < el          # premise: the whole band in cloud
     assert abs(r["icing_band_bottom_msl_m"] - z0) < 5.0

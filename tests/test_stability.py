@@ -113,8 +113,10 @@ CASES = {
 
 @pytest.mark.parametrize("name", sorted(CASES))
 def test_parcel_against_fine_reference(name):
-    # CAPE within 8 % or 30 J/kg, CIN within 15 % or 15 J/kg, LFC and EL within 150 m
-    # of a fine-step reference integration of the same definitions (issue requirement).
+    # Against a fine-step reference integration of the same definitions, to the
+    # accuracy the README states (measured, bench/mutation.md): CAPE low by at most
+    # 15 J/kg + 1.5 % (never over by 1 J/kg), CIN within 4 J/kg + 1 %, LFC and EL
+    # within 60 m where CAPE is over 5 J/kg.
     t, td, p, elev, lapse, top = CASES[name]
     col = Column(t, td, p, elev, lapse, top_m=top)
     r = col.report()
@@ -123,12 +125,12 @@ def test_parcel_against_fine_reference(name):
     if lfc is None:
         assert r["cape_j_kg"] == 0.0 and r["cin_j_kg"] is None
         return
-    assert abs(r["lfc_msl_m"] - lfc) < 150.0
-    assert abs(r["cape_j_kg"] - cape) <= max(0.08 * cape, 30.0)
-    assert abs(r["cin_j_kg"] - cin) <= max(0.15 * abs(cin), 15.0)
+    assert abs(r["lfc_msl_m"] - lfc) < 60.0
+    assert -(15.0 + 0.015 * cape) <= r["cape_j_kg"] - cape <= 1.0
+    assert abs(r["cin_j_kg"] - cin) <= 4.0 + 0.01 * abs(cin)
     assert r["el_above_top"] == (el is None)
     if el is not None:
-        assert abs(r["el_msl_m"] - el) < 150.0
+        assert abs(r["el_msl_m"] - el) < 60.0
 
 
 def test_shapes():

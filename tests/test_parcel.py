@@ -147,15 +147,22 @@ def test_cape_cin_are_the_areas_of_the_path(name):
     assert abs(r["cin_j_kg"] - cin) <= 0.3 + 0.003 * abs(cin)
 
 
-def test_parcel_freezing_level_below_cloud_base():
+@pytest.mark.parametrize("p_hpa,elev_m", [(1020.0, 0.0), (960.0, 450.0)])
+def test_parcel_freezing_level_below_cloud_base(p_hpa, elev_m):
     # 10 degC, dewpoint 0 degC: the parcel reaches 0 degC dry, below its cloud base.
     # Poisson gives the pressure, the 3 K/km layer's closed form the height.
-    col = Column(10.0, 0.0, 1020.0, 0.0, 3.0)
-    p0 = 1020.0 * (273.15 / 283.15) ** (1.0 / KAPPA)
-    z0 = linear_layer_z(10.0, 1020.0, 0.0, 3.0, p0)
+    col = Column(10.0, 0.0, p_hpa, elev_m, 3.0)
+    p0 = p_hpa * (273.15 / 283.15) ** (1.0 / KAPPA)
+    z0 = linear_layer_z(10.0, p_hpa, elev_m, 3.0, p0)
     r = col.report()
     assert z0 < r["cloud_base_msl_m"]
     assert abs(r["parcel_freezing_level_msl_m"] - z0) < 0.5
+    # -1 degC, still below the cloud base: same closed forms, through parcel.level.
+    lcl = r["cloud_base_msl_m"]
+    p5 = p_hpa * (272.15 / 283.15) ** (1.0 / KAPPA)
+    z5 = linear_layer_z(10.0, p_hpa, elev_m, 3.0, p5)
+    assert z5 < lcl
+    assert abs(parcel.level(col, parcel.path(col, lcl), -1.0, lcl) - z5) < 0.5
 
 
 @pytest.mark.parametrize("t_c", [0.0, -5.0])
@@ -269,3 +276,20 @@ def test_parcel_freezing_level_in_cloud(args):
     ref = first_crossing(fine_parcel(col, lcl, dz=1.0), lambda row: row[1])
     assert ref > lcl
     assert abs(col.report()["parcel_freezing_level_msl_m"] - ref) < 1.0
+    # The -10 and -20 degC levels of the parcel (the icing band's top) the same way.
+    levels = parcel.path(col, lcl)
+    for t_c in (-10.0, -20.0):
+        ref = first_crossing(fine_parcel(col, lcl, dz=1.0), lambda row: row[1] - t_c)
+        assert abs(parcel.level(col, levels, t_c, lcl) - ref) < 1.0
+
+
+def test_parcel_level_of_a_path_temperature_is_that_level():
+    # Asking for the parcel temperature of one of the path's own levels (an identity)
+    # gives that level's height, wherever the level is: dry, at the LCL, in cloud.
+    col = Column(24.0, 14.0, 990.0, 150.0, [(600.0, 8.0), (None, 6.5)], top_m=12000.0)
+    lcl = 150.0 + cloud_base(24.0, 14.0, 990.0)[0]
+    levels = parcel.path(col, lcl)
+    for z, _, tp, _ in levels[1:]:
+        assert abs(parcel.level(col, levels, tp, lcl) - z) < 1e-6
+    assert parcel.level(col, levels, levels[0][2], lcl) == 150.0
+    assert parcel.level(col, levels, levels[-1][2] - 0.01, lcl) is None

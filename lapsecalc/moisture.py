@@ -4,7 +4,7 @@
 #     eq. 21 (water, called AERK) and eq. 23 (ice, AERKi).
 #   ASHRAE Handbook - Fundamentals (2017), ch. 1, eq. 33: the psychrometric
 #     balance that defines the thermodynamic wet-bulb temperature.
-from math import exp, log, fabs
+from math import exp, log
 from lapsecalc.constants import EPS
 from lapsecalc.limits import check, check_t, check_p, check_dew
 
@@ -93,11 +93,6 @@ def mixing_ratio(td_c, p_hpa):
     return 1000.0 * _mixing_ratio_kg_kg(e, p_hpa)
 
 
-def _vapour_pressure_from_r(r_kg_kg, p_hpa):
-    # Inverse of the mixing ratio: e = r p / (eps + r), hPa.
-    return r_kg_kg * p_hpa / (EPS + r_kg_kg)
-
-
 def wet_bulb(t_c, td_c, p_hpa):
     """Isobaric (thermodynamic) wet-bulb temperature, degC.
 
@@ -140,8 +135,6 @@ def wet_bulb(t_c, td_c, p_hpa):
             side = 1
         if hi - lo < _WET_BULB_TOL_K or f_mid == 0.0:
             return mid
-    if fabs(hi - lo) < 10.0 * _WET_BULB_TOL_K:
-        return 0.5 * (lo + hi)
     raise ValueError("wet_bulb did not converge for t_c=%s td_c=%s p_hpa=%s"
                      % (t_c, td_c, p_hpa))
 

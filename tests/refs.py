@@ -52,6 +52,25 @@ def romps_lcl_m(t_k, rh, p_pa):
     return cpm * t_k / ggr * (1 - b / (a * w))
 
 
+def romps_lcl_t_p(t_k, rh, p_pa):
+    # Romps (2017) eqs. 22b and 22c (REFERENCES.md): LCL temperature, K, and pressure,
+    # Pa, with the same slow W_-1 as romps_lcl_m.
+    ttrip, ptrip, e0v = 273.16, 611.65, 2.3740e6
+    ra, rv, cva, cvv, cvl = 287.04, 461.0, 719.0, 1418.0, 4119.0
+    cpa, cpv = cva + ra, cvv + rv
+    pv = rh * romps_pvstar_pa(t_k)
+    qv = ra * pv / (rv * p_pa + (ra - rv) * pv)
+    rm = (1 - qv) * ra + qv * rv
+    cpm = (1 - qv) * cpa + qv * cpv
+    a = cpm / rm + (cvl - cpv) / rv
+    b = -(e0v - (cvv - cvl) * ttrip) / (rv * t_k)
+    c = b / a
+    x = rh ** (1 / a) * c * math.exp(c)
+    w = bisect(lambda w: x - w * math.exp(w), -800.0, -1.0)
+    t_lcl = c / w * t_k
+    return t_lcl, p_pa * (t_lcl / t_k) ** (cpm / rm)
+
+
 def romps_pvstar_pa(t_k):
     # Romps (2017) saturation vapour pressure over liquid (REFERENCES.md).
     ttrip, ptrip, e0v = 273.16, 611.65, 2.3740e6

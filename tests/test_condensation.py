@@ -6,7 +6,7 @@ from hypothesis import given, strategies as st
 
 from lapsecalc import cloud_base
 from lapsecalc.condensation import lambert_w_minus1
-from refs import romps_lcl_m, romps_pvstar_pa, bisect
+from refs import romps_lcl_m, romps_lcl_t_p, romps_pvstar_pa, bisect
 
 
 def _romps_dewpoint_c(t_k, rh):
@@ -26,10 +26,25 @@ def test_romps_check_value():
                                       (273.0, 0.9, 80000.0), (250.0, 0.3, 70000.0),
                                       (320.0, 0.05, 101000.0), (290.0, 0.99, 100000.0)])
 def test_romps_against_paper_formula(t_k, rh, p):
-    # Romps (2017) eq. 22a with a slow bisection for W_-1 (tests/refs.py): 2 m + 0.2 %.
+    # Romps (2017) eqs. 22a-c with a slow bisection for W_-1 (tests/refs.py): the
+    # formula itself, to 1e-6 (README, Accuracy).
     ref = romps_lcl_m(t_k, rh, p)
-    z = cloud_base(t_k - 273.15, _romps_dewpoint_c(t_k, rh), p / 100.0)[0]
-    assert abs(z - ref) < 2.0 + 0.002 * ref
+    t_ref, p_ref = romps_lcl_t_p(t_k, rh, p)
+    z, t_l, p_l = cloud_base(t_k - 273.15, _romps_dewpoint_c(t_k, rh), p / 100.0)
+    assert abs(z - ref) < 1e-6 * ref + 1e-6
+    assert abs(t_l + 273.15 - t_ref) < 1e-6 * t_ref
+    assert abs(p_l - p_ref / 100.0) < 1e-6 * p_ref / 100.0
+
+
+def test_tiny_spread_has_a_tiny_cloud_base():
+    # A spread of 0.005 K: the LCL is well under a metre up, not the surface itself
+    # (Romps 2017 eq. 22a, refs.py; about 125 m per degC, common practice).
+    t_k = 288.15
+    rh = romps_pvstar_pa(t_k - 0.005) / romps_pvstar_pa(t_k)
+    z, t_l, p_l = cloud_base(15.0, 14.995, 1000.0)
+    assert 0.3 < z < 1.0
+    assert abs(z - romps_lcl_m(t_k, rh, 100000.0)) < 1e-6
+    assert t_l < 15.0 and p_l < 1000.0
 
 
 def test_bolton_temperature_check():
@@ -62,6 +77,14 @@ def test_saturated_surface_is_zero():
 @given(st.floats(-5.0, 40.0), st.floats(0.5, 25.0), st.floats(0.1, 5.0), st.floats(700.0, 1050.0))
 def test_cloud_base_rises_with_spread(t, spread, more, p):
     assert cloud_base(t, t - spread - more, p)[0] > cloud_base(t, t - spread, p)[0]
+
+
+def test_lambert_w_at_the_branch_point():
+    # W(-1/e) = -1 (definition of the branch point); a rounding below -1/e as well.
+    x = -0.36787944117144233
+    assert lambert_w_minus1(x) == -1.0
+    assert lambert_w_minus1(x - 1e-12) == -1.0
+    assert abs(lambert_w_minus1(x + 1e-12) + 1.0) < 1e-5
 
 
 def test_lambert_w_identity():

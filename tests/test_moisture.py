@@ -5,7 +5,7 @@ from hypothesis import given, strategies as st
 
 from lapsecalc import (saturation_vapour_pressure, dewpoint, relative_humidity,
                        mixing_ratio, wet_bulb)
-from refs import hyland_wexler_water_hpa, hyland_wexler_ice_hpa, bisect
+from refs import hyland_wexler_water_hpa, hyland_wexler_ice_hpa, bisect, ae_es_hpa
 
 
 def test_reference_formula_matches_ashrae_table():
@@ -128,3 +128,42 @@ def test_bad_input_names_value_and_range(call, word):
         call()
     assert word in str(err.value)
     assert "allowed" in str(err.value)
+
+
+def _wet_bulb_ashrae(t, td, p):
+    # ASHRAE Handbook - Fundamentals (2017) ch. 1 eq. 33 with Alduchov & Eskridge
+    # saturation (refs.ae_es_hpa), solved here by bisection: the balance the library
+    # documents, to its iteration tolerance (0.005 K).
+    def w(e):
+        return 0.621945 * e / (p - e)
+    w0 = w(ae_es_hpa(td))
+    return bisect(lambda tw: ((2501.0 - 2.326 * tw) * w(ae_es_hpa(tw)) - 1.006 * (t - tw))
+                  / (2501.0 + 1.86 * t - 4.186 * tw) - w0, td, t)
+
+
+@pytest.mark.parametrize("t,td,p", [(30.0, 20.0, 1013.25), (-10.0, -30.0, 1050.0),
+                                    (45.0, 0.0, 700.0), (5.0, 4.0, 900.0)])
+def test_wet_bulb_solves_the_ashrae_balance(t, td, p):
+    assert abs(wet_bulb(t, td, p) - _wet_bulb_ashrae(t, td, p)) < 0.006
+
+
+def test_dewpoint_limits():
+    # Very dry air keeps a dewpoint down to -90 degC (the fit, exactly inverted: a
+    # round trip identity); below that it is refused, naming the humidity.
+    td = dewpoint(20.0, 0.01)
+    assert -90.0 < td < -60.0 and abs(relative_humidity(20.0, td) - 0.01) < 1e-9
+    rh = 100.0 * ae_es_hpa(-90.5) / ae_es_hpa(20.0)
+    with pytest.raises(ValueError) as err:
+        dewpoint(20.0, rh)
+    assert "-90 degC" in str(err.value) and "rh_pct=" in str(err.value)
+    td = dewpoint(20.0, 100.0 * ae_es_hpa(-89.5) / ae_es_hpa(20.0))
+    assert abs(td + 89.5) < 1e-9
+
+
+def test_wet_bulb_refuses_thin_hot_air():
+    # Saturation pressure above half the pressure (e_s(50 degC) = 123 hPa at 200 hPa):
+    # refused, not a silent number.
+    with pytest.raises(ValueError) as err:
+        wet_bulb(50.0, 20.0, 200.0)
+    assert "p_hpa=200" in str(err.value) and "allowed" in str(err.value)
+    assert 20.0 < wet_bulb(50.0, 20.0, 260.0) < 50.0

@@ -30,10 +30,10 @@ def bisect(f, lo, hi, n=200):
     return 0.5 * (lo + hi)
 
 
-def romps_lcl_m(t_k, rh, p_pa):
-    # Romps (2017), J. Atmos. Sci. 74, 3891-3900, eq. 22a as printed in
+def _romps_lcl(t_k, rh, p_pa):
+    # Romps (2017), J. Atmos. Sci. 74, 3891-3900, eqs. 22a-c as printed in
     # ../shared/REFERENCES.md, evaluated with a slow bisection for W_-1 (independent
-    # of the package's Halley iteration).
+    # of the package's Halley iteration): (height m, temperature K, pressure Pa).
     ttrip, ptrip, e0v, ggr = 273.16, 611.65, 2.3740e6, 9.81
     ra, rv, cva, cvv, cvl = 287.04, 461.0, 719.0, 1418.0, 4119.0
     cpa, cpv = cva + ra, cvv + rv
@@ -49,26 +49,18 @@ def romps_lcl_m(t_k, rh, p_pa):
     x = rh ** (1 / a) * c * math.exp(c)
     # W_-1: w e^w decreasing in w for w < -1; solve w e^w = x on [-800, -1].
     w = bisect(lambda w: x - w * math.exp(w), -800.0, -1.0)
-    return cpm * t_k / ggr * (1 - b / (a * w))
+    t_lcl = c / w * t_k
+    return cpm * t_k / ggr * (1 - b / (a * w)), t_lcl, p_pa * (t_lcl / t_k) ** (cpm / rm)
+
+
+def romps_lcl_m(t_k, rh, p_pa):
+    # Romps (2017) eq. 22a: LCL height, m.
+    return _romps_lcl(t_k, rh, p_pa)[0]
 
 
 def romps_lcl_t_p(t_k, rh, p_pa):
-    # Romps (2017) eqs. 22b and 22c (REFERENCES.md): LCL temperature, K, and pressure,
-    # Pa, with the same slow W_-1 as romps_lcl_m.
-    ttrip, ptrip, e0v = 273.16, 611.65, 2.3740e6
-    ra, rv, cva, cvv, cvl = 287.04, 461.0, 719.0, 1418.0, 4119.0
-    cpa, cpv = cva + ra, cvv + rv
-    pv = rh * romps_pvstar_pa(t_k)
-    qv = ra * pv / (rv * p_pa + (ra - rv) * pv)
-    rm = (1 - qv) * ra + qv * rv
-    cpm = (1 - qv) * cpa + qv * cpv
-    a = cpm / rm + (cvl - cpv) / rv
-    b = -(e0v - (cvv - cvl) * ttrip) / (rv * t_k)
-    c = b / a
-    x = rh ** (1 / a) * c * math.exp(c)
-    w = bisect(lambda w: x - w * math.exp(w), -800.0, -1.0)
-    t_lcl = c / w * t_k
-    return t_lcl, p_pa * (t_lcl / t_k) ** (cpm / rm)
+    # Romps (2017) eqs. 22b and 22c: LCL temperature, K, and pressure, Pa.
+    return _romps_lcl(t_k, rh, p_pa)[1:]
 
 
 def romps_pvstar_pa(t_k):

@@ -26,7 +26,7 @@ def _run(session, lines, echo, out):
         if echo:
             out.write(PROMPT + line + "\n")
         for text in session.feed(line):
-            errors += text.startswith("error:")
+            errors += text.startswith(("error:", "error=", "{\"error\""))
             out.write(text + "\n")
         if session.done:
             break
@@ -73,7 +73,7 @@ def main(argv=None):
             errors += _run(session, read_lines(sys.stdin), False, out)
         if a.svg:
             for text in _svg_file(session, a.svg):
-                errors += text.startswith("error:")
+                errors += text.startswith(("error:", "error=", "{\"error\""))
                 out.write(text + "\n")
         out.flush()
     except KeyboardInterrupt:

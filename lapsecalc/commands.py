@@ -18,7 +18,8 @@ def _clear(s, w, args):
         for k in CLEAR[a.lower()]:
             new.pop(k, None)
     s.commit(new)
-    return ack(s, "cleared " + (" ".join(a.lower() for a in args) if args else "all settings"))
+    return ack(s, "cleared " + (" ".join(a.lower() for a in args) if args else "all settings"),
+               ["clear"])
 
 
 _DISPLAY = {"ft": ("h", "ft"), "m": ("h", "m"), "c": ("t", "c"), "degc": ("t", "c"),
@@ -35,7 +36,7 @@ def _unit(s, w, args):
         disp[k] = v
     s.disp = disp
     return ack(s, "units %s %s %s" % (disp["h"], disp["t"].upper(),
-                                      "hPa" if disp["p"] == "hpa" else "inHg"))
+                                      "hPa" if disp["p"] == "hpa" else "inHg"), ["unit"])
 
 
 def _out(s, w, args):
@@ -49,7 +50,7 @@ def _out(s, w, args):
             raise ValueError("out json needs the json module, missing here; accepted text, kv")
         s.json = json
     s.mode = mode
-    return ack(s, "out " + mode)
+    return ack(s, "out " + mode, ["out"])
 
 
 def _help(s, w, args):

@@ -3,7 +3,7 @@
 #   13-column label, then the value in the session's display units.
 from lapsecalc import units
 from lapsecalc.groups import GROUPS
-from lapsecalc.output import f_h, f_t, f_dt, f_p
+from lapsecalc.output import f_h, f_t, f_dt, f_p, wrap as wrap_text
 from lapsecalc.state import dewpoint_of, STANDARD_QNH_HPA, ISA_LAPSE_K_PER_KM, DEFAULT_TOP_M
 
 # A new result key: its label and kind here (LABELS), its place in lapsecalc.groups.
@@ -213,13 +213,7 @@ def wrap(items, mark, width=40):
     """Each sentence as lines of at most width columns, the first marked mark."""
     out = []
     for c in items:
-        line = mark
-        for word in c.split():
-            if len(line) + 1 + len(word) > width and len(line) > 2:
-                out.append(line)
-                line = " "
-            line += " " + word
-        out.append(line)
+        out.extend(wrap_text(c, mark + " ", "  ", width))
     return out
 
 

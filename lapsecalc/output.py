@@ -4,7 +4,7 @@ line of a taken line, and values in kv form (runs on MicroPython)."""
 #
 # The f_* functions take the session (they read s.disp) and give a padded column
 # ("   1350 ft    411 m") or, with compact, the short form for acks ("1350 ft (411 m)").
-# kv: None is an empty value, booleans 0/1, numbers %.6g, lists comma-joined,
+# kv: None is an empty value, booleans 0/1, numbers as DECIMALS says, lists comma-joined,
 # stability_layers bottom:top:elr:salr:class joined by ";", lists of sentences joined
 # by " | ".
 from lapsecalc import units
@@ -22,14 +22,20 @@ def f_h1(s, z_m):
     return "%d %s" % (round(units.m_to_ft(z_m) if s.disp["h"] == "ft" else z_m), s.disp["h"])
 
 
+def _one(x):
+    # x rounded to a tenth, with no "-0.0".
+    return round(x, 1) + 0.0
+
+
 def f_t(s, t_c, compact=False):
     t, u = (units.c_to_f(t_c), "F") if s.disp["t"] == "f" else (t_c, "C")
-    return ("%.1f %s" if compact else "%7.1f %s") % (t, u)
+    return ("%.1f %s" if compact else "%7.1f %s") % (_one(t), u)
 
 
 def f_dt(s, k, compact=False):
-    d, u = (k * 1.8, "F") if s.disp["t"] == "f" else (k, "K")
-    return ("%+.1f %s" if compact else "%+7.1f %s") % (d, u)
+    """A temperature difference, always in K (a step of 1 K is a step of 1 C; never
+    converted as if it were a temperature)."""
+    return ("%+.1f K" if compact else "%+7.1f K") % _one(k)
 
 
 def f_p(s, hpa, compact=False):
@@ -47,11 +53,46 @@ def f_lapse(s, lapse):
         round(units.m_to_ft(t) if h == "ft" else t), h)) for t, r in lapse) + " K/km"
 
 
-def ack(s, what):
+def wrap(text, first, rest="  ", width=40):
+    """text as lines of at most width columns (a word longer than a line stays whole),
+    the first starting with first, the others with rest."""
+    out = []
+    line = first
+    words = []
+    for word in text.split():
+        while len(word) > width - len(rest):  # a word longer than a line: cut
+            words.append(word[:width - len(rest)])
+            word = word[width - len(rest):]
+        words.append(word)
+    for word in words:
+        bare = line in (first, rest)
+        if not bare and len(line) + 1 + len(word) > width:
+            out.append(line)
+            line, bare = rest, True
+        line += ("" if bare else " ") + word
+    out.append(line)
+    return out
+
+
+def say(s, key, text):
+    """One message (key "error" or "check") in session s's mode: text mode "key: ..."
+    wrapped to 40 columns; kv "key=..." on one line; json {"key": "..."}."""
+    if s.mode == "kv":
+        return ["%s=%s" % (key, text)]
+    if s.mode == "json":
+        return [s.json.dumps({key: text})]
+    return wrap(text, key + ": ")
+
+
+def ack(s, what, words=None):
     """The lines that say a line was taken: "ok: what" in text mode (wrapped to 40
-    columns when several settings share the line), else "ok"."""
+    columns when several settings share the line); in kv "ok=word,word" and in json
+    {"ok": [words]}, the words that were set (what itself when words is None)."""
     if s.mode != "text":
-        return ["ok"]
+        said = words if words is not None else [what]
+        if s.mode == "kv":
+            return ["ok=" + ",".join(said)]
+        return [s.json.dumps({"ok": said})]
     parts = []
     for x in ([what] if isinstance(what, str) else what):
         parts.extend(x.split(", "))
@@ -65,25 +106,60 @@ def ack(s, what):
     return out
 
 
-def kv_value(v):
+# Machine output (kv, json): decimals kept per key family, by the key's ending (the
+# first that matches). Enough for every use, and no float noise: 1008.9999999999992
+# is 1009, -2.27e-13 is 0. Keys of no family keep 6 significant digits.
+DECIMALS = (("_k_per_km", 3), ("_kg_m3", 5), ("_j_kg", 1), ("_g_kg", 3), ("_g_mol", 4),
+            ("_hpa", 2), ("_pct", 3), ("_m3", 3), ("_kg", 2), ("_m", 2), ("_c", 2),
+            ("_k", 2), ("purity", 4))
+
+
+def number_text(key, x):
+    """The float x of result key as machines get it (see DECIMALS)."""
+    for end, d in DECIMALS:
+        if key.endswith(end):
+            t = ("%." + str(d) + "f") % x
+            if "." in t:
+                t = t.rstrip("0").rstrip(".")
+            return "0" if t == "-0" else t
+    t = "%.6g" % x
+    return "0" if t == "-0" else t
+
+
+def machine(key, v):
+    """v with every float rounded as number_text says (for json; nested lists and
+    dicts too, a dict's own keys naming their families)."""
+    if isinstance(v, float):
+        return float(number_text(key, v)) + 0.0  # + 0.0: no -0.0
+    if isinstance(v, (list, tuple)):
+        return [machine(key, x) for x in v]
+    if isinstance(v, dict):
+        out = {}
+        for k in v:
+            out[k] = machine(k, v[k])
+        return out
+    return v
+
+
+def kv_value(v, key=""):
     """One value in kv form (see the module comment)."""
     if v is None:
         return ""
     if v is True or v is False:
         return "1" if v else "0"
     if isinstance(v, float):
-        return "%.6g" % v
+        return number_text(key, v)
     if isinstance(v, (list, tuple)):
         if v and isinstance(v[0], dict):
-            return ";".join(":".join(kv_value(r[k]) for k in (
+            return ";".join(":".join(kv_value(r[k], k) for k in (
                 "bottom_msl_m", "top_msl_m", "lapse_k_per_km", "saturated_k_per_km", "class"))
                 for r in v)
         if v and isinstance(v[0], str):
             return " | ".join(v)
-        return ",".join(kv_value(x) for x in v)
+        return ",".join(kv_value(x, key) for x in v)
     return str(v)
 
 
 def kv_lines(values, keys):
     """key=value lines of the keys of values, in the order of keys."""
-    return ["%s=%s" % (k, kv_value(values[k])) for k in keys if k in values]
+    return ["%s=%s" % (k, kv_value(values[k], k)) for k in keys if k in values]

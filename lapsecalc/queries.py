@@ -14,8 +14,8 @@ MicroPython)."""
 from lapsecalc.limits import check_t
 from lapsecalc.typed import number, shown, said, unit_kind, no_args
 from lapsecalc.groups import GROUPS, report_keys
-from lapsecalc.output import f_h, f_h1, f_p, kv_value, kv_lines
-from lapsecalc.state import assumed
+from lapsecalc.output import f_h, f_h1, f_p, kv_value, kv_lines, machine, ack
+from lapsecalc.state import assumed, STANDARD_QNH_HPA, ISA_LAPSE_K_PER_KM, DEFAULT_TOP_M
 
 
 def emit(s, keys, values, balloon=False):
@@ -30,7 +30,7 @@ def emit(s, keys, values, balloon=False):
         obj = {}
         for k in keys:
             if k in values:
-                obj[k] = values[k]
+                obj[k] = machine(k, values[k])
         if notes:
             obj["assumed"] = notes
         return [s.json.dumps(obj)]
@@ -168,7 +168,8 @@ def _c_svg(s, w, args):
     if s.svg_writer is None:
         raise ValueError("svg writes a file: only the CPython command line does"
                          " (lapsecalc --svg FILE)")
-    return [s.svg_writer(args[0], chart_svg(s))]
+    line = s.svg_writer(args[0], chart_svg(s))
+    return [line] if s.mode == "text" else ack(s, line, ["svg"])
 
 
 def chart_svg(s):
@@ -192,11 +193,14 @@ def _c_show(s, w, args):
     if s.mode == "text":
         from lapsecalc.layout import show_text
         return show_text(s)
+    # The values in force, defaults included and named in "defaults"; a setting with
+    # no default and not set is empty (None).
     kind, hum = st.get("hum", ("td", None))
     pk, p = st.get("press", ("qnh", None))
     lapse = st.get("lapse")
     if isinstance(lapse, list):
-        lapse = ";".join("%s:%s" % (kv_value(a), kv_value(b)) for a, b in lapse)
+        lapse = ";".join("%s:%s" % (kv_value(a, "_m"), kv_value(b, "_k_per_km"))
+                         for a, b in lapse)
     vals = {"t_c": st.get("t_c"), "td_c": hum if kind == "td" else None,
             "rh_pct": hum if kind == "rh" else None, "elevation_m": st.get("elev_m"),
             "qnh_hpa": p if pk == "qnh" else None,
@@ -205,14 +209,25 @@ def _c_show(s, w, args):
             "envelope_m3": st.get("env_m3"), "weight_kg": st.get("wt_kg"),
             "gas_volume_m3": st.get("fill_m3"), "max_envelope_t_c": st.get("tmax_c"),
             "envelope_t_c": st.get("tenv_c"), "gas": st.get("gas"),
-            "purity": st.get("purity"),
-            "units": "%s,%s,%s" % (s.disp["h"], s.disp["t"], s.disp["p"]), "out": s.mode}
+            "purity": st.get("purity")}
+    defaults = []
+    for key, value in (("qnh_hpa", STANDARD_QNH_HPA), ("elr_k_per_km", ISA_LAPSE_K_PER_KM),
+                       ("top_msl_m", DEFAULT_TOP_M), ("thermal_excess_c", 0.0),
+                       ("purity", 1.0 if "gas" in st else None)):
+        if vals[key] is None and value is not None and not (
+                key == "qnh_hpa" and pk == "stn"):
+            vals[key] = value
+            defaults.append(key)
+    vals["defaults"] = defaults if s.mode == "json" else ",".join(defaults)
+    vals["units"] = "%s,%s,%s" % (s.disp["h"], s.disp["t"], s.disp["p"])
+    vals["out"] = s.mode
+    keys = ("t_c", "td_c", "rh_pct", "elevation_m", "qnh_hpa", "station_pressure_hpa",
+            "elr_k_per_km", "top_msl_m", "thermal_excess_c", "envelope_m3", "weight_kg",
+            "gas_volume_m3", "max_envelope_t_c", "envelope_t_c", "gas", "purity",
+            "defaults", "units", "out")
     if s.mode == "json":
-        return [s.json.dumps(vals)]
-    return kv_lines(vals, ("t_c", "td_c", "rh_pct", "elevation_m", "qnh_hpa",
-                           "station_pressure_hpa", "elr_k_per_km", "top_msl_m",
-                           "thermal_excess_c", "envelope_m3", "weight_kg", "gas_volume_m3",
-                           "max_envelope_t_c", "envelope_t_c", "gas", "purity", "units", "out"))
+        return [s.json.dumps(machine("", vals))]
+    return kv_lines(vals, keys)
 
 
 # query word -> f(session, word, args) -> output lines

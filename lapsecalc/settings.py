@@ -9,11 +9,11 @@
 # once every setting of the line has passed. A new setting word: a setter here, its
 # entry in SETTINGS, its state keys in state.CLEAR (and state.AIR_KEYS when the column
 # depends on them), its help in lapsecalc.helptext.
-from lapsecalc.limits import check, check_t, check_elev, check_p, check_lapse
-from lapsecalc.limits import QNH_MIN_HPA, QNH_MAX_HPA
+from lapsecalc.limits import T_MIN_C, T_MAX_C, ELEV_MIN_M, ELEV_MAX_M, DEW_SLACK_K
+from lapsecalc.limits import QNH_MIN_HPA, QNH_MAX_HPA, P_MIN_HPA, P_MAX_HPA
 from lapsecalc.column import TOP_MAX_M
-from lapsecalc.typed import number, shown
-from lapsecalc.output import f_h, f_t, f_dt, f_p, f_lapse
+from lapsecalc.typed import number, shown, value, said, unit_of, digits, in_unit
+from lapsecalc.output import f_h1, f_t, f_dt, f_p, f_lapse
 
 try:
     from micropython import const
@@ -22,46 +22,122 @@ except ImportError:
         return x
 
 _MAX_LAYERS = const(12)
+# Above these a temperature or dewpoint read as degC is hotter than any surface
+# observation (world records about 57 C and 35 C, from memory): likely typed in F.
+_HOT_T_C = 50.0
+_HOT_TD_C = 32.0
+
+
+def _sig(x):
+    # A derived amount at a sensible precision: 680, 12.3, 0.45.
+    return ("%.0f" if x >= 100.0 else "%.1f" if x >= 10.0 else "%.2f") % x
+
+
+def echo(s, tok, kind, bare, x):
+    """The typed number tok (value x in the library's unit) said back as typed, and in
+    the display unit when it was typed in another: "80.6 F (27.0 C)", "1350 ft (411 m)"."""
+    u = unit_of(tok, bare)
+    text = said(tok, bare)
+    other = None
+    if kind == "t" and u not in (s.disp["t"], "deg" + s.disp["t"]):
+        other = f_t(s, x, True)
+    elif kind == "h":
+        other = "%d m" % round(x) if u == "ft" else f_h1(s, x) if u != s.disp["h"] else (
+            "%d ft" % round(x / 0.3048))
+    elif kind == "p" and (u == "inhg") != (s.disp["p"] == "inhg") or u in ("mmhg", "kpa"):
+        other = f_p(s, x, True)
+    elif kind in ("w", "v") and u in ("lb", "ft3"):
+        other = _sig(x) + (" kg" if kind == "w" else " m3")
+    elif kind == "dt" and u in ("f", "degf"):
+        other = f_dt(s, x, True)
+    return text if other is None else "%s (%s)" % (text, other)
+
+
+def _f_hint(tok, bare, x, lo, hi):
+    # For a bare temperature read in C that is out of range but fits in F: the hint.
+    if unit_of(tok, bare) == "c" and tok == digits(tok) and lo <= (x - 32.0) / 1.8 <= hi:
+        return "; in F write %sF" % tok
+    return ""
+
+
+def _temp(s, tok, what, hot):
+    # A temperature or dewpoint setting: (value degC, ack text); a check line when it
+    # is hotter than any surface observation.
+    bare = s.disp["t"]
+    try:
+        x = value(tok, "t", bare, T_MIN_C, T_MAX_C)
+    except ValueError as e:
+        x = number(tok, "t", bare)
+        raise ValueError(str(e) + _f_hint(tok, bare, x, T_MIN_C, T_MAX_C))
+    if x > hot and unit_of(tok, bare) == "c":
+        s.checks.append("%s %s is %s on record; in F write %sF" % (
+            what, said(tok, bare), "higher than any dewpoint" if what == "dew" else
+            "hotter than any surface air", digits(tok)))
+    return x, "%s %s" % (what, echo(s, tok, "t", bare, x))
 
 
 # ---- settings: f(session, new_state, args) -> words for the "ok" line ----
 
 def _s_temp(s, new, args):
-    new["t_c"] = check_t("temp", number(args[0], "t", s.disp["t"]))
-    return "temp " + f_t(s, new["t_c"], True)
+    new["t_c"], text = _temp(s, args[0], "temp", _HOT_T_C)
+    return text
 
 
 def _s_dew(s, new, args):
-    new["hum"] = ("td", check_t("dew", number(args[0], "t", s.disp["t"])))
-    return "dew " + f_t(s, new["hum"][1], True)
+    td, text = _temp(s, args[0], "dew", _HOT_TD_C)
+    new["hum"] = ("td", td)
+    return text
 
 
 def _s_rh(s, new, args):
-    v = check("rh", number(args[0], "rh", "%"), 0.0, 100.0, "%")
+    v = value(args[0], "rh", "%", 0.0, 100.0)
     if v <= 0.0:
-        raise ValueError("rh=0 has no dewpoint; accepted above 0 up to 100 %")
+        raise ValueError("0 % has no dewpoint; accepted above 0 up to 100 %")
+    if v <= 1.0:
+        # A fraction typed for a percentage (0.45 for 45 %): possible, but rare.
+        s.checks.append("rh %s %%? for %g %% write %g%%" % (digits(args[0]), v * 100.0,
+                                                           v * 100.0))
     new["hum"] = ("rh", v)
-    return "rh %.1f %%" % v
+    return "rh " + said(args[0], "%")
 
 
 def _s_elev(s, new, args):
-    new["elev_m"] = check_elev("elev", number(args[0], "h", s.disp["h"]))
-    return "elev " + f_h(s, new["elev_m"], True)
+    new["elev_m"] = value(args[0], "h", s.disp["h"], ELEV_MIN_M, ELEV_MAX_M)
+    return "elev " + echo(s, args[0], "h", s.disp["h"], new["elev_m"])
+
+
+def _pressure(s, tok, lo, hi):
+    # A pressure within lo..hi hPa, refused with a hint for the other unit's habit:
+    # 3012 or 29.92 read as hPa (inches typed bare), 1013 read as inHg.
+    bare = s.disp["p"]
+    x = number(tok, "p", bare)
+    if lo <= x <= hi:
+        return x
+    u = unit_of(tok, bare)
+    n = float(digits(tok))
+    hint = ""
+    if u in ("hpa", "mb", "mbar") and 2500.0 <= n <= 3300.0:
+        hint = "; for %.2f inHg write %.2finHg" % (n / 100.0, n / 100.0)
+    elif u in ("hpa", "mb", "mbar") and 25.0 <= n <= 33.0:
+        hint = "; for inches write %sinHg" % digits(tok)
+    elif u == "inhg" and 850.0 <= n <= 1100.0:
+        hint = "; for hPa write %shPa" % digits(tok)
+    try:
+        return value(tok, "p", bare, lo, hi)
+    except ValueError as e:
+        raise ValueError(str(e) + hint)
 
 
 def _s_qnh(s, new, args):
-    v = number(args[0], "p", s.disp["p"])
-    if not (QNH_MIN_HPA <= v <= QNH_MAX_HPA):
-        raise ValueError("qnh=%g hPa is outside %g..%g hPa%s" % (
-            v, QNH_MIN_HPA, QNH_MAX_HPA,
-            " (for inches write %sinHg)" % shown(args[0]) if 25.0 < v < 35.0 else ""))
+    v = _pressure(s, args[0], QNH_MIN_HPA, QNH_MAX_HPA)
     new["press"] = ("qnh", v)
-    return "QNH " + f_p(s, v, True)
+    return "QNH " + echo(s, args[0], "p", s.disp["p"], v)
 
 
 def _s_stn(s, new, args):
-    new["press"] = ("stn", check_p("stn", number(args[0], "p", s.disp["p"])))
-    return "station " + f_p(s, new["press"][1], True)
+    v = _pressure(s, args[0], P_MIN_HPA, P_MAX_HPA)
+    new["press"] = ("stn", v)
+    return "station " + echo(s, args[0], "p", s.disp["p"], v)
 
 
 def _s_elr(s, new, args):
@@ -75,11 +151,15 @@ def _s_elr(s, new, args):
         parts = a.split("@")
         if len(parts) > 2:
             raise ValueError("'%s': one @ per layer, e.g. 8@2km" % shown(a))
-        rate = check_lapse("elr", number(parts[0], "l", "k/km"))
+        rate = value(parts[0], "l", "k/km", -30.0, 30.0)
         top = None
         if len(parts) == 2:
-            top = below = check("layer top", number(parts[1], "h", s.disp["h"]), below + 1.0,
-                                TOP_MAX_M, "m above the field (above the layer below)")
+            top = number(parts[1], "h", s.disp["h"])
+            if top < below + 1.0:
+                raise ValueError("layer top %s is not above %s" % (
+                    said(parts[1], s.disp["h"]),
+                    "the field" if not below else "the layer below (%s AGL)" % f_h1(s, below)))
+            top = below = value(parts[1], "h", s.disp["h"], below + 1.0, TOP_MAX_M)
         elif k != len(args) - 1:
             raise ValueError("'%s' has no @top; only the last layer runs to the column top"
                              % shown(a))
@@ -89,13 +169,14 @@ def _s_elr(s, new, args):
 
 
 def _s_top(s, new, args):
-    new["top_m"] = check("top", number(args[0], "h", s.disp["h"]), -400.0, TOP_MAX_M, "m MSL")
-    return "top " + f_h(s, new["top_m"], True)
+    new["top_m"] = value(args[0], "h", s.disp["h"], -400.0, TOP_MAX_M)
+    return "top " + echo(s, args[0], "h", s.disp["h"], new["top_m"])
 
 
 def _s_excess(s, new, args):
-    new["excess_c"] = check("excess", number(args[0], "dt", s.disp["t"]), 0.0, 10.0, "K")
-    return "excess " + f_dt(s, new["excess_c"], True)
+    # A temperature difference: bare in K (or C: the same step), F typed as F.
+    new["excess_c"] = value(args[0], "dt", "k", 0.0, 10.0)
+    return "excess " + echo(s, args[0], "dt", "k", new["excess_c"])
 
 
 def _s_metar(s, new, args):
@@ -123,15 +204,15 @@ def _s_metar(s, new, args):
 def _s_amount(key, kind, lo, hi, unit, name):
     # A setter of a balloon amount (volume or mass) in lo..hi.
     def setter(s, new, args):
-        new[key] = check(name, number(args[0], kind, unit), lo, hi, unit)
-        return "%s %.6g %s" % (name, new[key], unit)
+        new[key] = value(args[0], kind, unit, lo, hi)
+        return "%s %s" % (name, echo(s, args[0], kind, unit, new[key]))
     return setter
 
 
 def _s_tballoon(key, name):
     def setter(s, new, args):
-        new[key] = check(name, number(args[0], "t", s.disp["t"]), -90.0, 150.0, "degC")
-        return name + " " + f_t(s, new[key], True)
+        new[key] = value(args[0], "t", s.disp["t"], -90.0, 150.0)
+        return "%s %s" % (name, echo(s, args[0], "t", s.disp["t"], new[key]))
     return setter
 
 
@@ -148,8 +229,31 @@ def _s_gas(s, new, args):
 
 
 def _s_pure(s, new, args):
-    new["purity"] = check("pure", number(args[0], "rh", "%"), 50.0, 100.0, "%") / 100.0
-    return "purity %.1f %%" % (100.0 * new["purity"])
+    new["purity"] = value(args[0], "rh", "%", 50.0, 100.0) / 100.0
+    return "purity " + said(args[0], "%")
+
+
+def whole(s, new):
+    """Check what one setting alone cannot (ValueError in the user's words and display
+    units): a dewpoint above the temperature, a station pressure without a QNH in
+    range, a column top too close to the field."""
+    t, hum = new.get("t_c"), new.get("hum")
+    if t is not None and hum is not None and hum[0] == "td" and hum[1] > t + DEW_SLACK_K:
+        raise ValueError("dew %s is above temp %s; a dewpoint cannot exceed the temperature"
+                         % (f_t(s, hum[1], True), f_t(s, t, True)))
+    press, elev = new.get("press"), new.get("elev_m")
+    if press is not None and press[0] == "stn" and elev is not None:
+        from lapsecalc.standard import qnh
+        try:
+            qnh(press[1], elev)
+        except ValueError:
+            lo, hi = in_unit(QNH_MIN_HPA, s.disp["p"], "p"), in_unit(QNH_MAX_HPA, s.disp["p"], "p")
+            raise ValueError("stn %s at elev %s gives a QNH outside %s..%s; check both"
+                             % (f_p(s, press[1], True), f_h1(s, elev), lo[:lo.find(" ")], hi))
+    top = new.get("top_m")
+    if top is not None and elev is not None and top < elev + 100.0:
+        raise ValueError("top %s is less than 100 m (330 ft) above the field (%s)"
+                         % (f_h1(s, top), f_h1(s, elev)))
 
 
 # What a setting word takes: one value, a run of numbers, or the rest of the line.

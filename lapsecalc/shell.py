@@ -12,9 +12,9 @@
 # lapsecalc.layout (text lines, loaded by text output) -> lapsecalc.groups (result
 # keys), lapsecalc.output (display units, acks, kv values), lapsecalc.state (state
 # keys, defaults, the Column), lapsecalc.typed (numbers, units, aliases) -> the library.
-from lapsecalc.typed import ALIASES, shown, starts_number, nearest
+from lapsecalc.typed import ALIASES, AMBIGUOUS, shown, starts_number, nearest, is_unit, join_words
 from lapsecalc.state import AIR_KEYS, missing, build_column, dewpoint_of
-from lapsecalc.settings import SETTINGS, ONE, NUMBERS
+from lapsecalc.settings import SETTINGS, ONE, NUMBERS, whole
 from lapsecalc.queries import QUERIES
 from lapsecalc.commands import COMMANDS
 
@@ -42,10 +42,40 @@ def split_line(line):
     return (line[:i] if i >= 0 else line).split()
 
 
-def _unknown(word):
-    near = nearest(word, list(SETTINGS) + list(_WORDS))
+# Query words that take a number after them (a first word followed by a number is
+# one of these or a setting).
+_TAKE_NUMBER = ("at", "da", "iso", "balloon", "chart")
+
+
+def _unknown(word, settings_only=False, number_next=False):
+    # The error for a word no table has. A suggestion is only of the same kind: a unit
+    # is said to be one; in a line of settings only settings are suggested; a first
+    # word followed by a number, only words that take one.
+    if is_unit(word):
+        return "'%s' is a unit: write it after its number, e.g. elev 6500 ft" % shown(word)
+    if word.lower() in AMBIGUOUS:
+        return AMBIGUOUS[word.lower()]
+    known = list(SETTINGS)
+    if not settings_only:
+        known += list(_TAKE_NUMBER) if number_next else list(_WORDS)
+    for a in ALIASES:
+        if ALIASES[a] in known and len(a) > 2:
+            known.append(a)
+    near = nearest(word, known)
+    near = ALIASES.get(near, near)
     return "unknown word '%s'; %s(help lists the words)" % (
         shown(word), "did you mean '%s'? " % near if near else "")
+
+
+def _is_kv(line):
+    # "key=value" with a key of lower-case letters, digits and "_".
+    i = line.find("=")
+    if i < 1:
+        return False
+    for ch in line[:i]:
+        if not ("a" <= ch <= "z" or "0" <= ch <= "9" or ch == "_"):
+            return False
+    return True
 
 
 def drop_modules(names):
@@ -81,24 +111,33 @@ class Session:
         self.done = False
         self.svg_writer = svg_writer
         self.json = None  # the json module, once "out json" was asked for
+        self.checks = []  # "check:" lines of the line being run (a word adds them)
         self._col = self._rep = self._levels = None
         # On a board, WORD_MODULES are dropped after each line (drop_modules).
         self.drop_word_modules = _on_board()
 
     def feed(self, line):
-        """Run one line; return its output lines (no newlines in them)."""
+        """Run one line; return its output lines (no newlines in them). In text mode
+        an error is "error: ..." wrapped to 40 columns; in kv mode every line is
+        key=value or starts "#"; in json mode every line is one JSON object."""
+        from lapsecalc.output import say
+        self.checks = []
         try:
             out = self._dispatch(line)
         except ValueError as e:
-            return ["error: " + shown(str(e), 300)]
+            return say(self, "error", shown(str(e), 300))
         except Exception as e:  # a corner the library did not foresee: still one line
-            return ["error: cannot compute that (%s: %s); nothing changed"
-                    % (type(e).__name__, shown(str(e), 200))]
+            return say(self, "error", "cannot compute that (%s: %s); nothing changed"
+                       % (type(e).__name__, shown(str(e), 200)))
         finally:
             if self.drop_word_modules:
                 drop_modules(WORD_MODULES)
+        for c in self.checks:
+            out.extend(say(self, "check", c))
         if self.mode == "json":
             out = [x if x[:1] == "{" else self.json.dumps({"text": x}) for x in out]
+        elif self.mode == "kv":
+            out = [x if x[:1] == "#" or _is_kv(x) else "# " + x for x in out]
         return out
 
     def _dispatch(self, line):
@@ -107,7 +146,7 @@ class Session:
         if len(line) > _MAX_LINE:
             raise ValueError("line of %d characters refused; accepted at most %d"
                              % (len(line), _MAX_LINE))
-        words = split_line(line)
+        words = join_words(split_line(line))
         if not words:
             return []
         w = words[0].lower()
@@ -118,12 +157,13 @@ class Session:
             return _WORDS[w](self, w, words[1:])
         if starts_number(w):
             raise ValueError("a line starts with a word, e.g. temp 27C (help lists them)")
-        raise ValueError(_unknown(words[0]))
+        raise ValueError(_unknown(words[0], False, len(words) > 1 and starts_number(words[1])))
 
     def _settings(self, words):
         from lapsecalc.output import ack
         new = dict(self.state)
         said = []
+        set_words = []
         i = 0
         while i < len(words):
             w = words[i].lower()
@@ -132,7 +172,7 @@ class Session:
                 if w in _WORDS:
                     raise ValueError("'%s' cannot share a line with settings; give it its"
                                      " own line" % w)
-                raise ValueError(_unknown(words[i]))
+                raise ValueError(_unknown(words[i], True))
             fn, takes, example = SETTINGS[w]
             j = i + 2 if takes == ONE else len(words)
             if takes == NUMBERS:
@@ -144,11 +184,13 @@ class Session:
                 raise ValueError("%s needs a value, e.g. %s" % (w, example))
             try:
                 said.append(fn(self, new, args))
+                set_words.append(w)
             except ValueError as e:
-                raise ValueError("%s: %s" % (" ".join([w] + args)[:40], e))
+                raise ValueError("%s %s" % (w, e))
             i = j
+        whole(self, new)
         self.commit(new)
-        return ack(self, said)
+        return ack(self, said, set_words)
 
     def commit(self, new):
         """Check the whole new state, then replace the old one (nothing changes before)."""

@@ -31,9 +31,17 @@ _WRITTEN = {"c": "C", "degc": "C", "f": "F", "degf": "F", "k": "K", "hpa": "hPa"
 _ACCEPTED = {"t": "C F K", "h": "ft m km", "p": "hPa mb inHg mmHg kPa",
              "l": "K/km C/1000ft C/100m F/1000ft", "rh": "%", "v": "m3 ft3", "w": "kg lb"}
 
-# Other names of words: typed word -> the word it stands for.
-ALIASES = {"t": "temp", "td": "dew", "frz": "ice", "therm": "thermal", "units": "unit",
-           "bal": "balloon", "?": "help", "quit": "bye", "exit": "bye"}
+# Other names of words: typed word -> the word it stands for. Each stands for one word
+# only; "alt" (altimeter or altitude?) is refused with both (AMBIGUOUS).
+ALIASES = {"t": "temp", "oat": "temp", "temperature": "temp", "td": "dew", "dp": "dew",
+           "dewpoint": "dew", "humidity": "rh", "elevation": "elev", "altimeter": "qnh",
+           "frz": "ice", "therm": "thermal", "units": "unit", "bal": "balloon", "?": "help",
+           "quit": "bye", "exit": "bye"}
+AMBIGUOUS = {"alt": "'alt' is the altimeter setting or an altitude: write qnh (qnh"
+                    " 29.92inHg), elev (elev 1350ft) or at (at 8000ft)"}
+# Two typed words that are one: "field elevation".
+PAIRS = {("field", "elevation"): "elev", ("field", "elev"): "elev",
+         ("dew", "point"): "dew", ("altimeter", "setting"): "qnh"}
 
 
 def shown(text, cap=24):
@@ -85,6 +93,67 @@ def number(tok, kind, bare):
     return x if entry[1] is None else entry[1](x)
 
 
+# Library unit -> the unit u: converters for the units that are not the library's.
+_FROM_LIB = {"f": units.c_to_f, "degf": units.c_to_f, "k": units.c_to_k,
+             "ft": units.m_to_ft, "km": units.m_to_km, "inhg": units.hpa_to_inhg,
+             "mmhg": units.hpa_to_mmhg, "kpa": units.hpa_to_kpa,
+             "c/1000ft": units.k_per_km_to_c_per_1000ft,
+             "k/1000ft": units.k_per_km_to_c_per_1000ft,
+             "f/1000ft": lambda x: units.k_per_km_to_c_per_1000ft(x) * 1.8,
+             "c/100m": units.k_per_km_to_c_per_100m, "k/100m": units.k_per_km_to_c_per_100m,
+             "ft3": units.m3_to_ft3, "lb": units.kg_to_lb}
+# Decimals of a range bound said in unit u (0 when not listed).
+_BOUND_DECIMALS = {"inhg": 2, "km": 1, "kpa": 1, "c/1000ft": 2, "k/1000ft": 2,
+                   "f/1000ft": 1, "c/100m": 1, "k/100m": 1}
+
+
+def unit_of(tok, bare):
+    """The unit (lower case) the typed number tok is in: its own or bare."""
+    sp = split_number(tok)
+    return (sp[1] if sp is not None and sp[1] else bare)
+
+
+def in_unit(x, u, kind="t"):
+    """x in the library's unit of kind said in unit u, as text with u ("140 F")."""
+    if kind == "dt":
+        v = x * 1.8 if u in ("f", "degf") else x
+    else:
+        conv = _FROM_LIB.get(u)
+        v = x if conv is None else conv(x)
+    d = _BOUND_DECIMALS.get(u, 0 if abs(v) >= 10.0 else 2)
+    text = ("%." + str(d) + "f") % v
+    if "." in text:
+        text = text.rstrip("0").rstrip(".")
+    return ("0" if text == "-0" else text) + " " + _WRITTEN.get(u, u)
+
+
+def value(tok, kind, bare, lo, hi):
+    """The typed number tok (number()) within lo..hi (the library's unit), else a
+    ValueError in the user's unit and words: "99 C is outside -90..60 C"."""
+    x = number(tok, kind, bare)
+    if not lo <= x <= hi:
+        u = unit_of(tok, bare)
+        lo_t, hi_t = in_unit(lo, u, kind), in_unit(hi, u, kind)
+        raise ValueError("%s is outside %s..%s" % (said(tok, bare), lo_t[:lo_t.find(" ")],
+                                                   hi_t))
+    return x
+
+
+def digits(tok):
+    """The digits of the typed number tok as said back: no "+", no "-0", "0.5" for
+    ".5" (the precision typed is kept: "0.45", "27.0")."""
+    d = split_number(tok)[0]
+    if d[:1] == "+":
+        d = d[1:]
+    if d[:1] == "-" and float(d) == 0.0:
+        d = d[1:]
+    if d[:1] == "." or d[:2] == "-.":
+        d = d.replace(".", "0.", 1)
+    if d[-1:] == ".":
+        d = d[:-1]
+    return d
+
+
 def said(tok, bare):
     """The typed number tok as it is said back: its digits as typed and its unit
     ("700 ft" for 700 typed with ft the bare unit, "2.5 km", "45 %")."""
@@ -92,7 +161,7 @@ def said(tok, bare):
     if sp is None:
         return shown(tok)
     u = sp[1] or bare
-    return "%s %s" % (sp[0], _WRITTEN.get(u, u))
+    return "%s %s" % (shown(digits(tok), 16), _WRITTEN.get(u, u))
 
 
 def unit_kind(tok):
@@ -106,6 +175,36 @@ def no_args(word, args):
     """Refuse anything after a word that takes nothing."""
     if args:
         raise ValueError("%s takes nothing after it; got '%s'" % (word, shown(args[0])))
+
+
+def is_unit(word):
+    """True when word is a unit name (ft, hPa, %...), not a word of the interpreter."""
+    return word.lower() in _UNITS or word.lower() == "feet"
+
+
+def join_words(words):
+    """The words of a line with a unit typed after a space joined to its number
+    ("6500", "ft" -> "6500ft"; "8@2", "km" -> "8@2km") and two-word names made one
+    ("field elevation" -> "elev"). A METAR (the rest of its line) is left as it is."""
+    out = []
+    rest = False
+    for w in words:
+        low = w.lower()
+        if rest:
+            out.append(w)
+            continue
+        rest = low == "metar"
+        if out and (out[-1].lower(), low) in PAIRS:
+            out[-1] = PAIRS[(out[-1].lower(), low)]
+            continue
+        if out and is_unit(w):
+            prev = out[-1].split("@")[-1]
+            sp = split_number(prev)
+            if sp is not None and sp[1] == "" and sp[0] == prev:
+                out[-1] += "ft" if low == "feet" else w
+                continue
+        out.append(w)
+    return out
 
 
 def starts_number(tok):

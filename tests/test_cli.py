@@ -40,8 +40,8 @@ def test_e_lines_run_and_exit():
     p = lapsecalc("-e", "temp 15 dew 5 elev 0 qnh 1013.25 elr 6.5", "-e", "out kv", "-e", "iso 0")
     assert p.returncode == 0, p.stderr
     lines = p.stdout.splitlines()
-    assert lines[0].startswith("ok: temp 15.0 C") and lines[2].startswith("    ELR 6.5")
-    assert lines[3] == "ok" and lines[4] == "iso_t_c=0"
+    assert lines[0].startswith("ok: temp 15 C") and lines[2].startswith("    ELR 6.5")
+    assert lines[3] == "ok=out" and lines[4] == "iso_t_c=0"
     # ISA: 0 degC at 15 / 6.5 km = 2307.69 m (ICAO Doc 7488/3 lapse rate).
     assert abs(float(lines[5].split("=")[1]) - 2307.69) < 0.01
 
@@ -50,19 +50,20 @@ def test_e_line_with_an_error_sets_the_status():
     p = lapsecalc("-e", "temp 15", "-e", "tmep 3", "-e", "show")
     assert p.returncode == 1
     lines = p.stdout.splitlines()
-    assert lines[0] == "ok: temp 15.0 C"
-    assert lines[1] == "error: unknown word 'tmep'; did you mean 'temp'? (help lists the words)"
-    assert lines[2].startswith("temp") and "15.0 C" in lines[2]
+    assert lines[0] == "ok: temp 15 C"
+    assert lines[1:3] == ["error: unknown word 'tmep'; did you mean",
+                          "  'temp'? (help lists the words)"]
+    assert lines[3].startswith("temp") and "15.0 C" in lines[3]
 
 
 def test_stdin_piped_has_no_prompt_and_stops_at_bye():
     p = lapsecalc(stdin="temp 20 dew 10\nelev 0\nout kv\nbase\nbye\ntemp 5\n")
     assert p.returncode == 0, p.stderr
     lines = p.stdout.splitlines()
-    assert lines[0] == "ok: temp 20.0 C, dew 10.0 C"
+    assert lines[0] == "ok: temp 20 C, dew 10 C"
     assert "lc>" not in p.stdout
     assert lines[-1].startswith("lcl_p_hpa=")
-    assert "temp 5" not in p.stdout and len([x for x in lines if x == "ok"]) == 1
+    assert "temp 5" not in p.stdout and len([x for x in lines if x == "ok=out"]) == 1
 
 
 def test_cr_and_crlf_line_ends_on_stdin_and_in_e():
@@ -70,20 +71,30 @@ def test_cr_and_crlf_line_ends_on_stdin_and_in_e():
     p = lapsecalc(stdin="temp 20 dew 10\relev 0\r\nout kv\rbase\r\nbye\rtemp 5\r")
     assert p.returncode == 0, p.stderr
     lines = p.stdout.splitlines()
-    assert lines[:3] == ["ok: temp 20.0 C, dew 10.0 C", "ok: elev 0 ft (0 m)", "ok"]
+    assert lines[:3] == ["ok: temp 20 C, dew 10 C", "ok: elev 0 ft (0 m)", "ok=out"]
     assert lines[-1].startswith("lcl_p_hpa=") and "temp 5" not in p.stdout
     p = lapsecalc("-e", "temp 20 dew 10\r\nelev 0\rout kv\r", "-e", "base\r\n")
     assert p.returncode == 0, p.stdout
     lines = p.stdout.splitlines()
-    assert lines[:3] == ["ok: temp 20.0 C, dew 10.0 C", "ok: elev 0 ft (0 m)", "ok"]
+    assert lines[:3] == ["ok: temp 20 C, dew 10 C", "ok: elev 0 ft (0 m)", "ok=out"]
     assert lines[-1].startswith("lcl_p_hpa=")
+
+
+def test_errors_set_the_status_in_every_mode():
+    for mode in ("kv", "json"):
+        p = lapsecalc("-e", "out " + mode, "-e", "temp 99")
+        assert p.returncode == 1, mode
+        assert p.stdout.splitlines()[-1] in ("error=temp 99 C is outside -90..60 C; in F"
+                                             " write 99F",
+                                             '{"error": "temp 99 C is outside -90..60 C;'
+                                             ' in F write 99F"}')
 
 
 def test_stdin_long_line_is_refused_whole():
     p = lapsecalc(stdin="temp 20 " + "x" * 5000 + " temp 30\nshow\n")
     lines = p.stdout.splitlines()
-    assert lines[0] == "error: line of 258 characters refused; accepted at most 256"
-    assert lines[1].startswith("temp") and "not set" in lines[1]
+    assert lines[:2] == ["error: line of 258 characters refused;", "  accepted at most 256"]
+    assert lines[2].startswith("temp") and "not set" in lines[2]
     assert p.returncode == 1
 
 

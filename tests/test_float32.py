@@ -321,7 +321,12 @@ def test_interpreter_kv_and_json_within_single_precision_tolerances(sh):
                 if now != mode:
                     continue
                 for a, b in zip(want, have):
-                    if a[:1] == "#" or a == "ok" or a.startswith("error:"):
+                    if a[:1] == "#" and b[:1] == "#":
+                        # Notes, and text for people in kv mode (a chart): the last
+                        # digit of a number may step, as in text mode.
+                        assert a == b or _last_digit_step(a, b), (line, a, b)
+                        continue
+                    if a.startswith(("ok", "error", '{"ok"', '{"error"')):
                         assert a == b, line
                         continue
                     if mode == "kv" and "=" not in a:

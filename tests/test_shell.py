@@ -9,6 +9,7 @@ import io
 import json
 import random
 
+import pytest
 from hypothesis import given, settings, strategies as st
 
 from lapsecalc.column import Column
@@ -42,13 +43,31 @@ def session(mode="text"):
     for line in SETUP:
         assert s.feed(line)[0].startswith("ok")
     if mode != "text":
-        assert s.feed("out " + mode) == (['{"text": "ok"}'] if mode == "json" else ["ok"])
+        assert s.feed("out " + mode) == (['{"ok": ["out"]}'] if mode == "json" else ["ok=out"])
     return s
 
 
 def kvdict(lines):
     # key=value lines to a dict; "#" lines are notes.
     return dict(line.split("=", 1) for line in lines if not line.startswith("#"))
+
+
+def unwrap(lines):
+    # Wrapped lines joined: a line starting "  " continues the one before.
+    out = []
+    for line in lines:
+        assert len(line) <= 40 or line.startswith("{") or "=" in line.split(" ")[0], line
+        if out and line.startswith("  ") and out[-1].startswith(("error: ", "check: ")):
+            out[-1] += " " + line.strip()
+        else:
+            out.append(line)
+    return out
+
+
+def run_unwrapped(s, script):
+    for line, want in script:
+        got = unwrap(s.feed(line))
+        assert got == want, "%r\n got  %r\n want %r" % (line, got, want)
 
 
 def run(s, script):
@@ -75,16 +94,34 @@ def P(p_hpa):
     return "%7.1f hPa" % p_hpa
 
 
+# Machine numbers: decimals kept per key family, as the README states (heights 0.01 m,
+# pressures 0.01 hPa, temperatures 0.01 K, RH 0.001 %, ...); others 6 significant
+# digits. Written here from the README's table, not taken from the code.
+FAMILIES = (("_k_per_km", 3), ("_kg_m3", 5), ("_j_kg", 1), ("_g_kg", 3), ("_g_mol", 4),
+            ("_hpa", 2), ("_pct", 3), ("_m3", 3), ("_kg", 2), ("_m", 2), ("_c", 2),
+            ("_k", 2), ("purity", 4))
+
+
+def NUM(key, x):
+    for end, d in FAMILIES:
+        if key.endswith(end):
+            text = "%.*f" % (d, x)
+            if "." in text:
+                text = text.rstrip("0").rstrip(".")
+            return "0" if text == "-0" else text
+    return "%.6g" % x
+
+
 def KV(key, v):
-    # kv layout: None empty, booleans 0/1, floats %.6g.
+    # kv layout: None empty, booleans 0/1, floats by NUM.
     if v is None:
         text = ""
     elif v is True or v is False:
         text = "1" if v else "0"
     elif isinstance(v, float):
-        text = "%.6g" % v
+        text = NUM(key, v)
     elif isinstance(v, list):
-        text = ",".join("%.6g" % x for x in v)
+        text = ",".join(NUM(key, x) for x in v)
     else:
         text = str(v)
     return "%s=%s" % (key, text)
@@ -154,37 +191,137 @@ def test_setup_is_the_demo_column():
     rep = demo_report()
     got = s.feed("report")
     assert got[0] == "elevation_m=411.48"
-    assert got == [("%s=%s" % (k, kv_value(rep[k]))) for k in
+    assert got == [("%s=%s" % (k, kv_value(rep[k], k))) for k in
                    [line.split("=", 1)[0] for line in got]]
     assert sorted(line.split("=", 1)[0] for line in got) == sorted(rep)
 
 
 def test_settings_text():
+    # Acks echo the number as typed, in the unit typed, and in the display unit when it
+    # was typed in another (1 ft = 0.3048 m, degF = degC * 9/5 + 32, 1 inHg = 33.8639
+    # hPa, 1 lb = 0.45359237 kg, 1 ft3 = 0.0283168 m3: REFERENCES.md, Units).
     s = Session()
     run(s, [
         ("elev 1350ft", ["ok: elev 1350 ft (411 m)"]),
-        ("temp 27C dew 13C qnh 1016", ["ok: temp 27.0 C, dew 13.0 C,", "    QNH 1016.0 hPa"]),
+        ("temp 27C dew 13C qnh 1016", ["ok: temp 27 C, dew 13 C, QNH 1016 hPa"]),
         ("elr 9.5@250m 7.5@2400m 6.5", ["ok: ELR 9.5@820ft 7.5@7874ft 6.5 K/km"]),
-        ("T 80.6F TD 55.4F", ["ok: temp 27.0 C, dew 13.0 C"]),
-        ("rh 50%", ["ok: rh 50.0 %"]),
-        ("qnh 29.97inHg", ["ok: QNH 1014.9 hPa"]),
+        ("T 80.6F TD 55.4F", ["ok: temp 80.6 F (27.0 C),", "    dew 55.4 F (13.0 C)"]),
+        ("rh 50%", ["ok: rh 50 %"]),
+        ("rh 0.45", ["ok: rh 0.45 %", "check: rh 0.45 %? for 45 % write 45%"]),
+        ("qnh 29.97inHg", ["ok: QNH 29.97 inHg (1014.9 hPa)"]),
         ("stn 967.4", ["ok: station 967.4 hPa"]),
         ("elr 2C/1000ft", ["ok: ELR 6.6 K/km (2.00 C/1000ft)"]),
         ("elr -5@300m 8@1500m 6.5", ["ok: ELR -5@984ft 8@4921ft 6.5 K/km"]),
         ("elr 6.5@3000m", ["ok: ELR 6.5@9843ft K/km"]),
         ("top 30000ft", ["ok: top 30000 ft (9144 m)"]),
-        ("excess 2C", ["ok: excess +2.0 K"]),
-        ("excess 3.6F", ["ok: excess +2.0 K"]),
+        ("excess 2C", ["ok: excess 2 C"]),
+        ("excess 3.6F", ["ok: excess 3.6 F (+2.0 K)"]),
+        ("temp -0.04 dew -0.0", ["ok: temp -0.04 C, dew 0.0 C"]),
         ("metar XKFL 121650Z 24010KT 9999 FEW045 24/M02 Q1016 RMK T02410021",
          ["ok: METAR temp 24.1 C, dew 2.1 C,", "    QNH 1016.0 hPa"]),
-        ("env 2800m3 wt 450kg tmax 120C", ["ok: envelope 2800 m3, weight 450 kg,", "    tmax 120.0 C"]),
-        ("env 100000ft3 wt 1000lb tenv 95C",
-         ["ok: envelope 2831.68 m3,", "    weight 453.592 kg, tenv 95.0 C"]),
-        ("gas he fill 6m3 pure 98%", ["ok: gas helium, fill 6 m3, purity 98.0 %"]),
+        ("metar XKFL 121650Z 24010KT 9999 FEW045 M00/M02 Q1016 RMK T10041021",
+         ["ok: METAR temp -0.4 C, dew -2.1 C,", "    QNH 1016.0 hPa"]),
+        ("metar XKFL 121650Z 24010KT 9999 FEW045 M00/M02 Q1016 RMK T10001021",
+         ["ok: METAR temp 0.0 C, dew -2.1 C,", "    QNH 1016.0 hPa"]),
+        ("env 2800m3 wt 450kg tmax 120C", ["ok: envelope 2800 m3, weight 450 kg,",
+                                           "    tmax 120 C"]),
+        ("env 100000ft3 wt 1500lb tenv 95C",
+         ["ok: envelope 100000 ft3 (2832 m3),", "    weight 1500 lb (680 kg), tenv 95 C"]),
+        ("gas he fill 6m3 pure 98%", ["ok: gas helium, fill 6 m3, purity 98 %"]),
         ("gas none", ["ok: gas none (hot air)"]),
         ("", []),
         ("   # a comment line", []),
     ])
+
+
+def test_units_after_a_space_and_aliases():
+    s = Session()
+    run(s, [
+        ("elev 6500 ft", ["ok: elev 6500 ft (1981 m)"]),
+        ("qnh 1016 hPa", ["ok: QNH 1016 hPa"]),
+        ("field elevation 411 m", ["ok: elev 411 m (1348 ft)"]),
+        ("elevation 1350 feet", ["ok: elev 1350 ft (411 m)"]),
+        ("oat 27 C dewpoint 13 C", ["ok: temp 27 C, dew 13 C"]),
+        ("temperature 80.6 F dp 55.4 F", ["ok: temp 80.6 F (27.0 C),",
+                                          "    dew 55.4 F (13.0 C)"]),
+        ("altimeter 29.92 inHg", ["ok: QNH 29.92 inHg (1013.2 hPa)"]),
+        ("altimeter setting 1013 mb", ["ok: QNH 1013 mb"]),
+        ("humidity 45 %", ["ok: rh 45 %"]),
+        ("elr 9.5@250 m 6.5 K/km", ["ok: ELR 9.5@820ft 6.5 K/km"]),
+    ])
+    # A unit after a space works for queries too; "alt" is refused with both meanings.
+    assert s.feed("at 3000 ft agl")[0].startswith("assumed") is False
+    assert s.feed("at 3000 ft agl")[0] == L("height", H(411.48 + 914.4))
+    run(s, [("alt 3000", ["error: 'alt' is the altimeter setting or",
+                          "  an altitude: write qnh (qnh",
+                          "  29.92inHg), elev (elev 1350ft) or at",
+                          "  (at 8000ft)"])])
+
+
+def test_suggestions_stay_of_the_same_kind():
+    s = Session()
+    # A unit in the place of a word is said to be a unit, never taken for a word.
+    run(s, [("elev 6500 ft m", ["error: 'm' is a unit: write it after its",
+                                "  number, e.g. elev 6500 ft"]),
+            ("ft 20", ["error: 'ft' is a unit: write it after",
+                       "  its number, e.g. elev 6500 ft"])])
+    # In a line of settings only settings are suggested ('bse' is near 'base', a query).
+    got = s.feed("temp 20 bse 3")
+    assert got[0].startswith("error: unknown word 'bse';") and "'base'" not in " ".join(got)
+    got = s.feed("temp 20 dwe 3")
+    assert "did you mean 'dew'?" in unwrap(got)[0]
+    # A first word followed by a number: a setting or a word that takes a number.
+    assert "did you mean 'temp'?" in unwrap(s.feed("tmep 30"))[0]
+    assert "'stab'" not in unwrap(s.feed("stap 30"))[0]
+    assert "did you mean 'stn'?" in unwrap(s.feed("stap 30"))[0]
+    assert "did you mean 'stab'?" in unwrap(s.feed("stap"))[0]
+    assert "did you mean 'dew'?" in unwrap(s.feed("dewpiont 10"))[0]
+
+
+def test_slips_of_habit():
+    # The rule: refuse a number that cannot be the quantity as read (outside the range
+    # the library takes); take one that can, but is rare enough that a habit explains
+    # it better, with a "check:" line. A refused line changes nothing.
+    s = session()
+    before = s.snapshot()
+    run(s, [
+        # A METAR's A3012 habit, and 29.92 bare with hPa as the display unit: refused.
+        ("qnh 3012", ["error: qnh 3012 hPa is outside 850..1100",
+                      "  hPa; for 30.12 inHg write 30.12inHg"]),
+        ("qnh 2992", ["error: qnh 2992 hPa is outside 850..1100",
+                      "  hPa; for 29.92 inHg write 29.92inHg"]),
+        ("qnh 29.92", ["error: qnh 29.92 hPa is outside",
+                       "  850..1100 hPa; for inches write",
+                       "  29.92inHg"]),
+        ("unit inHg", ["ok: units ft C inHg"]),
+        # 850..1100 hPa in inHg: 25.10..32.48 (1 inHg = 33.8639 hPa, REFERENCES.md).
+        ("qnh 1013", ["error: qnh 1013 inHg is outside",
+                      "  25.1..32.48 inHg; for hPa write",
+                      "  1013hPa"]),
+        ("unit hPa", ["ok: units ft C hPa"]),
+        # 99 degC is no air temperature (refused); in F it would be.
+        ("temp 99", ["error: temp 99 C is outside -90..60 C;", "  in F write 99F"]),
+    ])
+    assert s.snapshot()[0] == before[0]
+    # 59 and 40 read as degC are possible numbers but beyond every record: taken, with
+    # a check line each (world records about 57 C air, 35 C dewpoint, from memory).
+    run(s, [("temp 59 dew 40", ["ok: temp 59 C, dew 40 C",
+                                "check: temp 59 C is hotter than any",
+                                "  surface air on record; in F write 59F",
+                                "check: dew 40 C is higher than any",
+                                "  dewpoint on record; in F write 40F"]),
+            ("rh 0.45", ["ok: rh 0.45 %", "check: rh 0.45 %? for 45 % write 45%"]),
+            ("rh 1", ["ok: rh 1 %", "check: rh 1 %? for 100 % write 100%"]),
+            ("rh 45", ["ok: rh 45 %"]),
+            ("temp 15 dew 10", ["ok: temp 15 C, dew 10 C"])])
+    s.feed("out kv")
+    run(s, [("rh 0.5", ["ok=rh", "check=rh 0.5 %? for 50 % write 50%"]),
+            ("qnh 3012", ["error=qnh 3012 hPa is outside 850..1100 hPa; for 30.12 inHg"
+                          " write 30.12inHg"])])
+    s.feed("out json")
+    assert [json.loads(x) for x in s.feed("temp 45 dew 40")] == [
+        {"ok": ["temp", "dew"]}, {"check": "dew 40 C is higher than any dewpoint on record; in F"
+                                   " write 40F"}]
 
 
 def test_show_and_clear_text():
@@ -198,7 +335,7 @@ def test_show_and_clear_text():
                   L("top (default)", H(16000.0)), L("excess", "   +0.0 K"),
                   L("units", "ft C hPa, out text")]),
         ("clear qnh elr", ["ok: cleared qnh elr"]),
-        ("rh 50", ["ok: rh 50.0 %"]),
+        ("rh 50", ["ok: rh 50 %"]),
         ("show", [L("temp", T(27.0)),
                   # 30 degC at 50 % gives 18.45 (ASHRAE, REFERENCES.md); 27 degC at
                   # 50 % the library's dewpoint, shown to a tenth.
@@ -270,7 +407,7 @@ def test_queries_text():
     ])
     r2 = demo_report(2.0)
     run(s, [
-        ("excess 2K", ["ok: excess +2.0 K"]),
+        ("excess 2K", ["ok: excess 2 K"]),
         ("therm", [L("excess", "   +2.0 K"), L("thermal top", H(r2["thermal_top_msl_m"])),
                    L("thermals", " blue (dry, no cumulus)"), L("CCL", H(r2["ccl_msl_m"])),
                    L("trigger temp", T(r2["trigger_t_c"]))]),
@@ -300,8 +437,8 @@ def test_surface_inversion_gives_several_passes():
     # twice above a 15 degC surface... and 15 degC itself is the surface.
     s = Session()
     run(s, [("temp 15 dew 5 elev 0 qnh 1013.25 elr -5@300m 8", [
-        "ok: temp 15.0 C, dew 5.0 C,", "    elev 0 ft (0 m), QNH 1013.2 hPa,",
-        "    ELR -5@984ft 8 K/km"])])
+        "ok: temp 15 C, dew 5 C, elev 0 ft (0 m),",
+        "    QNH 1013.25 hPa, ELR -5@984ft 8 K/km"])])
     # Warmest 15 + 0.005 * 300 = 16.5 degC at 300 m; 16 degC at 200 m and at
     # 300 + 0.5 / 8 * 1000 = 362.5 m (linear layers, exact). The lowest height at or
     # below 16 degC is the surface itself.
@@ -326,8 +463,8 @@ def test_display_units():
                                           round(r["density_altitude_m"] / 0.3048)))]),
         # Bare numbers now are in the display units: 80.6 F is 27 degC (exact).
         ("temp 80.6", ["ok: temp 80.6 F"]),
-        ("elev 411.48", ["ok: elev 411 m (1350 ft)"]),
-        ("qnh 30.0", ["ok: QNH 30.00 inHg"]),
+        ("elev 411.48", ["ok: elev 411.48 m (1350 ft)"]),
+        ("qnh 30.0", ["ok: QNH 30.0 inHg"]),
     ])
     # 30.00 inHg = 1015.917 hPa (REFERENCES.md, Units); 0 degC = 32 F.
     z0 = Column.from_qnh(27.0, 13.0, 30.0 * 33.8639, 411.48, DEMO_COLUMN[4]).level(0.0)
@@ -335,7 +472,8 @@ def test_display_units():
         ("iso 32", [L("isotherm", "   32.0 F"), L("lowest <=T", "%7d m %7d ft" % (
             round(z0), round(z0 / 0.3048)))]),
         ("unit ft c hpa", ["ok: units ft C hPa"]),
-        ("unit km", ["error: unit: 'km' not accepted; accepted ft m C F hPa inHg"]),
+        ("unit km", ["error: unit: 'km' not accepted; accepted",
+                     "  ft m C F hPa inHg"]),
     ])
 
 
@@ -366,7 +504,7 @@ def test_report_text_has_everything_and_the_cautions():
 
 def test_report_marks_defaults():
     s = Session()
-    run(s, [("temp 20 dew 10 elev 0", ["ok: temp 20.0 C, dew 10.0 C,", "    elev 0 ft (0 m)"])])
+    run(s, [("temp 20 dew 10 elev 0", ["ok: temp 20 C, dew 10 C, elev 0 ft (0 m)"])])
     got = s.feed("report")
     assert got[:2] == ["assumed QNH 1013.25 hPa (standard; qnh not set)",
                        "assumed ELR 6.5 K/km (ISA; elr not set)"]
@@ -383,8 +521,8 @@ def test_chart_and_svg_words():
     got = s.feed("chart")
     assert len(got) == 21 and all(len(line) <= 40 for line in got)
     assert got[0] == "ft MSL vs temperature C"
-    assert s.feed("svg x.svg") == ["error: svg writes a file: only the CPython command line"
-                                   " does (lapsecalc --svg FILE)"]
+    assert unwrap(s.feed("svg x.svg")) == ["error: svg writes a file: only the CPython"
+                                           " command line does (lapsecalc --svg FILE)"]
     written = {}
 
     def writer(name, text):
@@ -401,10 +539,10 @@ def test_chart_and_svg_words():
 def test_balloon_text():
     s = session()
     col = demo_column()
-    run(s, [("balloon", ["error: balloon (hot air) needs env, wt, tmax: set first, e.g. env"
-                         " 2800m3 wt 450kg tmax 120C"]),
-            ("env 2800m3 wt 450kg tmax 120C",
-             ["ok: envelope 2800 m3, weight 450 kg,", "    tmax 120.0 C"])])
+    run_unwrapped(s, [("balloon", ["error: balloon (hot air) needs env, wt, tmax: set first,"
+                                   " e.g. env 2800m3 wt 450kg tmax 120C"]),
+                      ("env 2800m3 wt 450kg tmax 120C",
+                       ["ok: envelope 2800 m3, weight 450 kg,", "    tmax 120 C"])])
     hot = balloon.hot_air_report(col, 2800.0, 450.0, 120.0)
     got = s.feed("balloon")
     assert got[0] == L("height", H(411.48))
@@ -453,24 +591,27 @@ def test_queries_kv():
                     "trigger_t_c"),
     }
     run(s, [(word, [KV(k, r[k]) for k in keys]) for word, keys in groups.items()])
-    layers = ";".join("%.6g:%.6g:%.6g:%.6g:%s" % (x["bottom_msl_m"], x["top_msl_m"],
-                                                  x["lapse_k_per_km"], x["saturated_k_per_km"],
-                                                  x["class"]) for x in r["stability_layers"])
+    layers = ";".join("%s:%s:%s:%s:%s" % (
+        NUM("_m", x["bottom_msl_m"]), NUM("_m", x["top_msl_m"]),
+        NUM("_k_per_km", x["lapse_k_per_km"]), NUM("_k_per_km", x["saturated_k_per_km"]),
+        x["class"]) for x in r["stability_layers"])
     z = 9500 * 0.3048
     run(s, [
         ("stab", [KV("stability", r["stability"]), KV("stability_column", r["stability_column"]),
                   "stability_layers=" + layers]),
         ("iso -15C", ["iso_t_c=-15", KV("iso_level_msl_m", col.level(-15.0)),
                       KV("iso_levels_msl_m", col.crossings(-15.0))]),
+        # The values in force, defaults included and named in "defaults".
         ("show", ["t_c=27", "td_c=13", "rh_pct=", "elevation_m=411.48", "qnh_hpa=1016",
-                  "station_pressure_hpa=", "elr_k_per_km=250:9.5;2400:7.5;:6.5", "top_msl_m=",
-                  "thermal_excess_c=", "envelope_m3=", "weight_kg=", "gas_volume_m3=",
-                  "max_envelope_t_c=", "envelope_t_c=", "gas=", "purity=", "units=ft,c,hpa",
-                  "out=kv"]),
-        ("temp 28 dew 12", ["ok"]),
-        ("clear elr", ["ok"]),
-        ("unit m", ["ok"]),
-        ("help bye", ["bye      end the session. quit exit"]),
+                  "station_pressure_hpa=", "elr_k_per_km=250:9.5;2400:7.5;:6.5",
+                  "top_msl_m=16000", "thermal_excess_c=0", "envelope_m3=", "weight_kg=",
+                  "gas_volume_m3=", "max_envelope_t_c=", "envelope_t_c=", "gas=", "purity=",
+                  "defaults=top_msl_m,thermal_excess_c", "units=ft,c,hpa", "out=kv"]),
+        ("temp 28 dew 12", ["ok=temp,dew"]),
+        ("clear elr", ["ok=clear"]),
+        ("unit m", ["ok=unit"]),
+        # Text for people in kv mode is a "#" line.
+        ("help bye", ["# bye      end the session. quit exit"]),
         ("out text", ["ok: out text"]),
     ])
     s.feed("out kv")
@@ -499,7 +640,7 @@ def test_kv_report_keys_are_the_report_keys():
 def test_balloon_kv():
     s = session("kv")
     col = demo_column()
-    run(s, [("env 2800m3 wt 450kg tmax 120C tenv 100C", ["ok"])])
+    run(s, [("env 2800m3 wt 450kg tmax 120C tenv 100C", ["ok=env,wt,tmax,tenv"])])
     hot = balloon.hot_air_report(col, 2800.0, 450.0, 120.0, 100.0)
     got = s.feed("balloon")
     keys = [line.split("=", 1)[0] for line in got]
@@ -515,8 +656,8 @@ def test_isa_values_through_the_shell():
     # pressure altitude of the field is 0 and 0 degC lies at 15 / 6.5 km = 2307.7 m.
     s = Session()
     run(s, [("temp 15 dew 5 elev 0 qnh 1013.25 elr 6.5", [
-        "ok: temp 15.0 C, dew 5.0 C,", "    elev 0 ft (0 m), QNH 1013.2 hPa,",
-        "    ELR 6.5 K/km (1.98 C/1000ft)"]), ("out kv", ["ok"])])
+        "ok: temp 15 C, dew 5 C, elev 0 ft (0 m),", "    QNH 1013.25 hPa,",
+        "    ELR 6.5 K/km (1.98 C/1000ft)"]), ("out kv", ["ok=out"])])
     vals = kvdict(s.feed("at 1000m"))
     assert abs(float(vals["at_t_c"]) - 8.5) < MK
     assert abs(float(vals["at_p_hpa"]) - 898.75) < HPA
@@ -533,7 +674,7 @@ def test_density_altitude_check_value():
     # -60 degC adds under a metre (vapour pressure 0.02 hPa).
     s = Session()
     s.feed("out kv")
-    assert s.feed("stn 850hPa temp 30 dew -60 elev 1500m") == ["ok"]
+    assert s.feed("stn 850hPa temp 30 dew -60 elev 1500m") == ["ok=stn,temp,dew,elev"]
     vals = kvdict(s.feed("da"))
     assert abs(float(vals["density_altitude_m"]) - 2296.9) < 1.5
 
@@ -556,47 +697,57 @@ def test_json_mode():
     assert len(out) == 1
     obj = json.loads(out[0])
     assert sorted(obj) == sorted(r)
-    assert obj["cloud_base_msl_m"] == r["cloud_base_msl_m"]
+    # Numbers to the stated decimals (heights 0.01 m, temperatures and pressures 0.01).
+    assert obj["cloud_base_msl_m"] == round(r["cloud_base_msl_m"], 2)
     assert obj["stability_layers"][0]["class"] == r["stability_layers"][0]["class"]
-    assert json.loads(s.feed("base")[0]) == {k: r[k] for k in ("cloud_base_agl_m",
-                                                               "cloud_base_msl_m", "lcl_t_c",
-                                                               "lcl_p_hpa")}
-    for line in s.feed("help") + s.feed("chart") + s.feed("temp 27"):
+    assert json.loads(s.feed("base")[0]) == {k: round(r[k], 2) for k in (
+        "cloud_base_agl_m", "cloud_base_msl_m", "lcl_t_c", "lcl_p_hpa")}
+    for line in s.feed("help") + s.feed("chart"):
         assert isinstance(json.loads(line)["text"], str)
-    assert s.feed("bogus") == ["error: unknown word 'bogus'; (help lists the words)"]
+    assert [json.loads(x) for x in s.feed("temp 27 dew 12")] == [{"ok": ["temp", "dew"]}]
+    assert [json.loads(x) for x in s.feed("bogus")] == [
+        {"error": "unknown word 'bogus'; (help lists the words)"}]
+    assert [json.loads(x) for x in s.feed("temp 99")] == [
+        {"error": "temp 99 C is outside -90..60 C; in F write 99F"}]
+    assert [json.loads(x) for x in s.feed("unit m")] == [{"ok": ["unit"]}]
     assert json.loads(s.feed("show")[0])["out"] == "json"
 
 
 # -------------------------------------------------------------------- robustness
 
 def test_errors_name_the_problem_and_what_is_accepted():
+    # Errors in the user's words and display units (wrapped at 40 columns; unwrap joins
+    # the lines), never internal names or SI values the user did not type.
     s = session()
     COL = demo_column()
-    run(s, [
+    run_unwrapped(s, [
         ("tmep 30", ["error: unknown word 'tmep'; did you mean 'temp'? (help lists the words)"]),
         ("rport", ["error: unknown word 'rport'; did you mean 'report'? (help lists the words)"]),
         ("27C", ["error: a line starts with a word, e.g. temp 27C (help lists them)"]),
         ("temp", ["error: temp needs a value, e.g. temp 27C"]),
-        ("temp 99C", ["error: temp 99C: temp=99.0 is outside the allowed range -90..60 degC"]),
-        ("temp nan", ["error: temp nan: 'nan' is not a number; accepted e.g. 12, -3.5, 1e3,"
+        ("temp 99C", ["error: temp 99 C is outside -90..60 C"]),
+        ("temp 200F", ["error: temp 200 F is outside -130..140 F"]),
+        ("temp nan", ["error: temp 'nan' is not a number; accepted e.g. 12, -3.5, 1e3,"
                       " with a unit C F K"]),
-        ("temp 1e999", ["error: temp 1e999: '1e999' is not a finite number"]),
-        ("temp 20ft", ["error: temp 20ft: '20ft': unit 'ft' not accepted here; accepted C F K"]),
-        ("qnh 29.92", ["error: qnh 29.92: qnh=29.92 hPa is outside 850..1100 hPa (for inches"
-                       " write 29.92inHg)"]),
-        ("temp 20 dew 25", ["error: td_c=25.0 is above t_c=20.0; a dewpoint may not exceed the"
-                            " temperature (allowed -90..20.0 degC)"]),
-        ("elr 5@300m 3@200m", ["error: elr 5@300m 3@200m: layer top=200.0 is outside the allowed"
-                               " range 301..32000 m above the field (above the layer below)"]),
-        ("elr 8@1km 6.5@2km@3km", ["error: elr 8@1km 6.5@2km@3km: '6.5@2km@3km': one @ per"
-                                   " layer, e.g. 8@2km"]),
-        ("elr 8 6.5", ["error: elr 8 6.5: '8' has no @top; only the last layer runs to the"
+        ("temp 1e999", ["error: temp '1e999' is not a finite number"]),
+        ("temp 20ft", ["error: temp '20ft': unit 'ft' not accepted here; accepted C F K"]),
+        ("qnh 29.92", ["error: qnh 29.92 hPa is outside 850..1100 hPa; for inches write"
+                       " 29.92inHg"]),
+        ("temp 20 dew 25", ["error: dew 25.0 C is above temp 20.0 C; a dewpoint cannot"
+                            " exceed the temperature"]),
+        ("elev 40000", ["error: elev 40000 ft is outside -1640..29528 ft"]),
+        ("elr 5@300m 3@200m", ["error: elr layer top 200 m is not above the layer below"
+                               " (984 ft AGL)"]),
+        ("elr 40", ["error: elr 40 K/km is outside -30..30 K/km"]),
+        ("elr 8@1km 6.5@2km@3km", ["error: elr '6.5@2km@3km': one @ per layer, e.g. 8@2km"]),
+        ("elr 8 6.5", ["error: elr '8' has no @top; only the last layer runs to the"
                        " column top"]),
+        ("excess 12", ["error: excess 12 K is outside 0..10 K"]),
+        ("wt 50000lb", ["error: wt 50000 lb is outside 0.02..44092 lb"]),
         ("temp 20 base", ["error: 'base' cannot share a line with settings; give it its own"
                           " line"]),
         ("base now", ["error: base takes nothing after it; got 'now'"]),
         ("at", ["error: at needs a height, e.g. at 8000ft, at 2000ft agl, at 700hPa"]),
-        # Errors in the user's words and display units, never SI values not typed.
         ("at 99999ft", ["error: at: 99999 ft is above the column top (52493 ft)"]),
         ("at 700", ["error: at: 700 ft is below the field (1350 ft)"]),
         ("at 200m", ["error: at: 200 m is below the field (1350 ft)"]),
@@ -608,40 +759,26 @@ def test_errors_name_the_problem_and_what_is_accepted():
                           " lists them"]),
         ("clear moon", ["error: clear: 'moon' is not a setting; accepted dew elev elr env excess"
                         " fill gas pure qnh rh stn temp tenv tmax top wt"]),
-        ("gas neon", ["error: gas neon: 'neon' not accepted; accepted helium (he), hydrogen"
+        ("gas neon", ["error: gas 'neon' not accepted; accepted helium (he), hydrogen"
                       " (h2), none (hot air)"]),
         ("x" * (MAX_LINE + 1), ["error: line of 257 characters refused; accepted at most 256"]),
+        # A station pressure whose QNH at the elevation is out of range.
+        ("stn 1000 elev 3000m", ["error: stn 1000.0 hPa at elev 9843 ft gives a QNH"
+                                 " outside 850..1100 hPa; check both"]),
+        ("top 1400", ["error: top 1400 ft is less than 100 m (330 ft) above the field"
+                      " (1350 ft)"]),
     ])
-    # A station pressure whose QNH at the elevation is out of range: the library says so.
-    got = s.feed("stn 1000 elev 3000m")
-    assert got[0].startswith("error: p_station_hpa=1000.0 at elev_m=3000.0 gives QNH")
-    assert got[0].endswith("outside the allowed range 850..1100 hPa") and len(got) == 1
+    s.feed("unit m F inHg")
+    run_unwrapped(s, [
+        ("temp 99C", ["error: temp 99 C is outside -90..60 C"]),
+        ("temp 150", ["error: temp 150 F is outside -130..140 F"]),
+        ("at 100", ["error: at: 100 m is below the field (411 m)"]),
+        ("temp 90 dew 95", ["error: dew 95.0 F is above temp 90.0 F; a dewpoint cannot"
+                            " exceed the temperature"]),
+    ])
     assert s.feed(None) == ["error: a line must be text"]
     assert s.feed(b"temp 20") == ["error: a line must be text"]
     assert s.feed("#" * MAX_LINE) == []
-
-
-def test_missing_settings_are_named():
-    s = Session()
-    run(s, [
-        ("base", ["error: base needs temp, dew (or rh), elev: set first, e.g. temp 27C dew 13C"
-                  " elev 1350ft"]),
-        ("temp 20", ["ok: temp 20.0 C"]),
-        ("report", ["error: report needs dew (or rh), elev: set first, e.g. temp 27C dew 13C"
-                    " elev 1350ft"]),
-        ("dew 10", ["ok: dew 10.0 C"]),
-        ("chart", ["error: chart needs elev: set first, e.g. temp 27C dew 13C elev 1350ft"]),
-    ])
-
-
-def test_a_line_is_all_or_nothing():
-    s = session("kv")
-    before = s.feed("report"), s.feed("show")
-    for line in ("temp 20 dew 10 qnh 5000", "elev 500m temp 99", "temp 25 elr 8 bogus 3",
-                 "temp 25 metar XKFL 12/10 Q0001", "stn 100 elev 3000m", "top 300m",
-                 "dew 30", "temp 10", "clear top temp moon"):
-        assert s.feed(line)[0].startswith("error: "), line
-        assert (s.feed("report"), s.feed("show")) == before, line
 
 
 def test_bye_and_repl_stream():
@@ -659,8 +796,8 @@ def test_bye_and_repl_stream():
     finally:
         sys.stdout = old
     lines = out.getvalue().splitlines()
-    assert lines[:2] == ["ok: temp 20.0 C, dew 10.0 C,", "    elev 0 ft (0 m)"]
-    assert lines[2].startswith("error: line of 258 characters refused")
+    assert lines[:1] == ["ok: temp 20 C, dew 10 C, elev 0 ft (0 m)"]
+    assert lines[1].startswith("error: line of 258 characters refused")
     assert lines[3] == "assumed QNH 1013.25 hPa (standard; qnh not set)"
     assert s2.done and s2.state["t_c"] == 20.0
 
@@ -692,7 +829,7 @@ def test_repl_reads_cr_lines():
                  prompt="")
     finally:
         sys.stdout = old
-    assert out.getvalue().splitlines() == ["ok: temp 20.0 C, dew 10.0 C", "ok: elev 0 ft (0 m)"]
+    assert out.getvalue().splitlines() == ["ok: temp 20 C, dew 10 C", "ok: elev 0 ft (0 m)"]
     assert s.done and s.state["t_c"] == 20.0
 
 
@@ -733,25 +870,49 @@ def mutate(line, ops):
 
 
 def check_line(s, line):
+    # The output of one line keeps the rules of the session's mode: text lines of at
+    # most 40 columns (an error is "error: ..." and its wrapped lines); in kv every line
+    # "key=value" or "#..."; in json every line one JSON object. A refused line changes
+    # nothing and says why on one error (one line in kv and json).
     before = s.snapshot(), kv_report(s)
     out = s.feed(line)
+    mode = s.mode  # an "out" line is said in the new mode
     assert isinstance(out, list)
     for text in out:
         assert isinstance(text, str) and "\n" not in text and "\r" not in text
-    errors = [text for text in out if text.startswith("error:")]
+        if mode == "kv":
+            key = text.split("=", 1)[0]
+            assert text[:1] == "#" or ("=" in text and key and all(
+                c in "abcdefghijklmnopqrstuvwxyz0123456789_" for c in key)), (line, text)
+        elif mode == "json":
+            assert isinstance(json.loads(text), dict), (line, text)
+    if mode == "text":
+        errors = [text for text in out if text.startswith("error:")]
+        if errors:
+            assert out[0].startswith("error: ") and len(errors) == 1, (line, out)
+            assert all(x.startswith("  ") and len(x) <= 40 for x in out[1:]), (line, out)
+    elif mode == "kv":
+        errors = [text for text in out if text.startswith("error=")]
+        if errors:
+            assert len(out) == 1, (line, out)
+    else:
+        errors = [text for text in out if "error" in json.loads(text)]
+        if errors:
+            assert len(out) == 1 and sorted(json.loads(out[0])) == ["error"], (line, out)
     if errors:
-        assert len(out) == 1 and out[0].startswith("error: ")
         # An exception other than ValueError is a library bug, even when feed() turns it
-        # into one error line.
-        assert not out[0].startswith("error: cannot compute that"), (line, out[0])
+        # into one error.
+        assert "cannot compute that" not in out[0], (line, out[0])
         assert (s.snapshot(), kv_report(s)) == before, line
     return bool(errors)
 
 
-def demo_session():
+def demo_session(mode="text"):
     s = Session()
     for line in DEMO_LINES[:4]:
         s.feed(line)
+    if mode != "text":
+        s.feed("out " + mode)
     return s
 
 
@@ -782,15 +943,21 @@ def test_valid_sequences_never_error_on_queries_of_a_full_state(batch):
 
 # ----------------------------------------------------- fuzz: seeded plain loop
 
-def test_fuzz_seeded_loop_over_ten_thousand_lines():
+@pytest.mark.parametrize("mode", ["text", "kv", "json"])
+def test_fuzz_seeded_loop_over_ten_thousand_lines(mode):
+    # In every mode: more than 10,000 lines, each output line keeping the mode's form
+    # (check_line): in json every line parses as a JSON object, in kv every line is
+    # key=value or "#".
     rng = random.Random(20240604)
     alphabet = "abcdefghijklmnopqrstuvwxyzTFCKMQ0123456789 .-+@%/#\t\x00\x7f\u00e9\u2028"
-    s = demo_session()
+    s = demo_session(mode)
     rejected = taken = 0
     n = 12000
     for i in range(n):
         if i % 150 == 0 or s.done:
-            s = demo_session()
+            s = demo_session(mode)
+        if s.mode != mode:
+            s.feed("out " + mode)
         r = rng.random()
         if r < 0.55:
             ops = [(rng.randrange(6), rng.randrange(300),

@@ -25,8 +25,11 @@ def line_failed(line, out):
     errors = [o for o in out if o[:6] == "error:"]
     if line[:1] == "#" or line.find(EXPECT_ERROR) < 0:
         return errors[0] if errors else None
-    if len(out) != 1 or len(errors) != 1 or out[0].find("cannot compute") >= 0:
-        return "wanted one ordinary error line, got %r" % (out,)
+    # One error: its first line "error: ...", the rest its wrapped lines ("  ...").
+    wrapped = [o for o in out[1:] if o[:2] != "  "]
+    if len(errors) != 1 or out[0][:6] != "error:" or wrapped or \
+            " ".join(out).find("cannot compute") >= 0:
+        return "wanted one ordinary error, got %r" % (out,)
     return None
 
 

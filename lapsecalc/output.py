@@ -109,7 +109,8 @@ def ack(s, what, words=None):
 # Machine output (kv, json): decimals kept per key family, by the key's ending (the
 # first that matches). Enough for every use, and no float noise: 1008.9999999999992
 # is 1009, -2.27e-13 is 0. Keys of no family keep 6 significant digits.
-DECIMALS = (("_k_per_km", 3), ("_kg_m3", 5), ("_j_kg", 1), ("_g_kg", 3), ("_g_mol", 4),
+DECIMALS = (("_k_per_km", 3), ("_kg_m3", 5), ("_per_m3_kg", 5),
+            ("_j_kg", 1), ("_g_kg", 3), ("_g_mol", 4),
             ("_hpa", 2), ("_pct", 3), ("_m3", 3), ("_kg", 2), ("_m", 2), ("_c", 2),
             ("_k", 2), ("purity", 4))
 

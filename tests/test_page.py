@@ -328,7 +328,7 @@ def test_word_buttons_insert_words(tab):
     assert d.find_element("id", "line").get_attribute("value") == "base "
     d.find_element("id", "run").click()
     t.wait("Number(document.getElementById('out').dataset.lines) === 1")
-    assert t.out_text().endswith(PROMPT + "base \n" + Session().feed("base")[0])
+    assert t.out_text().endswith(PROMPT + "base \n" + "\n".join(Session().feed("base")))
 
 
 def _layout_facts(t):

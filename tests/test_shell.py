@@ -97,7 +97,8 @@ def P(p_hpa):
 # Machine numbers: decimals kept per key family, as the README states (heights 0.01 m,
 # pressures 0.01 hPa, temperatures 0.01 K, RH 0.001 %, ...); others 6 significant
 # digits. Written here from the README's table, not taken from the code.
-FAMILIES = (("_k_per_km", 3), ("_kg_m3", 5), ("_j_kg", 1), ("_g_kg", 3), ("_g_mol", 4),
+FAMILIES = (("_k_per_km", 3), ("_kg_m3", 5), ("_per_m3_kg", 5),
+            ("_j_kg", 1), ("_g_kg", 3), ("_g_mol", 4),
             ("_hpa", 2), ("_pct", 3), ("_m3", 3), ("_kg", 2), ("_m", 2), ("_c", 2),
             ("_k", 2), ("purity", 4))
 

@@ -134,3 +134,25 @@ def test_a_board_session_drops_word_modules_after_their_line(restore_word_module
     # The modules load again for whoever needs them next.
     from lapsecalc import helptext
     assert "elr" in helptext.HELP
+
+
+def test_smallest_heap_is_stable_above():
+    # hardlimit.smallest: the least size from which every size in the window passes,
+    # even when a smaller size passes by chance (fragmentation).
+    import hardlimit
+    passes = lambda k: k >= 150 or k in (120, 121, 131)  # noqa: E731
+    assert hardlimit.smallest(None, None, "session", runs=passes) == 150
+    assert hardlimit.smallest(None, None, "session", runs=lambda k: k >= 77) == 77
+    assert hardlimit.smallest(None, None, "session", runs=lambda k: False) is None
+    # A failure inside the window moves the answer above it.
+    assert hardlimit.smallest(None, None, "session", runs=lambda k: k >= 100 and k != 105) \
+        == 106
+
+
+def test_accounting_line_parse():
+    sys.path.insert(0, os.path.join(os.path.dirname(HERE), "bench"))
+    import mpy_budget
+    assert mpy_budget._parse_line("line  9 held  50640 alloc   9456 need  60096 | help elr") \
+        == (9, 50640, 9456, "help elr")
+    assert mpy_budget.unix_limit_kib("session") == 96
+    assert mpy_budget.unix_limit_kib("report") == 48

@@ -60,25 +60,29 @@ def run(mp, folder, what, heap_kib):
     return proc.returncode == 0 and "OK" in tail, tail
 
 
-def smallest(mp, folder, what, lo=8, hi=1024, window=12):
+def smallest(mp, folder, what, lo=8, hi=1024, window=12, runs=None):
     """The smallest heap (KiB) from which SCRIPTS[what] runs at every size up to
     window KiB above it (collections and fragmentation make a run at N KiB pass
-    where N+2 fails), None past hi."""
-    if not run(mp, folder, what, hi)[0]:
+    where N+2 fails), None when that is not found up to hi. runs(kib) -> bool
+    replaces the real run (tests)."""
+    ok = runs or (lambda kib: run(mp, folder, what, kib)[0])
+    if not ok(hi):
         return None
+    top = hi
     while True:
         while hi - lo > 1:
             mid = (lo + hi) // 2
-            if run(mp, folder, what, mid)[0]:
+            if ok(mid):
                 hi = mid
             else:
                 lo = mid
-        bad = [k for k in range(hi + 1, hi + window + 1) if not run(mp, folder, what, k)[0]]
+        bad = [k for k in range(hi + 1, hi + window + 1) if not ok(k)]
         if not bad:
             return hi
-        lo, hi = bad[-1], bad[-1] + window + 1
-        while not run(mp, folder, what, hi)[0]:
-            lo, hi = hi, hi + window + 1
+        lo = bad[-1]
+        if lo >= top:
+            return None
+        hi = top
 
 
 def limits():

@@ -27,10 +27,13 @@ except ImportError:
 _MAX_LINE = const(256)
 MAX_LINE = _MAX_LINE
 PROMPT = "lc> "
-# Modules that a word imports for its own line (help, chart, svg, balloon, metar,
-# demo): on a board a Session forgets them after the line, so the heap between lines
-# holds only the dispatch layer (a new word module that few lines need goes here).
-WORD_MODULES = ("helptext", "chart", "balloon", "metar", "demo")
+# Modules loaded only for a line's work (help, chart, svg, balloon, metar, demo; the
+# text layout; the parcel and stability code of a report): on a board a Session
+# forgets them after the line, so the heap between lines holds only the dispatch
+# layer and the session's state (measured: bench/mpy_budget.py). A new module that
+# only some lines need goes here.
+WORD_MODULES = ("helptext", "chart", "balloon", "metar", "demo", "layout", "parcel",
+                "stability")
 # Every word but the settings: the queries, then the session words.
 _WORDS = dict(QUERIES)
 _WORDS.update(COMMANDS)

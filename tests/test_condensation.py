@@ -72,6 +72,8 @@ def test_lcl_temperature_and_pressure_consistent():
 def test_saturated_surface_is_zero():
     assert cloud_base(15.0, 15.0, 1000.0) == (0.0, 15.0, 1000.0)
     assert cloud_base(15.0, 15.04, 1000.0)[0] == 0.0
+    # A spread at rounding level gives the surface itself, never a height below it.
+    assert cloud_base(15.0, 15.0 - 1e-14, 1000.0) == (0.0, 15.0, 1000.0)
 
 
 @given(st.floats(-5.0, 40.0), st.floats(0.5, 25.0), st.floats(0.1, 5.0), st.floats(700.0, 1050.0))

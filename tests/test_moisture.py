@@ -167,3 +167,18 @@ def test_wet_bulb_refuses_thin_hot_air():
         wet_bulb(50.0, 20.0, 200.0)
     assert "p_hpa=200" in str(err.value) and "allowed" in str(err.value)
     assert 20.0 < wet_bulb(50.0, 20.0, 260.0) < 50.0
+
+
+def test_refusal_edges():
+    # Over ice only at or below 0 degC; the vapour pressure (AE96, refs.py) may be at
+    # most half the pressure for the mixing ratio and the wet bulb: 0.2 % over that
+    # half is refused, 0.2 % under it is not.
+    assert saturation_vapour_pressure(0.0, ice=True) == pytest.approx(6.1121)
+    with pytest.raises(ValueError):
+        saturation_vapour_pressure(0.5, ice=True)
+    e50 = ae_es_hpa(50.0)
+    for call in (lambda p: mixing_ratio(50.0, p), lambda p: wet_bulb(50.0, 50.0, p)):
+        with pytest.raises(ValueError) as err:
+            call(e50 / 0.501)
+        assert "allowed" in str(err.value)
+        assert call(e50 / 0.499) > 0.0

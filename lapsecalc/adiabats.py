@@ -28,7 +28,7 @@ def _rs(t_k, p_hpa):
     e = _es_water(t_k - T0_K)
     d = p_hpa - e
     if d < e:
-        e = d = 0.5 * p_hpa
+        return EPS          # e capped at p/2: eps e / (p - e) with e = p - e
     return EPS * e / d
 
 

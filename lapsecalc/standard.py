@@ -66,7 +66,6 @@ def _isa_layer(h_m):
         base = top
         if i == 2 or h_m < _BASES_M[2]:
             return base, t, _GRADS_K_PER_M[i], p
-    return base, t, _GRADS_K_PER_M[2], p
 
 
 def isa(h_m):
@@ -91,7 +90,6 @@ def pressure_altitude(p_hpa):
         base, t0, grad, p0 = _isa_layer(h)
         if p <= p0 or h == 0.0:
             return base + layer_height(p0, t0, grad, p)
-    return 0.0
 
 
 def station_pressure(qnh_hpa, elev_m):
@@ -142,7 +140,7 @@ def isa_height_of_density(rho_kg_m3):
     for h in (20000.0, 11000.0, 0.0):
         base, t0, grad, p0 = _isa_layer(h)
         rho0 = 100.0 * p0 / (R_DRY * t0)
-        if rho_kg_m3 <= rho0 or h == 0.0:
+        if rho_kg_m3 <= rho0:
             break
     if grad == 0.0:
         z = R_DRY * t0 / G0 * log(rho0 / rho_kg_m3)

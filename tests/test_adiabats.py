@@ -115,3 +115,22 @@ def test_very_far_ascent_does_not_overflow():
     # adiabat (Poisson's equation; AMS Glossary form with r_s = 0).
     t = saturated_ascent(-90.0, 850.0, 1.0)
     assert abs(t - dry_ascent(-90.0, 850.0, 1.0)) < 0.01
+
+
+def test_step_limits_and_cost():
+    # dlnp is accepted from 0.001 to 0.2; the default 0.1 takes 17 RK4 steps (68
+    # saturation-pressure evaluations) from 1000 to 200 hPa (README, Performance).
+    from lapsecalc import adiabats
+    saturated_ascent(20.0, 1000.0, 500.0, dlnp=0.2)
+    saturated_ascent(20.0, 1000.0, 500.0, dlnp=0.001)
+    for bad in (0.201, 0.00099):
+        with pytest.raises(ValueError):
+            saturated_ascent(20.0, 1000.0, 500.0, dlnp=bad)
+    calls = []
+    real = adiabats._es_water
+    adiabats._es_water = lambda t: calls.append(t) or real(t)
+    try:
+        saturated_ascent(20.0, 1000.0, 200.0)
+    finally:
+        adiabats._es_water = real
+    assert len(calls) == 68

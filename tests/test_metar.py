@@ -130,3 +130,33 @@ def test_remark_group_needs_both_halves_or_five_characters():
     # Only the first remark T group counts.
     m = parse("XKFL 121653Z 10/05 A3001 RMK T01040039 T02000100")
     assert abs(m["t_c"] - 10.4) < 1e-9 and abs(m["td_c"] - 3.9) < 1e-9
+
+
+def test_other_remark_groups_are_not_the_t_group():
+    # The 6-hourly maximum and minimum temperature remarks 1snTTT and 2snTTT
+    # (10142 = 14.2 degC; REFERENCES.md, Reports) look like half a T group: only the
+    # group starting with T is read.
+    m = parse("XKFL 121653Z 10/05 A3001 RMK AO2 10142 20089 T01040039")
+    assert abs(m["t_c"] - 10.4) < 1e-9 and abs(m["td_c"] - 3.9) < 1e-9
+
+
+def test_garbled_groups_are_skipped():
+    # A letter O for a zero, an A or Q group with a letter, a group with more
+    # slashes: none is read (the report stays readable).
+    m = parse("XKFL 121653Z 12/05/24/36 10/05 Q1O16 AX992")
+    assert m["t_c"] == 10.0 and m["td_c"] == 5.0 and m["qnh_hpa"] is None
+    assert m["groups"] == ["10/05"]
+
+
+def test_group_count_limit():
+    # At most 80 groups in one report (metar._MAX_GROUPS, named in the refusal).
+    body = " ".join(["9999"] * 77)
+    assert parse("XKFL 121653Z %s 10/05" % body)["t_c"] == 10.0          # 80 groups
+    assert "at most 80" in _refused("XKFL 121653Z %s 9999 10/05" % body)
+
+
+def test_remark_temperature_range():
+    # A temperature-only report is still held to -90..60 degC: -90.5 from the
+    # remark group is refused, -89.5 read.
+    assert "-90" in _refused("XKFL 121653Z M89/// RMK T1905")
+    assert parse("XKFL 121653Z M89/// RMK T1895")["t_c"] == -89.5

@@ -137,3 +137,24 @@ def test_density_outside_the_isa_is_refused():
         with pytest.raises(ValueError) as err:
             isa_height_of_density(rho)
         assert "rho_kg_m3=" in str(err.value) and "0.0132..2.5 kg/m3" in str(err.value)
+
+
+def test_cancellation_free_ratios():
+    # ln(1+u)/u and (e^x - 1)/x near 0 by their Taylor series (math.log1p/expm1 as the
+    # outside reference): within the series' own truncation error (u^4/5, x^4/120).
+    import math
+    from lapsecalc.standard import ratio_ln, ratio_exp
+    for u in (-0.0099, -0.005, -1e-6, 1e-6, 0.005, 0.0099, -0.5, 0.02, 3.0):
+        assert abs(ratio_ln(u) - math.log1p(u) / u) < 3e-9
+    for x in (-0.0099, -0.005, -1e-6, 1e-6, 0.005, 0.0099, -0.5, 0.02, 3.0):
+        assert abs(ratio_exp(x) - math.expm1(x) / x) < 2e-10
+
+
+def test_dry_and_capped_air_density():
+    # Ideal gas rho = p / (Rd T) (ICAO Doc 7488/3 constants) for dry air; with a
+    # dewpoint, the virtual temperature T / (1 - (e/p)(1 - eps)) with e capped at half
+    # the pressure (hot thin air: e_s(50 degC) = 123 hPa at 200 hPa).
+    rd, eps = 287.05287, 287.05287 / 461.5
+    assert abs(air_density(1000.0, 15.0) / (100000.0 / (rd * 288.15)) - 1) < 1e-12
+    tv = 323.15 / (1.0 - 0.5 * (1.0 - eps))
+    assert abs(air_density(200.0, 50.0, 50.0) / (20000.0 / (rd * tv)) - 1) < 1e-12

@@ -321,3 +321,59 @@ def test_ccl_of_nearly_saturated_air(spread):
     z = bisect(gap, 300.0, 2000.0)
     assert z - 300.0 < 250.0 * spread                   # premise: near the ground
     assert abs(r["ccl_msl_m"] - z) < 0.6
+
+
+ICING = {
+    # name: spec (invented columns), what bounds the band
+    "cold_base": ((2.0, 0.0, 1000.0, 0.0, [(None, 8.0)], 12000.0, 0.0), "lcl", "minus20"),
+    "freezing_surface": ((-5.0, -7.0, 1000.0, 0.0, [(None, 9.0)], 10000.0, 0.0), "lcl", "minus20"),
+    "el_above_top": ((30.0, 24.0, 1000.0, 0.0, [(None, 8.0)], 6000.0, 0.0), "zero", "top"),
+    "deep": ((24.0, 20.0, 1000.0, 0.0, [(2500.0, 8.5), (3000.0, -8.0), (None, 6.5)], 12000.0,
+              0.0), "zero", "minus20"),
+    "warm_cloud": ((28.0, 24.0, 1000.0, 0.0, [(1500.0, 7.5), (2000.0, -20.0), (None, 4.0)],
+                    8000.0, 0.0), None, None),
+}
+
+
+@pytest.mark.parametrize("name", sorted(ICING))
+def test_icing_band_edges(name):
+    # In cloud (LCL up to the EL, or the column top when the EL is above it) where the
+    # parcel is between 0 and -20 degC (common practice): the parcel's levels from the
+    # fine-step reference (refs.fine_parcel), the EL from the fine reference integration.
+    spec, bottom, top = ICING[name]
+    col = _col(spec)
+    r = col.report()
+    lcl = spec[3] + r["cloud_base_agl_m"]
+    prof = fine_parcel(col, lcl)
+    z0 = first_crossing(prof, lambda row: row[1]) if prof[0][1] > 0.0 else spec[3]
+    z20 = first_crossing(prof, lambda row: row[1] + 20.0)
+    lfc, el, _, _ = reference_parcel(col)
+    cloud_top = col.top_m if el is None else el
+    if bottom is None:
+        assert cloud_top < z0                              # the cloud never freezes
+        assert r["icing_band_bottom_msl_m"] is None and r["icing_band_top_msl_m"] is None
+        return
+    want_bottom = {"lcl": lcl, "zero": z0}[bottom]
+    want_top = {"minus20": z20, "top": col.top_m}[top]
+    assert max(lcl, z0) == pytest.approx(want_bottom)
+    assert abs(r["icing_band_bottom_msl_m"] - want_bottom) < 5.0
+    assert abs(r["icing_band_top_msl_m"] - want_top) < 5.0
+
+
+@pytest.mark.parametrize("lapse,want", [(5.1005 + 0.0, "conditionally_unstable"),
+                                         (5.0995, "neutral"), (9.7675 + 0.1005, "absolutely_unstable"),
+                                         (9.7675 + 0.0995, "neutral"), (4.8995, "absolutely_stable")])
+def test_neutral_band_is_a_tenth_of_a_kelvin_per_km(lapse, want):
+    # Neutral: within 0.1 K/km of the dry rate (g/cp) or of the saturated rate.
+    from lapsecalc.stability import classify
+    assert classify(lapse, 5.0) == want
+
+
+def test_layers_deeper_than_2km_are_split():
+    # Bands of at most 2 km (README): a 2010 m layer is two bands, a 2000 m one is one.
+    for depth, n in ((2010.0, 2), (2000.0, 1), (4001.0, 3)):
+        spec = (20.0, 10.0, 1000.0, 0.0, [(depth, 7.0), (None, 6.5)], depth + 500.0, 0.0)
+        bands = _col(spec).report()["stability_layers"]
+        assert len(bands) == n + 1
+        assert bands[n - 1]["top_msl_m"] == pytest.approx(depth)
+        assert all(b["top_msl_m"] - b["bottom_msl_m"] <= 2000.0 for b in bands)

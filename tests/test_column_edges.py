@@ -1,0 +1,75 @@
+"""The column at its edges, against closed forms for linear layers (Wallace & Hobbs,
+Atmospheric Science, 2nd ed., ch. 3: T = T0 - gamma dz, p = p0 (T/T0)^(g/(Rd gamma)))
+and published formulas coded in refs.py. The columns are invented."""
+import pytest
+
+from lapsecalc import Column
+from refs import ae_es_hpa
+
+G0, RD, RV = 9.80665, 287.05287, 461.5   # ICAO Doc 7488/3; Wallace & Hobbs
+EPS = RD / RV
+
+
+def _p(p0, t0_c, rate_k_per_km, dz):
+    g = rate_k_per_km / 1000.0
+    t0 = t0_c + 273.15
+    return p0 * ((t0 - g * dz) / t0) ** (G0 / (RD * g))
+
+
+def test_ends_take_a_millimetre_of_rounding():
+    col = Column(15.0, 5.0, 1000.0, 200.0, 6.5, top_m=5000.0)
+    assert col.t_at(200.0 - 0.0009) == 15.0
+    assert col.t_at(5000.0 + 0.0009) == pytest.approx(15.0 - 6.5 * 4.8)
+    for z in (200.0 - 0.0011, 5000.0 + 0.0011):
+        with pytest.raises(ValueError):
+            col.t_at(z)
+
+
+def test_layer_above_the_top_is_cut_at_the_top():
+    col = Column(20.0, 10.0, 1000.0, 0.0, [(5000.0, 6.5), (None, 7.0)], top_m=3000.0)
+    assert col.top_m == 3000.0 and len(col.layers) == 1
+    assert col.t_at(3000.0) == pytest.approx(20.0 - 19.5)
+    assert col.p_at(3000.0) == pytest.approx(_p(1000.0, 20.0, 6.5, 3000.0), rel=1e-12)
+
+
+def test_warming_past_60_is_refused_naming_the_height():
+    # 40 degC warming at 15 K/km reaches 60 degC 1333 m above the field.
+    with pytest.raises(ValueError) as err:
+        Column(40.0, 10.0, 1000.0, 100.0, [(2000.0, -15.0), (None, 6.5)])
+    assert "at 1433 m MSL" in str(err.value)
+
+
+def test_vapour_aloft_is_the_surface_mixing_ratio_capped_at_saturation():
+    # r = eps e / (p - e) carried up (e = r p / (eps + r)), never above e_s(T) (AE96).
+    col = Column(25.0, 22.0, 1000.0, 0.0, 9.0, top_m=8000.0)
+    e0 = ae_es_hpa(22.0)
+    r = EPS * e0 / (1000.0 - e0)
+    capped = free = 0
+    for z in (0.0, 300.0, 1000.0, 3000.0, 6000.0):
+        p = _p(1000.0, 25.0, 9.0, z)
+        t = 25.0 - 9.0 * z / 1000.0
+        want = min(r * p / (EPS + r), ae_es_hpa(t))
+        assert abs(col.vapour_pressure_at(z) - want) < 1e-9 * want + 1e-12
+        capped += want < r * p / (EPS + r)
+        free += want == r * p / (EPS + r)
+        # Ideal gas with the virtual temperature (Wallace & Hobbs eq. 3.60).
+        tv = (t + 273.15) / (1.0 - want / p * (1.0 - EPS))
+        assert abs(col.density_at(z) - 100.0 * p / (RD * tv)) < 1e-9
+    assert capped >= 2 and free >= 2
+
+
+def test_cloud_base_above_the_column_top():
+    # Very dry air: the LCL (about 6 km) is above a 2 km column, so no cloud base MSL
+    # in the column, though the height above the field is still given.
+    r = Column(30.0, -20.0, 1000.0, 0.0, 6.5, top_m=2000.0).report()
+    assert r["cloud_base_msl_m"] is None and r["cloud_base_agl_m"] > 2000.0
+
+
+def test_isothermal_layer_at_the_asked_temperature():
+    # An isothermal layer at exactly 0 degC: the air reaches 0 degC at its foot and
+    # leaves it at its top; the crossings are the layer's ends, each listed once.
+    col = Column(5.0, 0.0, 1000.0, 0.0, [(1000.0, 5.0), (2000.0, 0.0), (None, 6.5)], top_m=6000.0)
+    assert col.crossings(0.0) == pytest.approx([1000.0, 2000.0])
+    assert col.level(0.0) == pytest.approx(1000.0)
+    assert col.level(5.0) == 0.0                         # the surface already is
+    assert col.level(-50.0) is None                      # never in 6 km

@@ -59,10 +59,46 @@ def test_vapour_aloft_is_the_surface_mixing_ratio_capped_at_saturation():
 
 
 def test_cloud_base_above_the_column_top():
-    # Very dry air: the LCL (about 6 km) is above a 2 km column, so no cloud base MSL
-    # in the column, though the height above the field is still given.
-    r = Column(30.0, -20.0, 1000.0, 0.0, 6.5, top_m=2000.0).report()
-    assert r["cloud_base_msl_m"] is None and r["cloud_base_agl_m"] > 2000.0
+    # Very dry air: the LCL (about 6 km) is above a 5.9 km column, so no cloud base MSL
+    # in the column (the height above the field is still given), no free convection,
+    # and the lifted index is the dry parcel's: Te(500) - Poisson(500), closed forms.
+    r = Column(30.0, -20.0, 1000.0, 0.0, 6.5, top_m=5900.0).report()
+    assert r["cloud_base_msl_m"] is None and r["cloud_base_agl_m"] > 5900.0
+    assert (r["lfc_msl_m"], r["el_msl_m"], r["el_above_top"]) == (None, None, False)
+    assert r["cape_j_kg"] == 0.0 and r["cin_j_kg"] is None
+    assert r["icing_band_bottom_msl_m"] is None
+    t500 = 303.15 * 0.5 ** (RD * 0.0065 / G0)
+    li = t500 - 303.15 * 0.5 ** (RD / 1004.0)
+    assert abs(r["lifted_index_c"] - li) < 0.01
+
+
+def test_parcel_that_never_freezes_has_no_icing_band():
+    # Warm, moist and only 3.5 km deep: free convection to the top, but the parcel
+    # stays above 0 degC (still over +5 degC at the top on the fine reference).
+    from refs import fine_parcel
+    col = Column(30.0, 26.0, 1000.0, 0.0, 8.0, top_m=3500.0)
+    r = col.report()
+    assert fine_parcel(col, r["cloud_base_msl_m"])[-1][1] > 5.0
+    assert r["lfc_msl_m"] is not None and r["el_above_top"] is True
+    assert r["parcel_freezing_level_msl_m"] is None
+    assert r["icing_band_bottom_msl_m"] is None and r["icing_band_top_msl_m"] is None
+
+
+def test_stability_is_the_lowest_band():
+    # A 300 m surface inversion under 9.5 K/km: the lowest band is absolutely stable
+    # (ELR below any saturated rate), the next conditionally unstable (9.5 K/km is
+    # between the saturated rate and g/cp = 9.77 K/km).
+    r = Column(20.0, 10.0, 1000.0, 0.0, [(300.0, -3.0), (None, 9.5)], top_m=8000.0).report()
+    assert r["stability"] == "absolutely_stable"
+    assert r["stability_layers"][1]["class"] == "conditionally_unstable"
+
+
+def test_thermal_excess_past_60_degc():
+    # The warmed parcel is capped at 60 degC (the library's range) for its own cloud
+    # base; a 9 K/km column from 55 degC with 10 K of excess still reports thermals
+    # (rising to the top: the dry parcel stays warmer than 9 K/km air).
+    r = Column(55.0, 10.0, 1000.0, 0.0, 9.0, top_m=12000.0).report(10.0)
+    assert r["thermal_top_msl_m"] is None and r["thermal_kind"] == "cumulus"
 
 
 def test_isothermal_layer_at_the_asked_temperature():

@@ -112,9 +112,11 @@ def qnh(p_station_hpa, elev_m):
     p = check_p("p_station_hpa", p_station_hpa)
     h = check_elev("elev_m", elev_m)
     q = pow(pow(p, _N) + pow(ISA_P0_HPA, _N) * ISA_LAPSE_K_PER_M * h / ISA_T0_K, 1.0 / _N)
-    # A thousandth of a hectopascal is rounding of a QNH at the limit (the round trip
-    # through station_pressure, in float32 too), not a QNH outside it.
-    if q < QNH_MIN_HPA - 0.001 or q > QNH_MAX_HPA + 0.001:
+    if q < QNH_MIN_HPA or q > QNH_MAX_HPA:
+        # A thousandth of a hectopascal is rounding of a QNH at the limit (the round
+        # trip through station_pressure, in float32 too), not a QNH outside it.
+        if QNH_MIN_HPA - 0.001 <= q <= QNH_MAX_HPA + 0.001:
+            return QNH_MIN_HPA if q < QNH_MIN_HPA else QNH_MAX_HPA
         raise ValueError("p_station_hpa=%s at elev_m=%s gives QNH %.1f hPa, outside the allowed"
                          " range %g..%g hPa" % (p, h, q, QNH_MIN_HPA, QNH_MAX_HPA))
     return q

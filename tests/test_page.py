@@ -128,9 +128,11 @@ def test_page_is_one_file_with_the_vm_and_every_manifest_file(tmp_path):
     p = subprocess.run([sys.executable, "-m", "lapsecalc", "page", name], cwd=ROOT, env=env,
                        capture_output=True, text=True, timeout=120)
     assert p.returncode == 0, p.stderr
-    assert p.stdout.startswith("ok: page written to %s (" % name)
     html = open(name, encoding="utf-8").read()
     size = len(html.encode("utf-8"))
+    assert size == os.path.getsize(name)
+    assert p.stdout == ("ok: page written to %s (%d KiB); open it in a browser, no network"
+                        " needed\n" % (name, -(-size // 1024)))
     # The size budget (bench/page_budget.py: under 1.5 MiB) is a size, not a timing.
     assert size < page_budget.BUDGETS["page_bytes"], size
     # The .wasm, byte for byte, as base64 in the file.

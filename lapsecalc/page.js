@@ -325,15 +325,20 @@ async function start() {
   times.ready_ms = performance.now();
   // Replay the settings kept on this device; a line that no longer passes is dropped.
   const again = [];
+  const dropped = [];
   for (const text of load(KEYS.settings, [])) {
     if (typeof text === "string" && feed(text).kept) again.push(text);
+    else dropped.push(String(text));
   }
   kept = again;
   save(KEYS.settings, kept);
   // At most 40 columns, like every line of the interpreter.
   show(mp.globals.get("_pg_banner") + "\nEnter runs a line; help lists the words.");
-  show("settings kept on this device: " + (kept.length ? "\n" + kept.map((x) => "  " + x)
-    .join("\n") : "none"));
+  show("settings kept on this device:" + (kept.length ? "\n" + kept.map((x) => "  " + x)
+    .join("\n") : " none"));
+  if (dropped.length) {
+    show("no longer accepted, forgotten:\n" + dropped.map((x) => "  " + x).join("\n"));
+  }
   drawChart();
   times.first_output_ms = performance.now();
   line.disabled = false;

@@ -169,8 +169,24 @@ def test_builder_says_how_to_install_a_missing_vm(tmp_path):
                        timeout=60)
     assert p.returncode == 1 and p.stdout == ""
     assert "MicroPython WebAssembly VM is missing" in p.stderr
-    assert "npm ci" in p.stderr and page.VM_NAME in p.stderr
+    # The command that installs it, with the version the tests pin.
+    pin = json.load(open(os.path.join(HERE, "mpy", "package.json")))["dependencies"][page.VM_NAME]
+    assert "(cd %s && npm ci)" % os.path.join(ROOT, "tests", "mpy") in p.stderr
+    assert "npm install %s@%s" % (page.VM_NAME, pin) in p.stderr
     assert not os.path.exists(name)
+
+
+def test_builder_refuses_a_vm_other_than_the_pinned_one(tmp_path, monkeypatch):
+    vm = tmp_path / "vm"
+    vm.mkdir()
+    (vm / "micropython.mjs").write_text("")
+    (vm / "micropython.wasm").write_bytes(b"\0asm")
+    (vm / "package.json").write_text('{"version": "0.0.1"}')
+    pin = json.load(open(os.path.join(HERE, "mpy", "package.json")))["dependencies"][page.VM_NAME]
+    assert page.pinned_version() == pin
+    monkeypatch.setattr(page, "VM_DIR", str(vm))
+    with pytest.raises(ValueError, match="is version 0.0.1, the tests pin %s" % re.escape(pin)):
+        page.read_vm()
 
 
 def test_builder_refuses_a_loader_it_does_not_know(tmp_path):
@@ -302,6 +318,26 @@ def test_settings_history_and_theme_survive_a_reload(tab, tmp_path):
     box.send_keys(Keys.ARROW_DOWN, Keys.ARROW_DOWN, Keys.ARROW_DOWN)
     assert box.get_attribute("value") == ""
     assert t2.network() == [t2.url]
+    # A stored line that no longer passes is dropped on the next start, and said so.
+    t2.driver.execute_script("localStorage.setItem('lapsecalc.page.settings',"
+                             " JSON.stringify(['temp 27C', 'frobnicate 3', 'dew 13C']))")
+    t2.driver.refresh()
+    t2.ready(60)
+    text = t2.out_text()
+    assert "settings kept on this device:\n  temp 27C\n  dew 13C\n" in text
+    assert text.endswith("no longer accepted, forgotten:\n  frobnicate 3")
+    assert t2.driver.execute_script("return localStorage.getItem('lapsecalc.page.settings')") \
+        == '["temp 27C","dew 13C"]'
+    # forget (tapped twice) clears the settings and the history, and starts afresh.
+    forget = t2.driver.find_element("id", "forget")
+    forget.click()
+    assert forget.text == "sure?"
+    forget.click()
+    assert t2.out_text().endswith("# settings and history on this device forgotten; new session")
+    for key in ("settings", "history"):
+        assert t2.driver.execute_script(
+            "return localStorage.getItem('lapsecalc.page.%s')" % key) == "[]"
+    assert lines_of(t2.type_line("show")) == [PROMPT + "show"] + Session().feed("show")
 
 
 @needs_browser

@@ -129,7 +129,7 @@ def build(vm_dir=None):
     for part in parts[1:]:
         key, sep, rest = part.partition("}}")
         if not sep or key not in fills:
-            raise ValueError("page.html: unknown slot {{%s" % part[:20])
+            raise ValueError("page.html: unknown or repeated slot {{%s" % part[:20])
         out.append(fills.pop(key))
         out.append(rest)
     if fills:

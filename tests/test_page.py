@@ -199,6 +199,32 @@ def test_builder_refuses_a_loader_it_does_not_know(tmp_path):
         page.build(str(vm))
 
 
+@needs_vm
+def test_builder_fills_each_slot_once(monkeypatch):
+    real = page._template
+
+    def template_with(html):
+        monkeypatch.setattr(page, "_template", lambda n: html if n == "page.html" else real(n))
+
+    slots = "".join("{{%s}}" % k for k in ("STYLE", "SCRIPT", "LOADER", "WASM", "FILES", "PROMPT",
+                                           "PROMPT_JSON", "CAUTIONS", "VERSION", "VM_VERSION"))
+    template_with("<p>" + slots + "</p>")
+    html = page.build()
+    assert html.startswith("<p>" + real("page.css")) and html.endswith("</p>")
+    template_with(slots + "{{NOPE}}")
+    with pytest.raises(ValueError, match="unknown or repeated slot {{NOPE"):
+        page.build()
+    template_with(slots + "{{WASM")
+    with pytest.raises(ValueError, match="unknown or repeated slot"):
+        page.build()
+    template_with(slots.replace("{{VERSION}}", ""))
+    with pytest.raises(ValueError, match="slots not used: VERSION"):
+        page.build()
+    template_with(slots + "{{VERSION}}")
+    with pytest.raises(ValueError, match="unknown or repeated slot {{VERSION"):
+        page.build()
+
+
 def test_json_in_html_never_closes_the_script():
     text = page._json_in_html({"a": "</script><!-- x"})
     assert "<" not in text and json.loads(text) == {"a": "</script><!-- x"}

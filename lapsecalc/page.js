@@ -56,9 +56,13 @@ def _pg_chart():
 def _pg_preload():
     # Import every module now, so that no line waits for a first import.
     import os
+    # A module that fails here fails again, with its message, in the line that uses it.
     for n in sorted(os.listdir("/lapsecalc")):
         if n.endswith(".py") and not n.startswith("__"):
-            __import__("lapsecalc." + n[:-3])
+            try:
+                __import__("lapsecalc." + n[:-3])
+            except Exception as e:
+                print("preload of %s failed: %r" % (n, e))
 
 def _pg_end(lines):
     s = Session()

@@ -42,10 +42,10 @@ SCALE_LAYERS_TOP_M = 16000.0
 SCALE_TOP_LAPSE = [(1000.0, 9.0), (11000.0, 6.5), (20000.0, 0.0), (None, -1.0)]
 SCALE_TOPS_M = (6000.0, 10000.0, 16000.0, 24000.0)
 
-# A realistic interpreter session (invented hill strip "Larkspur Down", invented
+# A realistic interpreter session (invented hill strip "Pellinhoe Down", invented
 # weather): settings change a few times and every query kind is asked.
 SESSION_SCRIPT = (
-    "# Larkspur Down (invented strip), morning check",
+    "# Pellinhoe Down (invented strip), morning check",
     "elev 2100ft",
     "temp 14C dew 9C qnh 1021",
     "base",
@@ -68,7 +68,7 @@ SESSION_SCRIPT = (
     "obs",
     "base",
     "unit ft C hPa",
-    "metar ZZZZ 121350Z 24012KT 9999 FEW045 24/11 Q1018",
+    "metar XPDN 121350Z 24012KT 9999 FEW045 24/11 Q1018",
     "base",
     "ice",
     "report",
@@ -193,7 +193,7 @@ def _optional_cases(col, levels):
     try:
         from lapsecalc import metar
         out.append(("metar.parse", metar.parse,
-                    ("ZZZZ 121350Z 24012KT 9999 FEW045 24/11 Q1018 RMK T02390106",), {}))
+                    ("XPDN 121350Z 24012KT 9999 FEW045 24/11 Q1018 RMK T02390106",), {}))
     except ImportError:
         pass
     try:

@@ -7,10 +7,12 @@ from lapsecalc.units import m_to_ft, c_to_f
 
 ROWS = 16
 WIDTH = 40
-# Columns of the text plot: 5 label + "|" + plot + "|" + 1 icing margin + 3 marker
-# letters = WIDTH. The icing band is marked in its margin column, not across the plot,
-# so the curves inside the band stay visible.
-_PLOT_W = WIDTH - 11
+# Columns of the text plot: 5 label + "|" + plot + "|" + 1 icing margin + 5 for the
+# marker letters = WIDTH. The icing band is marked in its margin column, not across the
+# plot, so the curves inside the band stay visible. Letters sharing a row are joined by
+# "+" ("F+L"), so that two never read as a word or a code (as "FL" would).
+_PLOT_W = WIDTH - 13
+_MARKS_PER_ROW = 3
 # Right-margin letters: report key -> letter, in the order they are written.
 MARKS = (("cloud_base_msl_m", "B"), ("freezing_level_msl_m", "F"), ("lfc_msl_m", "L"),
          ("el_msl_m", "E"), ("thermal_top_msl_m", "T"))
@@ -66,9 +68,11 @@ def text(col, rep, levels, h_unit="ft", t_unit="c", top_m=None, rows=ROWS):
     """The profile as lines of at most 40 columns: environment "#", parcel "o" ("X"
     where both fall), the 0-degree isotherm ".", the cloud base row shaded "-", the
     icing band as ":" in the margin column right of the plot, and letters after it
-    (B cloud base, F freezing level, L LFC, E EL, T thermal top). Row r (0 at the top)
-    spans the heights lo + (rows-1-r)*dz .. lo + (rows-r)*dz with lo the field and
-    dz = (hi-lo)/rows."""
+    (B cloud base, F freezing level, L LFC, E EL, T thermal top; "+" between letters
+    of one row). Row r (0 at the top) spans the heights lo + (rows-1-r)*dz ..
+    lo + (rows-r)*dz with lo the field and dz = (hi-lo)/rows. The bottom row is
+    labelled with the field, the top row with the chart's top (top_m when given: a
+    zoom), every fourth row between with its middle height."""
     lo = col.elev_m
     hi = top_of(col, rep, top_m)
     dz = (hi - lo) / rows
@@ -91,8 +95,8 @@ def text(col, rep, levels, h_unit="ft", t_unit="c", top_m=None, rows=ROWS):
     marks = {}
     for key, letter in MARKS:
         r = row_of(rep.get(key))
-        if r is not None and len(marks.get(r, "")) < 3:
-            marks[r] = marks.get(r, "") + letter
+        if r is not None and len(marks.get(r, "")) < 2 * _MARKS_PER_ROW - 1:
+            marks[r] = marks[r] + "+" + letter if r in marks else letter
     out = ["%s MSL vs temperature %s" % (h_unit, t_unit.upper())]
     for r in range(rows):
         b = rows - 1 - r
@@ -113,8 +117,11 @@ def text(col, rep, levels, h_unit="ft", t_unit="c", top_m=None, rows=ROWS):
                     cells[i] = ch
                 elif ch == "o" and (i == a or b == 0):
                     cells[i] = "X"
-        label = _label(_h(lo, h_unit)) if b == 0 else (
-            _label(_h(zs[2 * b + 1], h_unit)) if b % 4 == 0 else "     ")
+        # Labelled: the field (bottom row), the top of the chart (top row) and the
+        # middle of every fourth row between.
+        label = _label(_h(lo, h_unit)) if b == 0 else _label(_h(hi, h_unit)) if (
+            b == rows - 1) else (_label(_h(zs[2 * b + 1], h_unit)) if b % 4 == 0 and (
+                b < rows - 2) else "     ")
         out.append(("%s|%s|%s%s" % (label, "".join(cells), ":" if icing else " ",
                                     marks.get(r, ""))).rstrip())
     out.append("     +" + "-" * _PLOT_W + "+")
@@ -129,6 +136,10 @@ def text(col, rep, levels, h_unit="ft", t_unit="c", top_m=None, rows=ROWS):
     out.append("#env o parcel X both .0C -base :icing")
     out.append("B base F 0C L LFC E EL T thermal top")
     return out
+
+
+# Height of a line of SVG text (font-size 11) with a little air, px.
+_LINE_PX = 13
 
 
 def _esc(s):
@@ -178,7 +189,7 @@ def svg(col, rep, levels, h_unit="ft", t_unit="c", top_m=None):
     t = t_lo
     while t <= t_hi + 0.01:
         out.append('<text x="%.1f" y="%d" text-anchor="middle">%d</text>'
-                   % (px(t), top + ph + 14, round(t)))
+                   % (px(t), top + ph + 16, round(t)))
         t += 10.0 if t_hi - t_lo > 40.0 else 5.0
     out.append('<text x="%d" y="%d">%s MSL</text>' % (4, top - 10, h_unit))
     out.append('<text x="%d" y="%d" text-anchor="middle">temperature %s</text>'
@@ -190,15 +201,19 @@ def svg(col, rep, levels, h_unit="ft", t_unit="c", top_m=None):
     names = {"cloud_base_msl_m": ("cloud-base", "cloud base"),
              "freezing_level_msl_m": ("freezing-level", "0 deg"), "lfc_msl_m": ("lfc", "LFC"),
              "el_msl_m": ("el", "EL"), "thermal_top_msl_m": ("thermal-top", "thermal top")}
-    for key, _ in MARKS:
-        z = rep.get(key)
-        if z is None or z < lo or z > hi:
-            continue
+    shown = [(py(rep[key]), key) for key, _ in MARKS
+             if rep.get(key) is not None and lo <= rep[key] <= hi]
+    shown.sort()
+    shown.reverse()  # lowest level first: a crowded label moves up, into the plot
+    above = None  # baseline of the label below: the next is at least one line higher
+    for y, key in shown:
         ident, name = names[key]
         out.append('<line id="%s" x1="%d" y1="%.1f" x2="%d" y2="%.1f" stroke="#666"/>'
-                   % (ident, left, py(z), left + pw, py(z)))
+                   % (ident, left, y, left + pw, y))
+        ty = y - 3 if above is None else min(y - 3, above - _LINE_PX)
+        above = ty
         out.append('<text x="%d" y="%.1f" text-anchor="end" fill="#444">%s %d %s</text>'
-                   % (left + pw - 2, py(z) - 3, _esc(name), round(_h(z, h_unit)), h_unit))
+                   % (left + pw - 2, ty, _esc(name), round(_h(rep[key], h_unit)), h_unit))
     out.append('<text x="%d" y="%d">black: environment (ELR); red dashed: surface parcel;'
                '</text>' % (4, h - 18))
     out.append('<text x="%d" y="%d">blue band: icing (0 to -20 C in cloud)</text>' % (4, h - 5))

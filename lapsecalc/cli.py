@@ -48,7 +48,7 @@ def main(argv=None):
         epilog="lapsecalc page FILE writes the offline page, one HTML file for a tablet"
                " or phone browser (lapsecalc page -h).")
     p.add_argument("what", nargs="?", choices=["demo"],
-                   help="run the built-in invented scenario (Kestrel Flats)")
+                   help="run the built-in invented scenario (Orlenmoor Flats)")
     p.add_argument("-e", dest="lines", action="append", metavar="LINE", default=[],
                    help="run LINE and exit (repeatable; runs after the demo)")
     p.add_argument("--svg", metavar="FILE",

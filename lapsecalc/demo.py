@@ -2,7 +2,7 @@
 # Nothing here is observed data: the field, its elevation and the weather are made up.
 
 DEMO_LINES = (
-    "# Kestrel Flats (invented field), elevation 1350 ft, a warm afternoon",
+    "# Orlenmoor Flats (invented field), elevation 1350 ft, a warm afternoon",
     "elev 1350ft",
     "temp 27C dew 13C qnh 1016",
     "elr 9.5@250m 7.5@2400m 6.5",

@@ -9,7 +9,8 @@ from lapsecalc.state import dewpoint_of, STANDARD_QNH_HPA, ISA_LAPSE_K_PER_KM, D
 # A new result key: its label and kind here (LABELS), its place in lapsecalc.groups.
 # Report key -> (label, kind) for text mode. Kinds: z height MSL, a height AGL,
 # alt an altitude, zl list of heights, t temperature, dt temperature difference,
-# p pressure, rho density, pct, gkg, jkg, b yes/no, s word.
+# p pressure, ph pressure always in hPa (aloft, vapour), rho density, pct, gkg, jkg,
+# b yes/no, s word.
 LABELS = {
     "elevation_m": ("elevation", "z"),
     "top_msl_m": ("column top", "z"),
@@ -26,7 +27,7 @@ LABELS = {
     "cloud_base_agl_m": ("base AGL", "a"),
     "cloud_base_msl_m": ("base MSL", "z"),
     "lcl_t_c": ("LCL temp", "t"),
-    "lcl_p_hpa": ("LCL press", "p"),
+    "lcl_p_hpa": ("LCL press", "ph"),
     "freezing_level_msl_m": ("0C level", "z"),
     "freezing_levels_msl_m": ("0C passes", "zl"),
     "minus10_level_msl_m": ("-10C level", "z"),
@@ -53,7 +54,7 @@ LABELS = {
     "at_msl_m": ("height", "z"),
     "at_t_c": ("temp", "t"),
     "at_p_hpa": ("pressure", "p"),
-    "at_vapour_pressure_hpa": ("vapour p", "p"),
+    "at_vapour_pressure_hpa": ("vapour p", "ph"),
     "at_air_density_kg_m3": ("density", "rho"),
     "at_density_altitude_m": ("DA", "alt"),
     "at_parcel_t_c": ("parcel temp", "t"),
@@ -176,6 +177,8 @@ def text_lines(s, key, v, label_kind=None):
         text = f_t(s, v)
     elif kind == "dt":
         text = f_dt(s, v)
+    elif kind == "ph":
+        text = "%7.1f hPa" % v  # aloft and vapour: hPa whatever the display unit
     elif kind == "p":
         text = f_p(s, v)
     elif kind == "b":
@@ -217,13 +220,24 @@ def wrap(items, mark, width=40):
     return out
 
 
+def text_keys(word):
+    """The keys of query word's group in text: the column top is said with the
+    stability of the whole column, not in the surface block."""
+    keys = GROUPS[word]
+    if word == "obs":
+        return [k for k in keys if k != "top_msl_m"]
+    if word == "stab":
+        return list(keys[:2]) + ["top_msl_m"] + list(keys[2:])
+    return keys
+
+
 def report_text(s, rep, keys):
     """The whole report in sections, cautions last (keys: queries.report_keys order)."""
     out = []
     done = []
     for heading, word in SECTIONS:
         out.append("-- " + heading)
-        for k in GROUPS[word]:
+        for k in text_keys(word):
             if k in rep and k not in done:
                 out.extend(text_lines(s, k, rep[k]))
                 done.append(k)

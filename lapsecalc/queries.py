@@ -18,7 +18,7 @@ from lapsecalc.output import f_h, f_h1, f_p, kv_value, kv_lines, machine, ack
 from lapsecalc.state import assumed, STANDARD_QNH_HPA, ISA_LAPSE_K_PER_KM, DEFAULT_TOP_M
 
 
-def emit(s, keys, values, balloon=False):
+def emit(s, keys, values, balloon=False, word=None):
     """Lines of the result keys of values in session s's mode, after the notes of the
     defaults in use. A balloon report shows its keys not in keys too."""
     if balloon:
@@ -34,7 +34,9 @@ def emit(s, keys, values, balloon=False):
         if notes:
             obj["assumed"] = notes
         return [s.json.dumps(obj)]
-    from lapsecalc.layout import text_lines, HEADINGS
+    from lapsecalc.layout import text_lines, HEADINGS, text_keys
+    if word is not None:
+        keys = text_keys(word)
     out = ["assumed " + n for n in notes]
     for k in keys:
         if balloon and k in HEADINGS:
@@ -47,7 +49,7 @@ def emit(s, keys, values, balloon=False):
 
 def _c_group(s, w, args):
     no_args(w, args)
-    out = emit(s, GROUPS[w], s.report(w))
+    out = emit(s, GROUPS[w], s.report(w), False, w)
     if w == "base" and s.mode == "text":
         for method, label in (("bolton", "Bolton LCL"), ("spread", "spread rule")):
             out.append("%-13s%s AGL" % (label, f_h(s, s.column().cloud_base(method)[0])))
@@ -157,9 +159,16 @@ def _c_balloon(s, w, args):
 
 
 def _c_chart(s, w, args):
-    no_args(w, args)
+    # chart [TOP [agl]]: TOP zooms (a 2000 ft marine layer fills the picture).
+    col = s.column(w)
+    top = None
+    if args:
+        top = _height(s, w, args, col)
+        if top < col.elev_m + 30.0:
+            raise ValueError("chart: the top must be at least 100 ft (30 m) above the"
+                             " field (%s)" % f_h1(s, col.elev_m))
     from lapsecalc.chart import text
-    return text(s.column(w), s.report(w), s.levels(), s.disp["h"], s.disp["t"])
+    return text(col, s.report(w), s.levels(), s.disp["h"], s.disp["t"], top)
 
 
 def _c_svg(s, w, args):

@@ -42,8 +42,8 @@ def test_width_and_height():
             assert all(len(line) <= 40 for line in lines), lines
             assert len(lines) == 1 + chart.ROWS + 4
             for row in lines[1:1 + chart.ROWS]:
-                # 5 label + "|" + 29 plot + "|" + icing column + 3 letters = 40.
-                assert row.count("|") == 2 and len(row.split("|")[1]) == 29
+                # 5 label + "|" + 27 plot + "|" + icing column + 5 letters = 40.
+                assert row.count("|") == 2 and len(row.split("|")[1]) == 27
 
 
 def test_markers_at_the_right_rows():
@@ -143,3 +143,67 @@ def test_parcel_t_interpolates():
     levels = [(0.0, 1000.0, 20.0, 20.0), (1000.0, 900.0, 10.0, 13.5)]
     assert chart.parcel_t(levels, 500.0) == 15.0
     assert chart.parcel_t(levels, 0.0) == 20.0
+
+
+def test_markers_sharing_a_row_never_read_as_a_word():
+    # A column whose freezing level and LFC fall in one row (the demo's, chart
+    # top 30000 ft: "F" and "L" side by side read as "FL", a flight level).
+    col = Column.from_qnh(27.0, 13.0, 1016.0, 411.48, [(250.0, 9.5), (2400.0, 7.5),
+                                                        (None, 6.5)])
+    rep, _, lines = _draw(col)
+    rows = lines[1:1 + chart.ROWS]
+    margins = [_margin(r)[1:] for r in rows]
+    shared = [m for m in margins if len(m) > 1]
+    assert shared, margins
+    for m in margins:
+        letters = m.split("+")
+        assert all(len(x) == 1 and x in "BFLET" for x in letters if m), m
+        assert "FL" not in m and "BF" not in m
+
+
+def test_top_row_is_labelled_and_chart_zooms():
+    col = _isa_column(elev=0.0)
+    rep, _, lines = _draw(col, h_unit="ft", top_m=609.6)
+    rows = lines[1:1 + chart.ROWS]
+    # 609.6 m = 2000 ft exactly (1 ft = 0.3048 m, REFERENCES.md Units): the top row
+    # says the chart's top, the bottom row the field.
+    assert rows[0].startswith(" 2000|") and rows[-1].startswith("    0|")
+    # The environment cools 6.5 K/km: over 609.6 m about 4 K, spread across the plot
+    # (a zoomed chart, not a sliver of the 16 km column).
+    xs = [min(i for i, ch in enumerate(_plot(r)) if ch in "#X") for r in rows]
+    assert xs[-1] - xs[0] >= 5
+    # Without the zoom those 2000 ft are the bottom row or two of a chart of kilometres.
+    whole = _draw(col, h_unit="ft")[2][1:1 + chart.ROWS]
+    assert int(whole[0][:5].replace("k", "000")) > 10000
+    assert all(len(x) <= 40 for x in lines)
+
+
+def _text_boxes(svg_text):
+    # (x0, y0, x1, y1) of each <text>, from its anchor, the font size 11 and about
+    # 6.5 px per character (sans-serif at 11 px is narrower).
+    root = ET.fromstring(svg_text)
+    boxes = []
+    for e in root.iter(SVG + "text"):
+        x, y, n = float(e.get("x")), float(e.get("y")), len(e.text) * 6.5
+        anchor = e.get("text-anchor", "start")
+        x0 = x - n if anchor == "end" else x - n / 2 if anchor == "middle" else x
+        boxes.append((x0, y - 11.0, x0 + n, y, e.text))
+    return boxes
+
+
+def test_svg_labels_do_not_overlap():
+    # Columns whose marked levels crowd together: cloud base at the LFC (a saturated
+    # surface), a freezing level near the base, the demo.
+    cols = [_isa_column(t=30.0, td=29.5, lapse=9.5),
+            _isa_column(t=6.0, td=4.0, lapse=9.0),
+            Column.from_qnh(27.0, 13.0, 1016.0, 411.48, [(250.0, 9.5), (2400.0, 7.5),
+                                                          (None, 6.5)])]
+    for col in cols:
+        rep = col.report(2.0)
+        levels = parcel.path(col, col.elev_m + rep["cloud_base_agl_m"])
+        for h_unit in ("ft", "m"):
+            boxes = _text_boxes(chart.svg(col, rep, levels, h_unit, "c"))
+            for i, a in enumerate(boxes):
+                for b in boxes[i + 1:]:
+                    apart = a[2] <= b[0] or b[2] <= a[0] or a[3] <= b[1] or b[3] <= a[1]
+                    assert apart, (a[4], b[4])

@@ -24,7 +24,7 @@ def test_demo_runs_and_ends_with_the_report_and_cautions():
     assert p.returncode == 0, p.stderr
     lines = p.stdout.splitlines()
     assert lines[0] == "lc> " + DEMO_LINES[0]
-    assert "Kestrel Flats" in lines[0] and "1350 ft" in lines[0]
+    assert "Orlenmoor Flats" in lines[0] and "1350 ft" in lines[0]
     assert "lc> report" in lines
     tail = lines[lines.index("lc> report"):]
     assert "-- cautions" in tail

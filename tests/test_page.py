@@ -57,7 +57,7 @@ SESSIONS = (
      "base", "ice", "stab", "thermal", "out kv", "report", "iso -15C", "at 700hPa",
      "out json", "obs", "da", "show", "report", "out text", "chart", "parcel"),
     ("tmep 3", "temp 99C", "base", "temp 20 dew 10 qnh 5000",
-     "metar XKFL 121650Z 24010KT 9999 FEW045 24/M02 Q1016 RMK T02410021",
+     "metar XOMF 121650Z 24010KT 9999 FEW045 24/M02 Q1016 RMK T02410021",
      "elev 2900ft", "excess 3C", "parcel", "thermal", "clear qnh", "obs", "help",
      "help elr", "svg a.svg", "unit F inhg", "base", "da 9500ft", "clear", "base", "",
      "# a comment alone"),

@@ -218,11 +218,11 @@ def test_settings_text():
         ("excess 2C", ["ok: excess 2 C"]),
         ("excess 3.6F", ["ok: excess 3.6 F (+2.0 K)"]),
         ("temp -0.04 dew -0.0", ["ok: temp -0.04 C, dew 0.0 C"]),
-        ("metar XKFL 121650Z 24010KT 9999 FEW045 24/M02 Q1016 RMK T02410021",
+        ("metar XOMF 121650Z 24010KT 9999 FEW045 24/M02 Q1016 RMK T02410021",
          ["ok: METAR temp 24.1 C, dew 2.1 C,", "    QNH 1016.0 hPa"]),
-        ("metar XKFL 121650Z 24010KT 9999 FEW045 M00/M02 Q1016 RMK T10041021",
+        ("metar XOMF 121650Z 24010KT 9999 FEW045 M00/M02 Q1016 RMK T10041021",
          ["ok: METAR temp -0.4 C, dew -2.1 C,", "    QNH 1016.0 hPa"]),
-        ("metar XKFL 121650Z 24010KT 9999 FEW045 M00/M02 Q1016 RMK T10001021",
+        ("metar XOMF 121650Z 24010KT 9999 FEW045 M00/M02 Q1016 RMK T10001021",
          ["ok: METAR temp 0.0 C, dew -2.1 C,", "    QNH 1016.0 hPa"]),
         ("env 2800m3 wt 450kg tmax 120C", ["ok: envelope 2800 m3, weight 450 kg,",
                                            "    tmax 120 C"]),
@@ -367,7 +367,7 @@ def test_queries_text():
                  L("station p", P(r["station_pressure_hpa"])), L("QNH", P(1016.0)),
                  L("press alt", H(r["pressure_altitude_m"])),
                  L("density", "%7.3f kg/m3" % r["air_density_kg_m3"]),
-                 L("DA", H(r["density_altitude_m"])), L("column top", H(16000.0))]),
+                 L("DA", H(r["density_altitude_m"]))]),
         # Spread rule: 125 m per degC of spread (common practice): 14 degC -> 1750 m.
         ("base", [L("base AGL", H(r["cloud_base_agl_m"])),
                   L("base MSL", H(r["cloud_base_msl_m"])), L("LCL temp", T(r["lcl_t_c"])),
@@ -389,6 +389,7 @@ def test_queries_text():
                     .replace("absolutely", "abs").replace("_", " ")),
                   L("whole column", " " + r["stability_column"].replace("absolutely", "abs")
                     .replace("conditionally", "cond").replace("_", " ")),
+                  L("column top", H(16000.0)),
                   "layer ft MSL     ELR SALR K/km"] +
          ["%6d-%-6d %5.1f %4.1f %s" % (
              round(x["bottom_msl_m"] / 0.3048), round(x["top_msl_m"] / 0.3048),
@@ -476,6 +477,34 @@ def test_display_units():
         ("unit km", ["error: unit: 'km' not accepted; accepted",
                      "  ft m C F hPa inHg"]),
     ])
+
+
+def test_labels_and_units_of_differences_and_pressures_aloft():
+    # The surface block has no column top (the stability block has it); the lifted
+    # index and the excess are K differences in F too; vapour pressure and LCL pressure
+    # stay in hPa with inHg as the display unit.
+    s = session()
+    s.feed("excess 2C")
+    r = demo_report(2.0)
+    col = demo_column()
+    surface = s.feed("report")
+    surface = surface[surface.index("-- surface"):surface.index("-- cloud base")]
+    assert not [x for x in surface if x.startswith("column top")]
+    s.feed("unit F inHg")
+    got = s.feed("parcel")
+    assert L("lifted index", "%+7.1f K" % r["lifted_index_c"]) in got
+    assert L("excess", "%+7.1f K" % 2.0) in s.feed("thermal")
+    assert L("LCL press", "%7.1f hPa" % r["lcl_p_hpa"]) in s.feed("base")
+    z = 411.48 + 914.4
+    got = s.feed("at 3000ft agl")
+    assert L("vapour p", "%7.1f hPa" % col.vapour_pressure_at(z)) in got
+    assert L("pressure", "%7.2f inHg" % (col.p_at(z) / 33.8639)) in got
+    # No "-0.0": a temperature that rounds to zero is 0.0.
+    s.feed("unit C")
+    assert s.feed("metar XOMF 121650Z 24010KT 9999 M00/M02 Q1016 RMK T10011021")[0] == \
+        "ok: METAR temp -0.1 C, dew -2.1 C,"
+    s.feed("temp -0.04 dew -2")
+    assert L("temp", "    0.0 C") in s.feed("obs")
 
 
 def test_report_text_has_everything_and_the_cautions():
@@ -839,7 +868,7 @@ def test_repl_reads_cr_lines():
 VALID = tuple(SETUP) + (
     "temp 27C dew 13C qnh 1016", "t 80F td 50F", "rh 45%", "elev 411m", "qnh 29.92inHg",
     "stn 967hPa", "elr 6.5", "elr 2C/1000ft", "elr -5@300m 8@1500m 6.5", "top 30000ft",
-    "excess 2C", "metar XKFL 121650Z 24010KT 9999 24/M02 Q1016 RMK T02410021", "obs", "base",
+    "excess 2C", "metar XOMF 121650Z 24010KT 9999 24/M02 Q1016 RMK T02410021", "obs", "base",
     "ice", "da", "da 9500ft", "at 3000ft agl", "at 700hPa", "iso -15C", "stab", "parcel",
     "thermal", "report", "chart", "show", "clear qnh", "unit m F inhg", "unit ft C hPa",
     "out kv", "out text", "out json", "help", "help elr", "env 2800m3 wt 450kg tmax 120C",

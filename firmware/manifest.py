@@ -9,6 +9,7 @@ package(
     "lapsecalc",
     files=(
         "balloon.py",
+        "balloontext.py",
         "chart.py",
         "commands.py",
         "demo.py",

@@ -328,9 +328,9 @@ def oxygen_note(col, heights):
     if worst is None:
         return None
     label, pa, z = worst
-    return ("Oxygen: the %s, %.0f m MSL (%.0f ft pressure altitude), passes %s."
-            " Regulations commonly require supplemental oxygen above 10000 ft for over 30 min"
-            " and above 13000 ft always (common practice); check your local regulations."
+    return ("Oxygen: the %s, %.0f m MSL (%.0f ft pressure altitude), passes %s; rules"
+            " commonly require it above 10000 ft for over 30 min, 13000 ft always (common"
+            " practice). Check your local regulations."
             % (label, z, pa / 0.3048, "13000 ft" if pa > OXYGEN_ALWAYS_M else "10000 ft"))
 
 
@@ -407,8 +407,7 @@ def hot_air_report(col, volume_m3, weight_kg, max_envelope_t_c, envelope_t_c=Non
         warnings.append("Floating %.0f kg at %.0f m MSL needs %.1f degC in the envelope, above"
                         " the working temperature %.0f degC." % (w, z, t_need, t_env))
     if t_env == t_max:
-        warnings.append("The working temperature is the maximum: every figure is the absolute"
-                        " limit, with no margin.")
+        warnings.append("Working temperature = maximum: all figures are the limit, no margin.")
     if above:
         warnings.append("The ceiling lies above the column top (%.0f m MSL)." % col.top_m)
     oxygen = oxygen_note(col, (("planned height", z),
@@ -445,13 +444,12 @@ def hot_air_report(col, volume_m3, weight_kg, max_envelope_t_c, envelope_t_c=Non
         "limit_ceiling_above_top": limit_above,
         "oxygen_note": oxygen,
         "notes": (
-            "Working figures: mean envelope air at %.0f degC (%s, %.0f K under the maximum)."
-            " The %.0f degC maximum is the maker's limit as you set it, read at the crown:"
-            " figures at it are the absolute limit, never a plan."
+            "Working figures: mean envelope air %.0f degC (%s, %.0f K under the maximum)."
+            " The %.0f degC maximum is a crown limit: figures at it are the absolute limit,"
+            " never a plan."
             % (t_env, "set by you" if envelope_t_c is not None else "the default",
                t_max - t_env, t_max),
-            "A crown reading is hotter than the mean: lapsecalc takes every working"
-            " temperature as the mean, so enter a crown reading less the margin, never as"
+            "A crown reading runs hotter than the mean: enter it less the margin, never as"
             " it is.",
             "Envelope air is taken as the outside air heated at the same pressure with the"
             " same humidity; burner exhaust and heat losses are not modelled.",
@@ -543,9 +541,8 @@ def gas_report(col, gas, purity, gas_volume_m3, envelope_m3, weight_kg, z_m=None
         " with free lift, valve gas instead.",
     ]
     if dt > 0.0:
-        notes.append("When the superheat goes (sunset, cloud shadow) the lift falls by"
-                     " ballast_superheat_lost_kg: drop that to hold level. Gas vented while"
-                     " warm makes it more than the lift the superheat gave.")
+        notes.append("When the superheat goes (sunset, shade) drop ballast_superheat_lost_kg"
+                     " to hold level; gas vented while warm makes it more than it gave.")
     if gas == "hydrogen":
         notes.append("Hydrogen burns in air: handle it under the rules that apply to it.")
     return {

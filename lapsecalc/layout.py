@@ -61,62 +61,8 @@ LABELS = {
     "iso_t_c": ("isotherm", "t"),
     "iso_level_msl_m": ("lowest <=T", "z"),
     "iso_levels_msl_m": ("passes", "zl"),
-    # balloon (lapsecalc.balloon reports)
-    "z_msl_m": ("height", "z"),
-    "ambient_t_c": ("air temp", "t"),
-    "ambient_p_hpa": ("air press", "p"),
-    "ambient_density_kg_m3": ("air density", "rho"),
-    "volume_m3": ("envelope", "m3"),
-    "envelope_m3": ("envelope", "m3"),
-    "weight_kg": ("weight", "kg"),
-    "envelope_t_c": ("working temp", "t"),
-    "envelope_t_set": ("set by you", "b"),
-    "margin_k": ("below max", "dt"),
-    "lift_per_m3_kg": ("lift per m3", "rho"),
-    "gross_lift_kg": ("gross lift", "kg"),
-    "free_lift_kg": ("free lift", "kg"),
-    "payload_kg": ("field payload", "kg"),
-    "envelope_t_needed_c": ("temp to float", "t"),
-    "envelope_t_needed_over_working": ("over working", "b"),
-    "ceiling_msl_m": ("ceiling", "z"),
-    "ceiling_p_hpa": ("ceiling p", "p"),
-    "ceiling_above_top": ("ceil abv top", "b"),
-    "gross_lift_per_1000ft_kg": ("lift/1000ft", "kg"),
-    "envelope_t_needed_per_1000ft_c": ("temp/1000ft", "dt"),
-    # the absolute limit: figures at the maker's maximum, labelled LIMIT
-    "max_envelope_t_c": ("LIMIT temp", "t"),
-    "limit_gross_lift_kg": ("LIMIT gross", "kg"),
-    "limit_payload_kg": ("LIMIT payload", "kg"),
-    "envelope_t_needed_over_limit": ("over max", "b"),
-    "limit_ceiling_msl_m": ("LIMIT ceiling", "z"),
-    "limit_ceiling_p_hpa": ("LIMIT ceil p", "p"),
-    "limit_ceiling_above_top": ("LIMIT abv top", "b"),
-    "oxygen_note": ("", "say1"),
-    "gas": ("gas", "s"),
-    "gas_molar_mass_g_mol": ("molar mass", "gmol"),
-    "purity": ("purity", "frac"),
-    "gas_volume_m3": ("fill", "m3"),
-    "gas_density_kg_m3": ("gas density", "rho"),
-    "gas_volume_at_z_m3": ("gas volume", "m3"),
-    "full_at_z": ("full here", "b"),
-    "full_msl_m": ("press height", "z"),
-    "full_p_hpa": ("press ht p", "p"),
-    "full_above_top": ("full abv top", "b"),
-    "float_msl_m": ("float at", "z"),
-    "float_above_top": ("float abv top", "b"),
-    "ballast_to_hold_kg": ("ballast drop", "kg"),
-    "superheat_k": ("superheat", "dt"),
-    "gas_t_c": ("gas temp", "t"),
-    "superheat_lift_kg": ("sun lift", "kg"),
-    "ballast_superheat_lost_kg": ("ballast cool", "kg"),
     "warnings": ("", "say!"),
     "notes": ("", "say-"),
-}
-
-# Headings put before a key in text mode (the hot-air report's two parts).
-HEADINGS = {
-    "envelope_t_c": "-- working temp (mean envelope air)",
-    "max_envelope_t_c": "-- absolute limit: never plan on it",
 }
 
 # Words for the stability classes and thermal kinds in text mode.
@@ -153,7 +99,7 @@ _PLAIN = {"rho": "%7.3f kg/m3", "jkg": "%7.0f J/kg", "pct": "%7.0f %%", "gkg": "
 
 def text_lines(s, key, v, label_kind=None):
     """Text-mode lines of one result key and value for session s (its display units)."""
-    label, kind = label_kind or LABELS.get(key, (key, "?"))
+    label, kind = label_kind or LABELS.get(key, (key, "?"))  # balloon: balloontext.LABELS
     if key == "stability_layers":
         return layer_lines(s, v)
     if key == "cautions" or kind == "say!":
@@ -290,8 +236,9 @@ def show_text(s):
     put("excess", f_dt(s, st.get("excess_c", 0.0)))
     for key, label, kind in (("env_m3", "env", "m3"), ("wt_kg", "wt", "kg"),
                              ("fill_m3", "fill", "m3"), ("tmax_c", "tmax", "t"),
-                             ("tenv_c", "tenv", "t"), ("gas", "gas", "s"),
-                             ("purity", "pure", "frac")):
+                             ("tenv_c", "tenv", "t"), ("margin_k", "margin", "dt"),
+                             ("gas", "gas", "s"), ("purity", "pure", "frac"),
+                             ("superheat_k", "superheat", "dt")):
         if key in st:
             out.extend(text_lines(s, key, st[key], (label, kind)))
     put("units", "%s %s %s, out %s" % (s.disp["h"], s.disp["t"].upper(),

@@ -157,6 +157,8 @@ def kv_value(v, key=""):
                 for r in v)
         if v and isinstance(v[0], str):
             return " | ".join(v)
+        if v and isinstance(v[0], list):
+            return ";".join(kv_value(r, key) for r in v)  # a table: rows by ";"
         return ",".join(kv_value(x, key) for x in v)
     return str(v)
 

@@ -12,16 +12,17 @@ MicroPython)."""
 # keys it shows in lapsecalc.groups, their text labels in lapsecalc.layout, its help in
 # lapsecalc.helptext.
 from lapsecalc.limits import check_t
-from lapsecalc.typed import number, shown, said, unit_kind, no_args
+from lapsecalc.typed import number, value, shown, said, unit_kind, no_args
 from lapsecalc.groups import GROUPS, report_keys
 from lapsecalc.output import f_h, f_h1, f_p, kv_value, kv_lines, machine, ack
 from lapsecalc.state import assumed, STANDARD_QNH_HPA, ISA_LAPSE_K_PER_KM, DEFAULT_TOP_M
 
 
-def emit(s, keys, values, balloon=False, word=None):
+def emit(s, keys, values, balloon=False, word=None, rest=True):
     """Lines of the result keys of values in session s's mode, after the notes of the
-    defaults in use. A balloon report shows its keys not in keys too."""
-    if balloon:
+    defaults in use. A balloon report (text labels from lapsecalc.balloontext) shows
+    its keys not in keys too, unless rest is False."""
+    if balloon and rest:
         keys = list(keys) + sorted(k for k in values if k not in keys)
     notes = assumed(s.state, balloon)
     if s.mode == "kv":
@@ -34,14 +35,17 @@ def emit(s, keys, values, balloon=False, word=None):
         if notes:
             obj["assumed"] = notes
         return [s.json.dumps(obj)]
-    from lapsecalc.layout import text_lines, HEADINGS, text_keys
+    from lapsecalc.layout import text_lines, text_keys
     if word is not None:
         keys = text_keys(word)
+    labels, heads = {}, {}
+    if balloon:
+        from lapsecalc.balloontext import LABELS as labels, HEADINGS as heads
     out = ["assumed " + n for n in notes]
     for k in keys:
-        if balloon and k in HEADINGS:
-            out.append(HEADINGS[k])
-        out.extend(text_lines(s, k, values[k]))
+        if k in heads:
+            out.append(heads[k])
+        out.extend(text_lines(s, k, values[k], labels.get(k)))
     return out
 
 
@@ -137,25 +141,83 @@ def _c_iso(s, w, args):
                                   "iso_levels_msl_m": col.crossings(t)})
 
 
-def _c_balloon(s, w, args):
+def _balloon_needs(s, w, gas):
+    # Refuse a balloon word until its settings are there (hot air or this gas).
     st = s.state
-    gas = st.get("gas")
     need = (("env", "env_m3"), ("wt", "wt_kg"), ("fill", "fill_m3") if gas else ("tmax", "tmax_c"))
     miss = [n for n, k in need if k not in st]
     if miss:
-        raise ValueError("balloon (%s) needs %s: set first, e.g. %s" % (
-            "gas " + gas if gas else "hot air", ", ".join(miss),
+        raise ValueError("%s (%s) needs %s: set first, e.g. %s" % (
+            w, "gas " + gas if gas else "hot air", ", ".join(miss),
             "gas helium env 10m3 fill 6m3 wt 4kg" if gas else "env 2800m3 wt 450kg tmax 120C"))
+
+
+def _gas_report(s, w, args, gas):
+    st = s.state
+    col = s.column(w)
+    z = _height(s, w, args, col)
+    from lapsecalc.balloon import gas_report
+    return gas_report(col, gas, st.get("purity", 1.0), st["fill_m3"], st["env_m3"],
+                      st["wt_kg"], z, st.get("superheat_k", 0.0))
+
+
+def _c_balloon(s, w, args):
+    st = s.state
+    gas = st.get("gas")
+    _balloon_needs(s, w, gas)
+    if gas:
+        return emit(s, GROUPS["gas"], _gas_report(s, w, args, gas), True)
     col = s.column(w)
     z = _height(s, w, args, col)
     from lapsecalc import balloon
-    if gas:
-        r = balloon.gas_report(col, gas, st.get("purity", 1.0), st["fill_m3"], st["env_m3"],
-                               st["wt_kg"], z)
-    else:
-        r = balloon.hot_air_report(col, st["env_m3"], st["wt_kg"], st["tmax_c"],
-                                   st.get("tenv_c"), z)
-    return emit(s, GROUPS["gas" if gas else "hot"], r, True)
+    r = balloon.hot_air_report(col, st["env_m3"], st["wt_kg"], st["tmax_c"], st.get("tenv_c"),
+                               z, st.get("margin_k", balloon.DEFAULT_MARGIN_K))
+    return emit(s, GROUPS["hot"], r, True)
+
+
+def _c_sunset(s, w, args):
+    gas = s.state.get("gas")
+    if not gas:
+        raise ValueError("sunset is for a gas balloon: set gas helium (or h2), env, fill, wt"
+                         " and superheat first")
+    _balloon_needs(s, w, gas)
+    r = _gas_report(s, w, args, gas)
+    out = emit(s, GROUPS["sunset"], r, True, None, False)
+    if s.mode == "text" and "superheat_k" not in s.state:
+        out.append("superheat not set: 0 K (superheat 12K)")
+    return out
+
+
+def _c_loads(s, w, args):
+    # loads [EMPTY]: the load table at the working temperature, rows every 2000 ft (or
+    # 500 m) up to 10000 ft (3000 m) above the field, six field temperatures (few
+    # rows: every cell is a lift computed in its own column, and a board pays for each).
+    st = s.state
+    if st.get("gas"):
+        raise ValueError("loads is for a hot-air balloon (gas none); a gas balloon: balloon")
+    _balloon_needs(s, w, None)
+    if len(args) > 1:
+        raise ValueError("loads takes at most an empty weight, e.g. loads 420kg")
+    empty = None
+    if args:
+        empty = value(args[0], "w", "kg", 1.0, 20000.0)
+    col = s.column(w)
+    from lapsecalc.balloon import working_envelope_t, DEFAULT_MARGIN_K
+    from lapsecalc.loadtable import load_table
+    t_work = working_envelope_t(st["tmax_c"], st.get("tenv_c"),
+                                st.get("margin_k", DEFAULT_MARGIN_K))
+    ft = s.disp["h"] == "ft"
+    tab = load_table(col, st["env_m3"], t_work, st["tmax_c"], empty, step_m=609.6 if ft else 500.0,
+                     depth_m=3048.0 if ft else 3000.0)
+    if s.mode == "text":
+        from lapsecalc.balloontext import load_table_text
+        out = ["assumed " + n for n in assumed(st)] + load_table_text(s, tab)
+        if tab["oxygen_note"]:
+            from lapsecalc.layout import wrap
+            out.extend(wrap((tab["oxygen_note"],), "!"))
+        return out
+    return emit(s, ("volume_m3", "envelope_t_c", "max_envelope_t_c", "empty_kg", "dewpoint_c",
+                    "temps_c", "heights_msl_m", "gross_kg", "payload_kg", "oxygen_note"), tab)
 
 
 def _c_chart(s, w, args):
@@ -217,8 +279,9 @@ def _c_show(s, w, args):
             "top_msl_m": st.get("top_m"), "thermal_excess_c": st.get("excess_c"),
             "envelope_m3": st.get("env_m3"), "weight_kg": st.get("wt_kg"),
             "gas_volume_m3": st.get("fill_m3"), "max_envelope_t_c": st.get("tmax_c"),
-            "envelope_t_c": st.get("tenv_c"), "gas": st.get("gas"),
-            "purity": st.get("purity")}
+            "envelope_t_c": st.get("tenv_c"), "margin_k": st.get("margin_k"),
+            "gas": st.get("gas"), "purity": st.get("purity"),
+            "superheat_k": st.get("superheat_k")}
     defaults = []
     for key, value in (("qnh_hpa", STANDARD_QNH_HPA), ("elr_k_per_km", ISA_LAPSE_K_PER_KM),
                        ("top_msl_m", DEFAULT_TOP_M), ("thermal_excess_c", 0.0),
@@ -232,8 +295,8 @@ def _c_show(s, w, args):
     vals["out"] = s.mode
     keys = ("t_c", "td_c", "rh_pct", "elevation_m", "qnh_hpa", "station_pressure_hpa",
             "elr_k_per_km", "top_msl_m", "thermal_excess_c", "envelope_m3", "weight_kg",
-            "gas_volume_m3", "max_envelope_t_c", "envelope_t_c", "gas", "purity",
-            "defaults", "units", "out")
+            "gas_volume_m3", "max_envelope_t_c", "envelope_t_c", "margin_k", "gas", "purity",
+            "superheat_k", "defaults", "units", "out")
     if s.mode == "json":
         return [s.json.dumps(machine("", vals))]
     return kv_lines(vals, keys)
@@ -243,6 +306,6 @@ def _c_show(s, w, args):
 QUERIES = {
     "obs": _c_group, "base": _c_group, "ice": _c_group, "stab": _c_group,
     "parcel": _c_group, "thermal": _c_group, "da": _c_at, "at": _c_at, "iso": _c_iso,
-    "balloon": _c_balloon, "report": _c_report, "chart": _c_chart, "svg": _c_svg,
-    "show": _c_show,
+    "balloon": _c_balloon, "loads": _c_loads, "sunset": _c_sunset, "report": _c_report,
+    "chart": _c_chart, "svg": _c_svg, "show": _c_show,
 }

@@ -233,10 +233,28 @@ def _s_pure(s, new, args):
     return "purity " + said(args[0], "%")
 
 
+# As lapsecalc.balloon.MARGIN_MAX_K and SUPERHEAT_MAX_K (not imported here: the balloon
+# module loads only for the balloon words).
+_MARGIN_MAX_K = 60.0
+_SUPERHEAT_MAX_K = 50.0
+
+
+def _s_margin(s, new, args):
+    # A temperature difference, like excess: bare in K, F typed as F.
+    new["margin_k"] = value(args[0], "dt", "k", 0.0, _MARGIN_MAX_K)
+    return "margin %s below tmax" % echo(s, args[0], "dt", "k", new["margin_k"])
+
+
+def _s_superheat(s, new, args):
+    new["superheat_k"] = value(args[0], "dt", "k", 0.0, _SUPERHEAT_MAX_K)
+    return "superheat " + echo(s, args[0], "dt", "k", new["superheat_k"])
+
+
 def whole(s, new):
     """Check what one setting alone cannot (ValueError in the user's words and display
     units): a dewpoint above the temperature, a station pressure without a QNH in
-    range, a column top too close to the field."""
+    range, a column top too close to the field, a working envelope temperature above
+    the maximum."""
     t, hum = new.get("t_c"), new.get("hum")
     if t is not None and hum is not None and hum[0] == "td" and hum[1] > t + DEW_SLACK_K:
         raise ValueError("dew %s is above temp %s; a dewpoint cannot exceed the temperature"
@@ -254,6 +272,10 @@ def whole(s, new):
     if top is not None and elev is not None and top < elev + 100.0:
         raise ValueError("top %s is less than 100 m (330 ft) above the field (%s)"
                          % (f_h1(s, top), f_h1(s, elev)))
+    tmax, tenv = new.get("tmax_c"), new.get("tenv_c")
+    if tmax is not None and tenv is not None and tenv > tmax:
+        raise ValueError("working temp tenv %s is above the maximum tmax %s; allowed up to"
+                         " tmax" % (f_t(s, tenv, True), f_t(s, tmax, True)))
 
 
 # What a setting word takes: one value, a run of numbers, or the rest of the line.
@@ -272,4 +294,5 @@ SETTINGS = {
     "tmax": (_s_tballoon("tmax_c", "tmax"), ONE, "tmax 120C"),
     "tenv": (_s_tballoon("tenv_c", "tenv"), ONE, "tenv 95C"),
     "gas": (_s_gas, ONE, "gas helium"), "pure": (_s_pure, ONE, "pure 98%"),
+    "margin": (_s_margin, ONE, "margin 20K"), "superheat": (_s_superheat, ONE, "superheat 12K"),
 }

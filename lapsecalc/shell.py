@@ -32,8 +32,8 @@ PROMPT = "lc> "
 # forgets them after the line, so the heap between lines holds only the dispatch
 # layer and the session's state (measured: bench/mpy_budget.py). A new module that
 # only some lines need goes here.
-WORD_MODULES = ("helptext", "chart", "balloon", "metar", "demo", "layout", "parcel",
-                "stability")
+WORD_MODULES = ("helptext", "chart", "balloon", "loadtable", "balloontext", "metar", "demo",
+                "layout", "parcel", "stability")
 # Every word but the settings: the queries, then the session words.
 _WORDS = dict(QUERIES)
 _WORDS.update(COMMANDS)

@@ -4,7 +4,9 @@ and the Column it describes (runs on MicroPython)."""
 #
 # A state is a plain dict. Keys: t_c, hum ("td" or "rh", value), elev_m, press ("qnh"
 # or "stn", hPa), lapse (K/km, or layers [(top_agl_m or None, k_per_km), ...]), top_m,
-# excess_c; balloon: env_m3, wt_kg, fill_m3, tmax_c, tenv_c, gas, purity (0.5..1).
+# excess_c; balloon: env_m3, wt_kg, fill_m3, tmax_c, tenv_c (the working, mean
+# envelope temperature), margin_k (tmax less the default working temperature), gas,
+# purity (0.5..1), superheat_k (the gas over the air).
 # The setting words (lapsecalc.settings) write them into a copy; the shell commits it.
 from lapsecalc.limits import check_dew
 from lapsecalc.column import Column
@@ -17,7 +19,8 @@ DEFAULT_TOP_M = 16000.0
 CLEAR = {"temp": ("t_c",), "dew": ("hum",), "rh": ("hum",), "elev": ("elev_m",),
          "qnh": ("press",), "stn": ("press",), "elr": ("lapse",), "top": ("top_m",),
          "excess": ("excess_c",), "env": ("env_m3",), "wt": ("wt_kg",), "fill": ("fill_m3",),
-         "tmax": ("tmax_c",), "tenv": ("tenv_c",), "gas": ("gas",), "pure": ("purity",)}
+         "tmax": ("tmax_c",), "tenv": ("tenv_c",), "gas": ("gas",), "pure": ("purity",),
+         "margin": ("margin_k",), "superheat": ("superheat_k",)}
 # State keys the air column depends on (others leave the cached report alone).
 AIR_KEYS = ("t_c", "hum", "elev_m", "press", "lapse", "top_m", "excess_c")
 

@@ -35,7 +35,8 @@ _ACCEPTED = {"t": "C F K", "h": "ft m km", "p": "hPa mb inHg mmHg kPa",
 # only; "alt" (altimeter or altitude?) is refused with both (AMBIGUOUS).
 ALIASES = {"t": "temp", "oat": "temp", "temperature": "temp", "td": "dew", "dp": "dew",
            "dewpoint": "dew", "humidity": "rh", "elevation": "elev", "altimeter": "qnh",
-           "frz": "ice", "therm": "thermal", "units": "unit", "bal": "balloon", "?": "help",
+           "frz": "ice", "therm": "thermal", "units": "unit", "bal": "balloon", "sh": "superheat",
+           "?": "help",
            "quit": "bye", "exit": "bye"}
 AMBIGUOUS = {"alt": "'alt' is the altimeter setting or an altitude: write qnh (qnh"
                     " 29.92inHg), elev (elev 1350ft) or at (at 8000ft)"}

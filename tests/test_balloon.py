@@ -343,7 +343,7 @@ def test_gas_float_height_and_ballast(cs, fill, load):
 def test_hot_air_notes_and_limit_warnings():
     col = dry_isa_column()
     r = hot_air_report(col, 2000.0, 600.0, 100.0, None, 2000.0)
-    assert any("maker" in s and "100 degC" in s for s in r["notes"])
+    assert any("crown limit" in s and "The 100 degC maximum" in s for s in r["notes"])
     assert r["envelope_t_needed_c"] > 100.0 and r["envelope_t_needed_over_limit"]
     assert any("above the maximum envelope temperature" in s for s in r["warnings"])
     r = hot_air_report(col, 2000.0, 300.0, 100.0, 90.0)
@@ -584,6 +584,24 @@ def test_load_table_rows_and_payload():
     # No empty weight: no payload, 3000 m of rows by default.
     tab = load_table(col, 2800.0, 100.0)
     assert tab["payload_kg"] is None and tab["heights_msl_m"][-1] == 3000.0
+    # Default field temperatures -10..40 degC by 10 (the 40-column screen's six).
+    assert tab["temps_c"] == [-10.0, 0.0, 10.0, 20.0, 30.0, 40.0]
+    # From a sea-level field the rows end exactly at the 3000 m default depth.
+    isa = dry_isa_column()
+    assert load_table(isa, 2800.0, 100.0)["heights_msl_m"] == [0.0, 500.0, 1000.0, 1500.0,
+                                                               2000.0, 2500.0, 3000.0]
+    # An empty weight no field temperature lifts: only the field row stays, all "-".
+    heavy = load_table(isa, 500.0, 100.0, None, 5000.0)
+    assert heavy["heights_msl_m"] == [0.0] and all(p < 0.0 for p in heavy["payload_kg"][0])
+    # Forty temperatures or rows at most; a step of at least 50 m.
+    assert len(load_table(isa, 500.0, 100.0, None, None, [10.0] * 40, [0.0])["temps_c"]) == 40
+    for kw, name in ((dict(temps_c=[10.0] * 41), "temps_c"),
+                     (dict(heights_msl_m=[0.0] * 41), "heights_msl_m"),
+                     (dict(heights_msl_m=[]), "heights_msl_m"),
+                     (dict(step_m=49.0), "step_m"), (dict(depth_m=40001.0), "depth_m")):
+        with pytest.raises(ValueError) as err:
+            load_table(isa, 500.0, 100.0, **kw)
+        assert str(err.value).startswith(name)
     with pytest.raises(ValueError) as err:
         load_table(col, 2800.0, 100.0, None, None, [])
     assert str(err.value).startswith("temps_c")

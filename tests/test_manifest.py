@@ -91,7 +91,7 @@ def test_board_modules_never_import_cpython_only_ones():
 INTERPRETER_LAYERS = (
     ("shell",),
     ("settings", "queries", "commands"),
-    ("layout", "chart", "metar", "helptext", "loadtable"),
+    ("layout", "chart", "metar", "helptext", "loadtable", "balloontext"),
     ("balloon", "groups", "output", "state", "typed"),
 )
 

@@ -635,8 +635,9 @@ def test_queries_kv():
         ("show", ["t_c=27", "td_c=13", "rh_pct=", "elevation_m=411.48", "qnh_hpa=1016",
                   "station_pressure_hpa=", "elr_k_per_km=250:9.5;2400:7.5;:6.5",
                   "top_msl_m=16000", "thermal_excess_c=0", "envelope_m3=", "weight_kg=",
-                  "gas_volume_m3=", "max_envelope_t_c=", "envelope_t_c=", "gas=", "purity=",
-                  "defaults=top_msl_m,thermal_excess_c", "units=ft,c,hpa", "out=kv"]),
+                  "gas_volume_m3=", "max_envelope_t_c=", "envelope_t_c=", "margin_k=", "gas=",
+                  "purity=", "superheat_k=", "defaults=top_msl_m,thermal_excess_c",
+                  "units=ft,c,hpa", "out=kv"]),
         ("temp 28 dew 12", ["ok=temp,dew"]),
         ("clear elr", ["ok=clear"]),
         ("unit m", ["ok=unit"]),
@@ -788,7 +789,7 @@ def test_errors_name_the_problem_and_what_is_accepted():
         ("help nothing", ["error: help takes one word of the list, e.g. help elr; help alone"
                           " lists them"]),
         ("clear moon", ["error: clear: 'moon' is not a setting; accepted dew elev elr env excess"
-                        " fill gas pure qnh rh stn temp tenv tmax top wt"]),
+                        " fill gas margin pure qnh rh stn superheat temp tenv tmax top wt"]),
         ("gas neon", ["error: gas 'neon' not accepted; accepted helium (he), hydrogen"
                       " (h2), none (hot air)"]),
         ("x" * (MAX_LINE + 1), ["error: line of 257 characters refused; accepted at most 256"]),
@@ -1019,7 +1020,9 @@ def test_help_states_the_limits_of_parcel_and_balloon():
     assert "CAPE and CIN use plain air temps" in parcel
     assert "not virtual temps" in parcel and "humidity aloft is not observed" in parcel
     bal = " ".join(line.strip() for line in s.feed("help balloon"))
-    assert "envelope maker's maximum temperature, set by you" in bal
+    assert "working temp (tenv, or tmax less margin) first, then the LIMIT at tmax" in bal
+    tenv = " ".join(line.strip() for line in s.feed("help tenv"))
+    assert "MEAN envelope air" in tenv and "crown reading runs hotter" in tenv
     assert "above about 8 K/km" in bal
     assert "ceiling is the lowest height where lift falls to the weight" in bal
 
@@ -1044,3 +1047,104 @@ def test_at_gives_the_parcel_temperature_of_the_report_levels():
         got = dict(line.split("=", 1) for line in s.feed("at %.3fm" % z) if "=" in line)
         want = 0.0 if z == rep["parcel_freezing_level_msl_m"] else float(got["at_t_c"])
         assert abs(float(got["at_parcel_t_c"]) - want) < 0.02, (z, got)
+
+
+# ---- balloon planning words: margin, tenv up to tmax, loads, superheat, sunset ----
+
+def test_working_temperature_words():
+    s = session()
+    col = demo_column()
+    run(s, [("env 2800m3 wt 450kg tmax 120C", ["ok: envelope 2800 m3, weight 450 kg,",
+                                                "    tmax 120.0 C"]),
+            ("margin 15K", ["ok: margin +15.0 K below tmax"]),
+            # A working temperature above the maximum is refused, naming both, in
+            # either order, and nothing changes.
+            ("tenv 125C", ["error: tenv 125C: working temp tenv=125 C is above the maximum"
+                           " tmax=120 C; allowed up to tmax"]),
+            ("tenv 95C tmax 90C", ["error: tmax 90C: working temp tenv=95 C is above the"
+                                   " maximum tmax=90 C; allowed up to tmax"]),
+            ("margin 61K", ["error: margin 61K: margin=61.0 is outside the allowed range 0..60"
+                            " K (below tmax)"])])
+    assert "tenv_c" not in s.state and s.state["tmax_c"] == 120.0
+    hot = balloon.hot_air_report(col, 2800.0, 450.0, 120.0, None, None, 15.0)
+    got = s.feed("balloon")
+    assert L("working temp", T(105.0)) in got and L("below max", "  +15.0 K") in got
+    assert L("gross lift", "%7.1f kg %6.0f lb" % (hot["gross_lift_kg"],
+                                                  hot["gross_lift_kg"] / 0.45359237)) in got
+    assert L("LIMIT payload", "%7.1f kg %6.0f lb" % (hot["limit_payload_kg"],
+                                                     hot["limit_payload_kg"] / 0.45359237)) in got
+    # tenv, once set, wins over the margin.
+    run(s, [("tenv 98C", ["ok: tenv 98.0 C"])])
+    got = s.feed("balloon")
+    assert L("working temp", T(98.0)) in got and L("set by you", "    yes") in got
+    run(s, [("clear margin tenv", ["ok: cleared margin tenv"])])
+    assert L("working temp", T(100.0)) in s.feed("balloon")
+
+
+def test_loads_text_fits_and_matches_the_library():
+    from lapsecalc.loadtable import load_table
+    s = session()
+    col = demo_column()
+    run(s, [("loads", ["error: loads (hot air) needs env, wt, tmax: set first, e.g. env"
+                       " 2800m3 wt 450kg tmax 120C"]),
+            ("env 2800m3 wt 450kg tmax 120C", ["ok: envelope 2800 m3, weight 450 kg,",
+                                                "    tmax 120.0 C"])])
+    got = s.feed("loads 420kg")
+    assert all(len(line) <= 40 for line in got)
+    tab = load_table(col, 2800.0, 100.0, 120.0, 420.0, step_m=609.6, depth_m=3048.0)
+    assert got[0] == "load table 2800 m3, 100.0 C working"
+    head = "ft MSL -10C   0C  10C  20C  30C  40C"
+    assert got[1] == "greatest gross weight, kg" and got[2] == head
+    # Rows: the field (1350 ft), then every 2000 ft MSL to 10000 ft above the field.
+    rows = got[3:3 + len(tab["heights_msl_m"])]
+    assert [r.split()[0] for r in rows] == ["1350"] + [str(2000 * k) for k in range(1, 6)]
+    for r, grow in zip(rows, tab["gross_kg"]):
+        assert r.split()[1:] == ["%.0f" % g for g in grow]
+    i = got.index("payload kg (empty 420 kg)")
+    assert got[i + 1] == head
+    for r, prow in zip(got[i + 2:], tab["payload_kg"]):
+        assert r.split()[1:] == [("%.0f" % p) if p >= 0.0 else "-" for p in prow]
+    assert "field temp across; dew 13.0 C kept" in got
+    # Metres and Fahrenheit: 500 m rows to 3000 m above the field, F headings.
+    run(s, [("unit m F", ["ok: units m F hPa"])])
+    got = s.feed("loads")
+    assert got[2] == " m MSL  14F  32F  50F  68F  86F 104F"
+    assert got[3].split()[0] == "411" and got[4].split()[0] == "500"
+    assert "field temp across; dew 55.4 F kept" in got  # 13 C
+    assert "- cannot lift it  . above column" in got
+    # kv: rows by ";", cells by ",".
+    run(s, [("unit ft C", ["ok: units ft C hPa"]), ("out kv", ["ok"])])
+    kv = kvdict(s.feed("loads"))
+    grid = [[float(x) for x in row.split(",")] for row in kv["gross_kg"].split(";")]
+    assert abs(grid[0][3] - tab["gross_kg"][0][3]) < 1e-3 * tab["gross_kg"][0][3]
+    assert kv["payload_kg"] == "" and kv["temps_c"] == "-10,0,10,20,30,40"
+    run(s, [("out text", ["ok: out text"]), ("loads 1kg 2kg", [
+        "error: loads takes at most an empty weight, e.g. loads 420kg"])])
+    run(s, [("gas he", ["ok: gas helium"]), ("loads", [
+        "error: loads is for a hot-air balloon (gas none); a gas balloon: balloon"])])
+
+
+def test_superheat_and_sunset_words():
+    s = session()
+    col = demo_column()
+    run(s, [("sunset", ["error: sunset is for a gas balloon: set gas helium (or h2), env,"
+                        " fill, wt and superheat first"]),
+            ("gas he fill 600m3 env 1000m3 wt 300kg", ["ok: gas helium, fill 600 m3,",
+                                                        "    envelope 1000 m3, weight 300 kg"]),
+            ("superheat 51K", ["error: superheat 51K: superheat=51.0 is outside the allowed"
+                               " range 0..50 K (gas over air)"]),
+            ("sh 12K", ["ok: superheat +12.0 K"])])
+    gas = balloon.gas_report(col, "helium", 1.0, 600.0, 1000.0, 300.0, None, 12.0)
+    got = s.feed("sunset")
+    assert L("superheat", "  +12.0 K") in got
+    assert L("sun lift", "%7.1f kg %6.0f lb" % (gas["superheat_lift_kg"],
+                                                gas["superheat_lift_kg"] / 0.45359237)) in got
+    assert L("ballast @dusk", "%7.1f kg %6.0f lb" % (
+        gas["ballast_superheat_lost_kg"], gas["ballast_superheat_lost_kg"] / 0.45359237)) in got
+    assert L("press height", H(gas["full_msl_m"])) in got
+    # The balloon word carries the superheat too.
+    assert L("gas temp", T(27.0 + 12.0)) in s.feed("balloon")
+    run(s, [("out kv", ["ok"])])
+    kv = kvdict(s.feed("sunset 2000ft agl"))
+    gz = balloon.gas_report(col, "helium", 1.0, 600.0, 1000.0, 300.0, 411.48 + 609.6, 12.0)
+    assert abs(float(kv["ballast_superheat_lost_kg"]) - gz["ballast_superheat_lost_kg"]) < 1e-3

@@ -82,9 +82,11 @@ RHO_MAX_KG_M3 = 2.5
 # Heights: the per-1000-ft changes are taken over this step, m (1000 ft exact).
 FT1000_M = 304.8
 # Height solvers: scan steps of at most _SCAN_M (also ending at every ELR layer top),
-# then bisection until the bracket is narrower than _TOL_M (float32 resolves about
-# 0.004 m at 32 km), at most _CAP steps.
-_SCAN_M = 500.0
+# then regula falsi until the bracket is narrower than _TOL_M (float32 resolves about
+# 0.004 m at 32 km), at most _CAP steps. The step size is not what makes the scan sound
+# (see first_drop); 1000 m keeps a board's balloon line cheap (each lift costs about
+# 0.7 KB of heap there).
+_SCAN_M = 1000.0
 _TOL_M = 0.1
 _CAP = 40
 
@@ -187,11 +189,15 @@ def first_drop(col, f, z_from_m):
     """Lowest height, m MSL, at or above z_from_m where f(z) (f(z_from_m) >= 0) falls
     to zero, or None when f stays at or above zero up to the column top.
 
-    Scans the column in steps of at most 500 m that also end at every ELR layer top,
+    Scans the column in steps of at most 1000 m that also end at every ELR layer top,
     then narrows the first step whose top has f < 0 (regula falsi, Illinois) until the
-    bracket is under 0.1 m (at most 40 steps; ValueError if not). Sound when f has no minimum inside a step:
-    inside one linear layer, gas lift falls monotonically and hot-air lift at a fixed
-    envelope temperature either falls or rises to one maximum and then falls.
+    bracket is under 0.1 m (at most 40 steps; ValueError if not). Sound when f has no
+    minimum inside a step: inside one linear layer, gas lift falls monotonically and
+    hot-air lift at a fixed envelope temperature either falls or rises to one maximum
+    and then falls. Where the humidity cap sets in, the slope of the lift steps up by
+    about 0.0004 kg/m3 per km (vapour leaving faster): a dip below the weight inside a
+    step could then reach only where the lift is that flat, a fraction of a kg over a
+    step for the largest envelopes.
     """
     z = z_from_m
     fz = f(z)
@@ -213,7 +219,7 @@ def _narrow(f, lo, hi, f_lo, f_hi):
     # f(lo) = f_lo >= 0 > f_hi = f(hi). Regula falsi with the Illinois modification
     # (Dowell & Jarratt 1971: halve the value kept at an end chosen twice), each point
     # at least _TOL_M / 4 inside the bracket so that it narrows below _TOL_M; at most
-    # _CAP steps (about 6 from 500 m; plain bisection takes 13).
+    # _CAP steps (about 6 from 1000 m; plain bisection takes 14).
     side = 0
     for _ in range(_CAP):
         if hi - lo < _TOL_M:
@@ -268,7 +274,7 @@ def _t_needed(col, z_m, lift_per_m3_kg):
     _, t, _, rho = _air(col, z_m)
     if lift_per_m3_kg >= rho:
         return None
-    return envelope_t_for_lift(rho, t, lift_per_m3_kg)
+    return (t + T0_K) / (1.0 - lift_per_m3_kg / rho) - T0_K  # envelope_t_for_lift
 
 
 def _z(col, z_m):

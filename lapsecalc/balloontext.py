@@ -1,9 +1,7 @@
-"""Text layout of the balloon words (balloon, loads, sunset): labels and the load
-table, loaded only by those words (runs on MicroPython)."""
+"""Text labels of the balloon words (balloon, sunset), loaded only by those words (runs
+on MicroPython)."""
 # Sources: none; labels and units only. Every line fits a 40-column screen: a
 #   13-column label, then the value (lapsecalc.layout.text_lines lays it out).
-from lapsecalc import units
-from lapsecalc.output import f_t
 
 # Report key -> (label, kind), as lapsecalc.layout.LABELS, for the keys of
 # lapsecalc.balloon's reports.
@@ -62,35 +60,3 @@ HEADINGS = {
     "envelope_t_c": "-- working temp (mean envelope air)",
     "max_envelope_t_c": "-- absolute limit: never plan on it",
 }
-
-
-def load_table_text(s, tab):
-    """The load table (lapsecalc.loadtable.load_table) in at most 40 columns: heights
-    MSL down, field temperatures across, kg in each cell; "-" cannot lift (payload
-    or gross below zero), "." the column ends below that height. The oxygen note,
-    when there is one, is the caller's to wrap."""
-    ft, fahr = s.disp["h"] == "ft", s.disp["t"] == "f"
-    head = "ft MSL" if ft else " m MSL"
-    for t in tab["temps_c"]:
-        head += "%5s" % ("%d%s" % (round(units.c_to_f(t) if fahr else t), "F" if fahr else "C"))
-    out = ["load table %.0f m3, %s working" % (tab["volume_m3"],
-                                               f_t(s, tab["envelope_t_c"], True))]
-    grids = [("greatest gross weight, kg", tab["gross_kg"])]
-    if tab["payload_kg"] is not None:
-        grids.append(("payload kg (empty %.0f kg)" % tab["empty_kg"], tab["payload_kg"]))
-    for title, grid in grids:
-        out.append(title)
-        out.append(head)
-        for z, row in zip(tab["heights_msl_m"], grid):
-            cells = ["%6d" % round(units.m_to_ft(z) if ft else z)]
-            for g in row:
-                if g is None:
-                    cells.append("    .")
-                elif g < 0.0:
-                    cells.append("    -")
-                else:
-                    cells.append("%5.0f" % g if g < 9999.5 else "%4.0fk" % (g / 1000.0))
-            out.append("".join(cells))  # joined once: each "+" costs a string on a board
-    out.append("field temp across; dew %s kept" % f_t(s, tab["dewpoint_c"], True))
-    out.append("- cannot lift it  . above column")
-    return out

@@ -1,5 +1,6 @@
 """The load table of a hot-air balloon: the greatest gross weight (and payload) over
-the field temperature and the height, in one air column shifted warmer or colder."""
+the field temperature and the height, in one air column shifted warmer or colder; and
+its 40-column text for the interpreter's loads word."""
 # Sources: the lift per m3 is lapsecalc.balloon's (Archimedes' principle with the ideal
 #   gas law, moist air through the virtual temperature); each field temperature gets
 #   its own Column (lapsecalc.column: hydrostatic per linear layer, humidity aloft the
@@ -8,11 +9,13 @@ the field temperature and the height, in one air column shifted warmer or colder
 # Assumption: through the day the field temperature changes, the dewpoint stays (the
 #   air mass's moisture changes slowly; common practice), capped at the temperature;
 #   the field pressure and the ELR stay as observed and assumed.
+from lapsecalc import units
 from lapsecalc.limits import check
 from lapsecalc.column import Column
 from lapsecalc.balloon import (_hot_lift, _z, working_envelope_t, oxygen_note,
                                HOT_VOLUME_MIN_M3, HOT_VOLUME_MAX_M3, HOT_WEIGHT_MIN_KG,
                                WEIGHT_MAX_KG, ENVELOPE_T_MAX_C)
+from lapsecalc.output import f_t
 
 # The load table: default field temperatures, degC, and row spacing, m; at most
 # TABLE_MAX rows or columns (a 40-column screen shows six temperatures).
@@ -115,3 +118,35 @@ def load_table(col, volume_m3, envelope_t_c, max_envelope_t_c=None, empty_kg=Non
         "dewpoint_c": col.td_c,
         "oxygen_note": oxygen_note(col, (("table's top row", hs[-1]),)),
     }
+
+
+def load_table_text(s, tab):
+    """The load table (load_table) for session s in at most 40 columns: heights
+    MSL down, field temperatures across, kg in each cell; "-" cannot lift (payload
+    or gross below zero), "." the column ends below that height. The oxygen note,
+    when there is one, is the caller's to wrap."""
+    ft, fahr = s.disp["h"] == "ft", s.disp["t"] == "f"
+    head = "ft MSL" if ft else " m MSL"
+    for t in tab["temps_c"]:
+        head += "%5s" % ("%d%s" % (round(units.c_to_f(t) if fahr else t), "F" if fahr else "C"))
+    out = ["load table %.0f m3, %s working" % (tab["volume_m3"],
+                                               f_t(s, tab["envelope_t_c"], True))]
+    grids = [("greatest gross weight, kg", tab["gross_kg"])]
+    if tab["payload_kg"] is not None:
+        grids.append(("payload kg (empty %.0f kg)" % tab["empty_kg"], tab["payload_kg"]))
+    for title, grid in grids:
+        out.append(title)
+        out.append(head)
+        for z, row in zip(tab["heights_msl_m"], grid):
+            cells = ["%6d" % round(units.m_to_ft(z) if ft else z)]
+            for g in row:
+                if g is None:
+                    cells.append("    .")
+                elif g < 0.0:
+                    cells.append("    -")
+                else:
+                    cells.append("%5.0f" % g if g < 9999.5 else "%4.0fk" % (g / 1000.0))
+            out.append("".join(cells))  # joined once: each "+" costs a string on a board
+    out.append("field temp across; dew %s kept" % f_t(s, tab["dewpoint_c"], True))
+    out.append("- cannot lift it  . above column")
+    return out

@@ -203,14 +203,13 @@ def _c_loads(s, w, args):
         empty = value(args[0], "w", "kg", 1.0, 20000.0)
     col = s.column(w)
     from lapsecalc.balloon import working_envelope_t, DEFAULT_MARGIN_K
-    from lapsecalc.loadtable import load_table
+    from lapsecalc.loadtable import load_table, load_table_text
     t_work = working_envelope_t(st["tmax_c"], st.get("tenv_c"),
                                 st.get("margin_k", DEFAULT_MARGIN_K))
     ft = s.disp["h"] == "ft"
     tab = load_table(col, st["env_m3"], t_work, st["tmax_c"], empty, step_m=609.6 if ft else 500.0,
                      depth_m=3048.0 if ft else 3000.0)
     if s.mode == "text":
-        from lapsecalc.balloontext import load_table_text
         out = ["assumed " + n for n in assumed(st)] + load_table_text(s, tab)
         if tab["oxygen_note"]:
             from lapsecalc.layout import wrap

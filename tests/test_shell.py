@@ -1055,16 +1055,16 @@ def test_working_temperature_words():
     s = session()
     col = demo_column()
     run(s, [("env 2800m3 wt 450kg tmax 120C", ["ok: envelope 2800 m3, weight 450 kg,",
-                                                "    tmax 120.0 C"]),
-            ("margin 15K", ["ok: margin +15.0 K below tmax"]),
-            # A working temperature above the maximum is refused, naming both, in
-            # either order, and nothing changes.
-            ("tenv 125C", ["error: tenv 125C: working temp tenv=125 C is above the maximum"
-                           " tmax=120 C; allowed up to tmax"]),
-            ("tenv 95C tmax 90C", ["error: tmax 90C: working temp tenv=95 C is above the"
-                                   " maximum tmax=90 C; allowed up to tmax"]),
-            ("margin 61K", ["error: margin 61K: margin=61.0 is outside the allowed range 0..60"
-                            " K (below tmax)"])])
+                                                "    tmax 120 C"]),
+            ("margin 15K", ["ok: margin 15 K below tmax"])])
+    # A working temperature above the maximum is refused, naming both, in either
+    # order, and nothing changes.
+    run_unwrapped(s, [
+        ("tenv 125C", ["error: working temp tenv 125.0 C is above the maximum tmax 120.0 C;"
+                       " allowed up to tmax"]),
+        ("tenv 95C tmax 90C", ["error: working temp tenv 95.0 C is above the maximum tmax"
+                               " 90.0 C; allowed up to tmax"]),
+        ("margin 61K", ["error: margin 61 K is outside 0..60 K"])])
     assert "tenv_c" not in s.state and s.state["tmax_c"] == 120.0
     hot = balloon.hot_air_report(col, 2800.0, 450.0, 120.0, None, None, 15.0)
     got = s.feed("balloon")
@@ -1074,7 +1074,7 @@ def test_working_temperature_words():
     assert L("LIMIT payload", "%7.1f kg %6.0f lb" % (hot["limit_payload_kg"],
                                                      hot["limit_payload_kg"] / 0.45359237)) in got
     # tenv, once set, wins over the margin.
-    run(s, [("tenv 98C", ["ok: tenv 98.0 C"])])
+    run(s, [("tenv 98C", ["ok: tenv 98 C"])])
     got = s.feed("balloon")
     assert L("working temp", T(98.0)) in got and L("set by you", "    yes") in got
     run(s, [("clear margin tenv", ["ok: cleared margin tenv"])])
@@ -1085,10 +1085,10 @@ def test_loads_text_fits_and_matches_the_library():
     from lapsecalc.loadtable import load_table
     s = session()
     col = demo_column()
-    run(s, [("loads", ["error: loads (hot air) needs env, wt, tmax: set first, e.g. env"
-                       " 2800m3 wt 450kg tmax 120C"]),
-            ("env 2800m3 wt 450kg tmax 120C", ["ok: envelope 2800 m3, weight 450 kg,",
-                                                "    tmax 120.0 C"])])
+    run_unwrapped(s, [("loads", ["error: loads (hot air) needs env, wt, tmax: set first, e.g."
+                                 " env 2800m3 wt 450kg tmax 120C"]),
+                      ("env 2800m3 wt 450kg tmax 120C", ["ok: envelope 2800 m3, weight 450 kg,",
+                                                          "    tmax 120 C"])])
     got = s.feed("loads 420kg")
     assert all(len(line) <= 40 for line in got)
     tab = load_table(col, 2800.0, 100.0, 120.0, 420.0, step_m=609.6, depth_m=3048.0)
@@ -1113,27 +1113,28 @@ def test_loads_text_fits_and_matches_the_library():
     assert "field temp across; dew 55.4 F kept" in got  # 13 C
     assert "- cannot lift it  . above column" in got
     # kv: rows by ";", cells by ",".
-    run(s, [("unit ft C", ["ok: units ft C hPa"]), ("out kv", ["ok"])])
+    run(s, [("unit ft C", ["ok: units ft C hPa"]), ("out kv", ["ok=out"])])
     kv = kvdict(s.feed("loads"))
     grid = [[float(x) for x in row.split(",")] for row in kv["gross_kg"].split(";")]
     assert abs(grid[0][3] - tab["gross_kg"][0][3]) < 1e-3 * tab["gross_kg"][0][3]
     assert kv["payload_kg"] == "" and kv["temps_c"] == "-10,0,10,20,30,40"
-    run(s, [("out text", ["ok: out text"]), ("loads 1kg 2kg", [
-        "error: loads takes at most an empty weight, e.g. loads 420kg"])])
-    run(s, [("gas he", ["ok: gas helium"]), ("loads", [
+    run_unwrapped(s, [("out text", ["ok: out text"]), ("loads 1kg 2kg", [
+        "error: loads takes at most an empty weight, e.g. loads 420kg"]),
+        ("loads 0kg", ["error: 0 kg is outside 1..20000 kg"])])
+    run_unwrapped(s, [("gas he", ["ok: gas helium"]), ("loads", [
         "error: loads is for a hot-air balloon (gas none); a gas balloon: balloon"])])
 
 
 def test_superheat_and_sunset_words():
     s = session()
     col = demo_column()
-    run(s, [("sunset", ["error: sunset is for a gas balloon: set gas helium (or h2), env,"
-                        " fill, wt and superheat first"]),
-            ("gas he fill 600m3 env 1000m3 wt 300kg", ["ok: gas helium, fill 600 m3,",
-                                                        "    envelope 1000 m3, weight 300 kg"]),
-            ("superheat 51K", ["error: superheat 51K: superheat=51.0 is outside the allowed"
-                               " range 0..50 K (gas over air)"]),
-            ("sh 12K", ["ok: superheat +12.0 K"])])
+    run_unwrapped(s, [
+        ("sunset", ["error: sunset is for a gas balloon: set gas helium (or h2), env, fill, wt"
+                    " and superheat first"]),
+        ("gas he fill 600m3 env 1000m3 wt 300kg", ["ok: gas helium, fill 600 m3,",
+                                                    "    envelope 1000 m3, weight 300 kg"]),
+        ("superheat 51K", ["error: superheat 51 K is outside 0..50 K"]),
+        ("sh 12K", ["ok: superheat 12 K"])])
     gas = balloon.gas_report(col, "helium", 1.0, 600.0, 1000.0, 300.0, None, 12.0)
     got = s.feed("sunset")
     assert L("superheat", "  +12.0 K") in got
@@ -1144,7 +1145,7 @@ def test_superheat_and_sunset_words():
     assert L("press height", H(gas["full_msl_m"])) in got
     # The balloon word carries the superheat too.
     assert L("gas temp", T(27.0 + 12.0)) in s.feed("balloon")
-    run(s, [("out kv", ["ok"])])
+    run(s, [("out kv", ["ok=out"])])
     kv = kvdict(s.feed("sunset 2000ft agl"))
     gz = balloon.gas_report(col, "helium", 1.0, 600.0, 1000.0, 300.0, 411.48 + 609.6, 12.0)
-    assert abs(float(kv["ballast_superheat_lost_kg"]) - gz["ballast_superheat_lost_kg"]) < 1e-3
+    assert abs(float(kv["ballast_superheat_lost_kg"]) - gz["ballast_superheat_lost_kg"]) < 0.006

@@ -116,7 +116,8 @@ class Session:
         self.json = None  # the json module, once "out json" was asked for
         self.checks = []  # "check:" lines of the line being run (a word adds them)
         self._col = self._rep = self._levels = None
-        # On a board, WORD_MODULES are dropped after each line (drop_modules).
+        # On a board, WORD_MODULES are dropped after each line (drop_modules) and the
+        # heap collected.
         self.drop_word_modules = _on_board()
 
     def feed(self, line):
@@ -134,7 +135,12 @@ class Session:
                        % (type(e).__name__, shown(str(e), 200)))
         finally:
             if self.drop_word_modules:
+                # A collection here frees the line's garbage and the dropped modules
+                # before the next line allocates among them: less fragmentation (the
+                # hard heap limit of the full-word session fell from 186 to 172 KiB).
                 drop_modules(WORD_MODULES)
+                import gc
+                gc.collect()
         for c in self.checks:
             out.extend(say(self, "check", c))
         if self.mode == "json":

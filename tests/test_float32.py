@@ -307,6 +307,7 @@ def test_interpreter_text_matches_double_at_the_digits_shown(sh):
                     boundary.append((a, b))
         lines += len(script)
     assert total > 4000
+    print("\nfloat32 text lines: %d of %d one step apart in the last digit" % (len(boundary), total))
     assert len(boundary) <= TEXT_LAST_DIGIT_SHARE * total, boundary
 
 

@@ -117,8 +117,9 @@ class Session:
         self.checks = []  # "check:" lines of the line being run (a word adds them)
         self._col = self._rep = self._levels = None
         # On a board, WORD_MODULES are dropped after each line (drop_modules) and the
-        # heap collected.
-        self.drop_word_modules = _on_board()
+        # heap collected (an allocation count sets collect_after_line False: it
+        # collects between lines itself).
+        self.drop_word_modules = self.collect_after_line = _on_board()
 
     def feed(self, line):
         """Run one line; return its output lines (no newlines in them). In text mode
@@ -139,6 +140,7 @@ class Session:
                 # before the next line allocates among them: less fragmentation (the
                 # hard heap limit of the full-word session fell from 186 to 172 KiB).
                 drop_modules(WORD_MODULES)
+            if self.collect_after_line:
                 import gc
                 gc.collect()
         for c in self.checks:

@@ -60,8 +60,13 @@ def test_line_check_rules():
     assert ok("temp 27C", ["ok: temp 27.0 C"]) is None
     assert ok("temp 99C", ["error: temp 99C: t=99 is outside"]) is not None
     assert ok("chart", ["x", "error: cannot compute that (MemoryError: ...)"]) is not None
+    assert ok("report", ["error=cannot compute that (MemoryError: x)"]) is not None
+    assert ok("report", ['{"error": "cannot compute that (MemoryError: x)"}']) is not None
+    assert ok("temp 99C", ["error=temp 99C is outside"]) is not None
+    assert ok("report", ["cloud base  5806 ft", "error: x"]) is not None
     marked = "svg a.svg  " + board_session.EXPECT_ERROR
-    assert ok(marked, ["error: svg writes a file"]) is None
+    assert ok(marked, ["error: svg writes a file, only", "  the command line does"]) is None
+    assert ok(marked, ['{"error": "svg writes a file"}']) is None
     assert ok(marked, ["ok"]) is not None
     assert ok(marked, ["error: cannot compute that (MemoryError: x); nothing changed"]) \
         is not None

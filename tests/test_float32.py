@@ -204,13 +204,13 @@ def test_worst_errors_within_tolerances():
 # heights to 1 m / 1 ft, temperatures to 0.1, pressures to 0.1 hPa or 0.01 inHg:
 # coarser than the float32 error, so the lines are equal, except where a value lies
 # within that error of a rounding boundary: then the last digit shown may differ by
-# one (5 of about 5400 lines on the columns below, heights in feet above 7 km).
+# one (15 of about 7200 lines on the columns below, all heights, mostly in feet).
 # kv and json carry more digits than float32 holds (for machines): checked against
 # the tolerances at the top of this file.
 
 BOARD_SESSION = os.path.join(os.path.dirname(os.path.abspath(__file__)), "mpy",
                              "board_session.txt")
-# Boundary cases allowed among the text lines compared (measured 0.1 %).
+# Boundary cases allowed among the text lines compared (measured 0.2 %).
 TEXT_LAST_DIGIT_SHARE = 0.005
 # kv tolerances by key suffix (the core tolerances above; CAPE/CIN as CAPE).
 KV_TOL = (("_j_kg", None), ("_m", 5.0), ("_hpa", QNH_HPA), ("_c", 0.02), ("_pct", 0.01),
@@ -307,7 +307,8 @@ def test_interpreter_text_matches_double_at_the_digits_shown(sh):
                     boundary.append((a, b))
         lines += len(script)
     assert total > 4000
-    print("\nfloat32 text lines: %d of %d one step apart in the last digit" % (len(boundary), total))
+    print("\nfloat32 text lines: %d of %d one step apart in the last digit"
+          % (len(boundary), total))
     assert len(boundary) <= TEXT_LAST_DIGIT_SHARE * total, boundary
 
 

@@ -5,8 +5,8 @@
 Runs every line of the session file through one lapsecalc.shell.Session (lines read
 one at a time, so the script itself holds almost nothing) and exits 1 naming each
 line that failed: an output line starting "error:" (a MemoryError inside a word comes
-back as "error: cannot compute that (MemoryError ...)"), or, on a line marked
-"#!error", anything but one ordinary error line. With "account" it also measures,
+back as "error: cannot compute that (MemoryError ...)"; errors in kv and json
+mode too), or, on a line marked "#!error", anything but an ordinary error. With "account" it also measures,
 per line, the heap held before it (after collections) and what the line allocates
 with the collector off, and prints the largest sum (the heap the session needs when
 a collection runs between lines; on the Unix port, whose collector works inside a
@@ -20,16 +20,20 @@ import sys
 EXPECT_ERROR = "#!error"
 
 
+def _is_error(o):
+    # An error line in any output mode: "error: ..." (text), "error=..." (kv),
+    # {"error": ...} (json).
+    return o[:6] in ("error:", "error=") or o[:9] == '{"error":'
+
+
 def line_failed(line, out):
     """Why the output lines out of line are a failure, or None."""
-    errors = [o for o in out if o[:6] == "error:"]
+    unforeseen = [o for o in out if o.find("cannot compute") >= 0]
     if line[:1] == "#" or line.find(EXPECT_ERROR) < 0:
-        return errors[0] if errors else None
-    # One error: its first line "error: ...", the rest its wrapped lines ("  ...").
-    wrapped = [o for o in out[1:] if o[:2] != "  "]
-    if len(errors) != 1 or out[0][:6] != "error:" or wrapped or \
-            " ".join(out).find("cannot compute") >= 0:
-        return "wanted one ordinary error, got %r" % (out,)
+        errors = [o for o in out if _is_error(o)]
+        return (unforeseen or errors or [None])[0]
+    if not out or not _is_error(out[0]) or unforeseen:
+        return "wanted an ordinary error, got %r" % (out,)
     return None
 
 
@@ -49,6 +53,7 @@ def main(args):
     from lapsecalc.shell import Session
     s = Session()
     if account:
+        s.collect_after_line = False  # collected below, between lines
         print("import_heap_bytes=%d" % (held() - base))
     worst = worst_line = n = bad = 0
     while True:

@@ -266,7 +266,7 @@ _lc_ms = _lc_timeit(${opt.time})`);
 function sessionMode(opt, call, get, settle) {
   const lines = readFileSync(opt.session, "utf8").split("\n");
   if (lines.length && lines[lines.length - 1] === "") lines.pop();
-  call("from lapsecalc.shell import Session\n_lc_s = Session()");
+  call("from lapsecalc.shell import Session\n_lc_s = Session()\n_lc_s.collect_after_line = False");
   let worst = 0, worstLine = 0, failed = 0;
   lines.forEach((line, i) => {
     settle();

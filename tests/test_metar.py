@@ -143,9 +143,12 @@ def test_other_remark_groups_are_not_the_t_group():
 def test_garbled_groups_are_skipped():
     # A letter O for a zero, an A or Q group with a letter, a group with more
     # slashes: none is read (the report stays readable).
-    m = parse("XKFL 121653Z 12/05/24/36 10/05 Q1O16 AX992")
+    m = parse("XKFL 121653Z 12/05/24/36 10/05 Q1O16 AX992 QA123")
     assert m["t_c"] == 10.0 and m["td_c"] == 5.0 and m["qnh_hpa"] is None
     assert m["groups"] == ["10/05"]
+    # Only the first temperature group counts.
+    m = parse("XKFL 121653Z 10/05 Q1016 12/08")
+    assert m["t_c"] == 10.0 and m["td_c"] == 5.0 and m["groups"] == ["10/05", "Q1016"]
 
 
 def test_group_count_limit():
@@ -160,3 +163,5 @@ def test_remark_temperature_range():
     # remark group is refused, -89.5 read.
     assert "-90" in _refused("XKFL 121653Z M89/// RMK T1905")
     assert parse("XKFL 121653Z M89/// RMK T1895")["t_c"] == -89.5
+    assert "60" in _refused("XKFL 121653Z 60/// RMK T0605")
+    assert parse("XKFL 121653Z 59/// RMK T0595")["t_c"] == 59.5

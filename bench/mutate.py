@@ -57,7 +57,7 @@ DEFAULT_TESTS = {
                "test_stability.py", "test_balloon.py", "test_station.py"],
     "parcel": ["test_parcel.py", "test_report_keys.py", "test_stability.py", "test_column.py"],
     "stability": ["test_stability.py", "test_parcel.py", "test_report_keys.py", "test_column.py"],
-    "balloon": ["test_balloon.py", "test_shell_values.py"],
+    "balloon": ["test_balloon.py", "test_balloon_full.py", "test_shell_values.py"],
     "settings": ["test_settings_limits.py", "test_shell.py", "test_shell_values.py",
                  "test_metar.py"],
     "typed": ["test_typed.py", "test_settings_limits.py", "test_shell.py", "test_units.py"],

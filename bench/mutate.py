@@ -298,9 +298,46 @@ def run_module(module, tests, max_n, seed, key_filter, python, verbose):
     return entry
 
 
+def markdown(after, before, equiv):
+    """The per-module table (before and after) and the equivalent survivors, as
+    Markdown lines."""
+    out = ["| module | mutants | run | killed | timeout | survived | equivalent | score |"
+           " before |", "|---|---|---|---|---|---|---|---|---|"]
+    tot = dict.fromkeys(("mutants", "run", "killed", "timeout", "survived", "equivalent"), 0)
+    btot = [0, 0]
+    for name in sorted(after):
+        e = after[name]
+        b = before.get(name)
+        for k in tot:
+            tot[k] += e[k]
+        if b:
+            btot[0] += b["killed"] + b["timeout"]
+            btot[1] += b["run"] - b.get("equivalent", 0)
+        out.append("| %s | %d | %d | %d | %d | %d | %d | %.1f %% | %s |" % (
+            name, e["mutants"], e["run"], e["killed"], e["timeout"], e["survived"],
+            e["equivalent"], 100 * e["score"],
+            "%.1f %% (%d run)" % (100 * b["score"], b["run"]) if b else "-"))
+    judged = tot["run"] - tot["equivalent"]
+    out.append("| all | %d | %d | %d | %d | %d | %d | %.1f %% | %s |" % (
+        tot["mutants"], tot["run"], tot["killed"], tot["timeout"], tot["survived"],
+        tot["equivalent"], 100.0 * (tot["killed"] + tot["timeout"]) / max(judged, 1),
+        "%.1f %%" % (100.0 * btot[0] / btot[1]) if btot[1] else "-"))
+    out += ["", "Survivors judged equivalent (from `bench/mutation_equivalent.txt`; those"
+            " met in this run are marked *):", ""]
+    for module in sorted(equiv):
+        seen = set(after.get(module, {}).get("equivalent_seen", ()))
+        for key, reason in sorted(equiv[module].items()):
+            out.append("- %s`%s %s`: %s" % ("*" if key in seen else "", module, key, reason))
+    left = [(m, s) for m in sorted(after) for s in after[m]["survivors"]]
+    if left:
+        out += ["", "Survivors not judged equivalent:", ""]
+        out += ["- `%s %s` (line %d): `%s`" % (m, s["key"], s["line"], s["code"]) for m, s in left]
+    return out
+
+
 def main(argv=None):
     ap = argparse.ArgumentParser(description=__doc__.split("\n")[0])
-    ap.add_argument("--module", action="append", required=True,
+    ap.add_argument("--module", action="append", default=[],
                     help="module of lapsecalc (repeatable), e.g. stability")
     ap.add_argument("--max", type=int, default=None, help="sample at most this many mutants")
     ap.add_argument("--seed", type=int, default=1)
@@ -311,8 +348,24 @@ def main(argv=None):
     ap.add_argument("--out", default=DEFAULT_OUT, help="JSON file (default bench/mutation.json)")
     ap.add_argument("--no-write", action="store_true", help="print only")
     ap.add_argument("-v", "--verbose", action="store_true", help="a line per mutant")
+    ap.add_argument("--markdown", metavar="PATH",
+                    help="write the table of --out (with bench/mutation_before.json) and the"
+                    " equivalent survivors as Markdown to PATH, run nothing")
     args = ap.parse_args(argv)
     signal.signal(signal.SIGTERM, lambda *a: (_ for _ in ()).throw(KeyboardInterrupt()))
+    if args.markdown:
+        with open(args.out) as f:
+            after = json.load(f)
+        before_path = os.path.join(HERE, "mutation_before.json")
+        before = {}
+        if os.path.exists(before_path):
+            with open(before_path) as f:
+                before = json.load(f)
+        with open(args.markdown, "w") as f:
+            f.write("\n".join(markdown(after, before, load_equivalent())) + "\n")
+        return 0
+    if not args.module:
+        ap.error("--module is required")
     summary = {}
     for module in args.module:
         with open(os.path.join(ROOT, "lapsecalc", module + ".py")) as f:

@@ -51,3 +51,46 @@ def test_working_temperature_up_to_the_maximum():
     with pytest.raises(ValueError) as err:
         hot(envelope_t_c=120.1)
     assert "max_envelope_t_c=120" in str(err.value)
+
+
+@pytest.mark.parametrize("fn,base,name,good,bad", [
+    ("hot_air_lift_per_m3", dict(rho_air_kg_m3=1.2, p_hpa=1000.0, envelope_t_c=100.0),
+     "rho_air_kg_m3", (0.001, 2.5), (0.00099, 2.51)),
+    ("hot_air_lift_per_m3", dict(rho_air_kg_m3=1.2, p_hpa=1000.0, envelope_t_c=100.0),
+     "envelope_t_c", (-90.0, 150.0), (-90.1, 150.1)),
+    ("hot_air_lift_per_m3", dict(rho_air_kg_m3=1.2, p_hpa=1000.0, envelope_t_c=100.0),
+     "e_hpa", (0.0, 500.0), (-0.1, 500.1)),
+    ("envelope_t_for_lift", dict(rho_air_kg_m3=1.2, t_air_c=15.0, lift_per_m3_kg=0.2),
+     "t_air_c", (-90.0, 60.0), (-90.1, 60.1)),
+    ("envelope_t_for_lift", dict(rho_air_kg_m3=1.2, t_air_c=15.0, lift_per_m3_kg=0.2),
+     "lift_per_m3_kg", (0.0, 1.19), (-0.01, 1.21)),
+    ("gas_density", dict(p_hpa=1000.0, t_c=15.0, gas="helium"), "t_c", (-90.0, 60.0),
+     (-90.1, 60.1)),
+    ("gas_density", dict(p_hpa=1000.0, t_c=15.0, gas="helium"), "purity", (0.5, 1.0),
+     (0.499, 1.001)),
+    ("gas_density", dict(p_hpa=1000.0, t_c=15.0, gas="helium"), "superheat_k", (0.0, 50.0),
+     (-0.1, 50.1)),
+    ("gas_lift_per_m3", dict(rho_air_kg_m3=1.2, p_hpa=1000.0, t_c=15.0, gas="helium"),
+     "rho_air_kg_m3", (0.001, 2.5), (0.00099, 2.51)),
+    ("superheat_loss_kg", dict(rho_air_kg_m3=1.2, t_air_c=15.0, gas_volume_m3=100.0,
+                               superheat_k=10.0), "t_air_c", (-90.0, 60.0), (-90.1, 60.1)),
+    ("superheat_loss_kg", dict(rho_air_kg_m3=1.2, t_air_c=15.0, gas_volume_m3=100.0,
+                               superheat_k=10.0), "gas_volume_m3", (0.0, 2.0e6), (-0.1, 2.0e6 + 1)),
+    ("superheat_loss_kg", dict(rho_air_kg_m3=1.2, t_air_c=15.0, gas_volume_m3=100.0,
+                               superheat_k=10.0), "superheat_k", (0.0, 50.0), (-0.1, 50.1)),
+    ("gas_volume_at", dict(v0_m3=100.0, p0_hpa=1000.0, t0_c=15.0, p_hpa=900.0, t_c=10.0),
+     "t_c", (-90.0, 150.0), (-90.1, 150.1)),
+    ("gas_volume_at", dict(v0_m3=100.0, p0_hpa=1000.0, t0_c=15.0, p_hpa=900.0, t_c=10.0),
+     "t0_c", (-90.0, 150.0), (-90.1, 150.1)),
+    ("gas_volume_at", dict(v0_m3=100.0, p0_hpa=1000.0, t0_c=15.0, p_hpa=900.0, t_c=10.0),
+     "v0_m3", (0.0, 1.0e9), (-0.1, 1.0e9 + 1)),
+])
+def test_plain_formula_edges(fn, base, name, good, bad):
+    from lapsecalc import balloon
+    f = getattr(balloon, fn)
+    for v in good:
+        f(**dict(base, **{name: v}))
+    for v in bad:
+        with pytest.raises(ValueError) as err:
+            f(**dict(base, **{name: v}))
+        assert name in str(err.value)

@@ -377,3 +377,21 @@ def test_layers_deeper_than_2km_are_split():
         assert len(bands) == n + 1
         assert bands[n - 1]["top_msl_m"] == pytest.approx(depth)
         assert all(b["top_msl_m"] - b["bottom_msl_m"] <= 2000.0 for b in bands)
+
+
+def test_ccl_just_above_a_kink_in_the_elr():
+    # The air cools at 8 K/km until the gap to the mixing-ratio dewpoint is 0.5 K, then
+    # at 3 K/km: the CCL is some 400 m above the kink, not where the lower layer's
+    # trend would put it (AE96 dewpoint inverted by bisection, closed-form layers).
+    t, td, p = 20.0, 12.0, 1000.0
+    w = EPS * ae_es_hpa(td) / (p - ae_es_hpa(td))
+
+    def gap(spec, z):
+        e = w * _env_p(spec, z) / (EPS + w)
+        return bisect(lambda x: ae_es_hpa(x) - e, -90.0, 60.0) - _env_t(spec, z)
+    lower = (t, td, p, 0.0, [(None, 8.0)], 6000.0, 0.0)
+    z_kink = bisect(lambda z: gap(lower, z) + 0.5, 0.0, 3000.0)      # gap 0.5 K there
+    spec = (t, td, p, 0.0, [(z_kink, 8.0), (None, 3.0)], 6000.0, 0.0)
+    z = bisect(lambda zz: gap(spec, zz), 0.0, 6000.0)
+    assert z - z_kink > 300.0
+    assert abs(_col(spec).report()["ccl_msl_m"] - z) < 0.6

@@ -109,3 +109,24 @@ def test_isothermal_layer_at_the_asked_temperature():
     assert col.level(0.0) == pytest.approx(1000.0)
     assert col.level(5.0) == 0.0                         # the surface already is
     assert col.level(-50.0) is None                      # never in 6 km
+
+
+def test_crossings_under_a_metre_apart_are_both_listed():
+    # 0 degC reached at 999.7 m (10 K/km from 9.997 degC), left again 0.1 m above the
+    # 1000 m boundary (a 30 K/km warming), and reached once more in the 6.5 K/km air
+    # above 1500 m: three crossings, closed forms.
+    col = Column(9.997, 0.0, 1000.0, 0.0, [(1000.0, 10.0), (1500.0, -30.0), (None, 6.5)],
+                 top_m=6000.0)
+    t1500 = 9.997 - 10.0 + 15.0
+    assert col.crossings(0.0) == pytest.approx([999.7, 1000.0 + 0.003 / 30.0 * 1000.0,
+                                                1500.0 + t1500 / 6.5 * 1000.0], abs=1e-6)
+
+
+def test_layer_tops_a_metre_apart():
+    # Each layer top at least 1 m above the one below (the first: above the field).
+    col = Column(15.0, 5.0, 1000.0, 0.0, [(1.0, -5.0), (2.0, 9.0), (None, 6.5)], top_m=3000.0)
+    assert [lay[1] for lay in col.layers] == [1.0, 2.0, 3000.0]
+    for layers in ([(0.5, 6.0), (None, 6.5)], [(500.0, 6.0), (500.5, 7.0), (None, 6.5)]):
+        with pytest.raises(ValueError) as err:
+            Column(15.0, 5.0, 1000.0, 0.0, layers)
+        assert "top_agl_m" in str(err.value)

@@ -118,9 +118,8 @@ class Column:
             z = self.top_m
         z = check("z_m", z, self.elev_m, self.top_m, "m MSL (the column)")
         for layer in self.layers:
-            if z <= layer[1]:
+            if z <= layer[1]:    # the last layer ends at top_m: always found
                 return z, layer
-        return z, self.layers[-1]
 
     def t_at(self, z_m):
         """Environment temperature, degC, at z_m MSL (inside the column)."""

@@ -130,3 +130,18 @@ def test_layer_tops_a_metre_apart():
         with pytest.raises(ValueError) as err:
             Column(15.0, 5.0, 1000.0, 0.0, layers)
         assert "top_agl_m" in str(err.value)
+
+
+def test_column_limits_at_their_edges():
+    # The top at least 100 m above the field; warming to exactly 60 degC is allowed.
+    assert Column(15.0, 5.0, 1000.0, 50.0, top_m=150.0).top_m == 150.0
+    with pytest.raises(ValueError):
+        Column(15.0, 5.0, 1000.0, 50.0, top_m=149.9)
+    col = Column(40.0, 10.0, 1000.0, 0.0, [(2000.0, -10.0), (None, 6.5)], top_m=8000.0)
+    assert col.t_at(2000.0) == pytest.approx(60.0)
+    # Air reaching -90 degC ends the column there if that is over a metre up (30 K/km:
+    # 0.0302 K is 1.007 m, kept; 0.025 K is 0.83 m, no column).
+    assert Column(-89.9698, -90.0, 1000.0, 0.0, 30.0).top_m == pytest.approx(0.0302 / 30.0 * 1000.0)
+    with pytest.raises(ValueError) as err:
+        Column(-89.975, -90.0, 1000.0, 0.0, 30.0)
+    assert "no column" in str(err.value)

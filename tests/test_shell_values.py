@@ -232,3 +232,16 @@ def test_svg_labels_the_freezing_level():
     s.feed("svg p.svg")
     # 15 / 6.5 km = 2307.7 m = 7571 ft (ISA lapse rate; 1 ft = 0.3048 m).
     assert ">0 deg %d ft<" % round(15.0 / 6.5 * 1000.0 / FT) in written["p.svg"]
+
+
+# Query words with a session above checked against an outside value (issue: at least
+# one per word). A new query word fails the test below until it has one here.
+CHECKED_WORDS = {"obs", "da", "base", "ice", "iso", "at", "stab", "thermal", "parcel", "report",
+                 "show", "balloon", "chart", "svg"}
+
+
+def test_every_query_word_has_an_outside_check():
+    from lapsecalc.queries import QUERIES
+    missing = sorted(set(QUERIES) - CHECKED_WORDS)
+    assert not missing, ("query words with no session checked against an outside value in"
+                         " tests/test_shell_values.py: %s" % missing)

@@ -145,3 +145,12 @@ def test_column_limits_at_their_edges():
     with pytest.raises(ValueError) as err:
         Column(-89.975, -90.0, 1000.0, 0.0, 30.0)
     assert "no column" in str(err.value)
+
+
+def test_pressures_below_the_top_are_refused():
+    col = Column(20.0, 10.0, 1000.0, 0.0, [(800.0, 9.0), (None, 6.0)], top_m=9000.0)
+    p_top = _p(1000.0, 20.0, 9.0, 800.0)
+    p_top = _p(p_top, 20.0 - 7.2, 6.0, 8200.0)
+    assert col.z_at(p_top) == pytest.approx(9000.0, abs=1e-6)
+    with pytest.raises(ValueError):
+        col.z_at(p_top * 0.999)

@@ -285,6 +285,8 @@ def _warm_over_cold_by_scan(spec, dz=1.0):
     (-2.0, [(600.0, -4.0), (None, 6.5)], True),          # ... or just above it
     (5.0, [(1000.0, 8.0), (2000.0, -6.0), (None, 6.5)], True),   # warm nose aloft
     (5.0, [(500.0, -4.0), (None, 6.5)], False),          # warm inversion over warm air
+    (0.5, [(500.0, -4.0), (None, 6.5)], False),          # ... even just above 0 degC
+    (5.0, [(1000.0, 5.0), (1500.0, -4.0), (None, 6.5)], True),   # 0 degC exactly, then warm
 ])
 def test_warm_layer_aloft_edges(t_c, layers, want):
     spec = (t_c, t_c - 3.0, 1000.0, 0.0, layers, 6000.0, 0.0)

@@ -88,11 +88,9 @@ class Column:
             if t_top - T0_K < T_MIN_C:
                 # The column ends where the air would pass the coldest temperature allowed.
                 z_top = z + (T_MIN_C + T0_K - t) / grad
-                t_top = T_MIN_C + T0_K
                 if z_top - z > 1.0:
                     layers.append((z, z_top, t, grad, p))
-                    p = layer_pressure(p, t, grad, z_top - z)
-                    z, t = z_top, t_top
+                    z = z_top
                 break
             layers.append((z, z_top, t, grad, p))
             p = layer_pressure(p, t, grad, z_top - z)

@@ -94,3 +94,20 @@ def test_plain_formula_edges(fn, base, name, good, bad):
         with pytest.raises(ValueError) as err:
             f(**dict(base, **{name: v}))
         assert name in str(err.value)
+
+
+def test_needed_temperature_that_vanishes_aloft():
+    # A load of 99.9 % of the air displaced at the field: it floats at T / (1 - 0.999)
+    # there (same pressure inside; ideal gas), but 1000 ft up the air displaced weighs
+    # less than the load, so no envelope temperature floats it: no rate per 1000 ft.
+    from test_balloon import moist_density
+    rho = moist_density(COL, 0.0)
+    r = hot_air_report(COL, 1000.0, 0.999 * rho * 1000.0, 150.0)
+    assert abs(r["envelope_t_needed_c"] - (288.15 / 0.001 - 273.15)) < 1.0
+    assert 1000.0 * moist_density(COL, 304.8) < 0.999 * rho * 1000.0
+    assert r["envelope_t_needed_per_1000ft_c"] is None
+
+
+def test_superheat_note_only_with_superheat():
+    assert not any("superheat goes" in n for n in gas()["notes"])
+    assert any("superheat goes" in n for n in gas(superheat_k=5.0)["notes"])

@@ -126,10 +126,12 @@ def test_layer_tops_a_metre_apart():
     # Each layer top at least 1 m above the one below (the first: above the field).
     col = Column(15.0, 5.0, 1000.0, 0.0, [(1.0, -5.0), (2.0, 9.0), (None, 6.5)], top_m=3000.0)
     assert [lay[1] for lay in col.layers] == [1.0, 2.0, 3000.0]
-    for layers in ([(0.5, 6.0), (None, 6.5)], [(500.0, 6.0), (500.5, 7.0), (None, 6.5)]):
+    for layers, name in (([(0.5, 6.0), (None, 6.5)], "lapse layer 1 top_agl_m=0.5"),
+                         ([(500.0, 6.0), (500.5, 7.0), (None, 6.5)], "lapse layer 2 top_agl_m=500.5"),
+                         ([(500.0, 6.0), "steep"], "lapse layer 2='steep'")):
         with pytest.raises(ValueError) as err:
             Column(15.0, 5.0, 1000.0, 0.0, layers)
-        assert "top_agl_m" in str(err.value)
+        assert name in str(err.value)
 
 
 def test_column_limits_at_their_edges():
@@ -142,9 +144,11 @@ def test_column_limits_at_their_edges():
     # Air reaching -90 degC ends the column there if that is over a metre up (30 K/km:
     # 0.0302 K is 1.007 m, kept; 0.025 K is 0.83 m, no column).
     assert Column(-89.9698, -90.0, 1000.0, 0.0, 30.0).top_m == pytest.approx(0.0302 / 30.0 * 1000.0)
-    with pytest.raises(ValueError) as err:
-        Column(-89.975, -90.0, 1000.0, 0.0, 30.0)
-    assert "no column" in str(err.value)
+    assert Column(-89.9698, -90.0, 1000.0, 500.0, 30.0).top_m == pytest.approx(501.0067, abs=1e-4)
+    for elev in (0.0, 500.0):
+        with pytest.raises(ValueError) as err:
+            Column(-89.975, -90.0, 1000.0, elev, 30.0)
+        assert "no column" in str(err.value)
 
 
 def test_pressures_below_the_top_are_refused():

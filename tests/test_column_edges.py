@@ -128,7 +128,8 @@ def test_layer_tops_a_metre_apart():
     assert [lay[1] for lay in col.layers] == [1.0, 2.0, 3000.0]
     for layers, name in (([(0.5, 6.0), (None, 6.5)], "lapse layer 1 top_agl_m=0.5"),
                          ([(500.0, 6.0), (500.5, 7.0), (None, 6.5)], "lapse layer 2 top_agl_m=500.5"),
-                         ([(500.0, 6.0), "steep"], "lapse layer 2='steep'")):
+                         ([(500.0, 6.0), "steep"], "lapse layer 2='steep'"),
+                         ([(500.0, 6.0), (None, 40.0)], "lapse layer 2 rate=40")):
         with pytest.raises(ValueError) as err:
             Column(15.0, 5.0, 1000.0, 0.0, layers)
         assert name in str(err.value)

@@ -96,3 +96,24 @@ def test_qnh_limit_at_a_high_field():
     assert abs(float(obs["qnh_hpa"]) - 850.0) < 1e-3
     # A QNH a hundredth below the limit, given as station pressure, is still refused.
     assert s.feed("stn 246.36")[0].startswith("error")
+
+
+def _text(s, line):
+    # One reply as a single string (wrapped text lines joined).
+    return " ".join(x.strip() for x in s.feed(line))
+
+
+def test_unit_hints_at_their_edges():
+    # degF = 1.8 degC + 32 and 1 inHg = 33.8639 hPa (REFERENCES.md, Units): a bare
+    # temperature out of range in C but within -90..60 C once read as F gets the F
+    # hint; a bare pressure of 2500..3300 (inches x 100) or 25..33 (inches) the inHg
+    # hint; a rh up to 1 % asks whether a fraction was meant.
+    s = Session()
+    assert "(27.0 C)" in _text(s, "temp 80.6F")
+    for tok, hint in (("130", True), ("140", True), ("140.3", False), ("141", False),
+                      ("-130", True), ("-130.3", False)):
+        assert ("in F write %sF" % tok in _text(s, "temp " + tok)) is hint, tok
+    for tok, hint in (("3300", True), ("3320", False), ("2500", True), ("2499", False)):
+        assert ("inHg write %.2finHg" % (float(tok) / 100.0) in _text(s, "qnh " + tok)) is hint, tok
+    assert "for inches write 29.92inHg" in _text(s, "qnh 29.92")
+    assert "check" in _text(s, "rh 1%") and "check" not in _text(s, "rh 1.005%")

@@ -115,5 +115,7 @@ def test_unit_hints_at_their_edges():
         assert ("in F write %sF" % tok in _text(s, "temp " + tok)) is hint, tok
     for tok, hint in (("3300", True), ("3320", False), ("2500", True), ("2499", False)):
         assert ("inHg write %.2finHg" % (float(tok) / 100.0) in _text(s, "qnh " + tok)) is hint, tok
-    assert "for inches write 29.92inHg" in _text(s, "qnh 29.92")
+    for tok, hint in (("29.92", True), ("25", True), ("33", True), ("24.9", False),
+                      ("33.1", False)):
+        assert ("for inches write %sinHg" % tok in _text(s, "qnh " + tok)) is hint, tok
     assert "check" in _text(s, "rh 1%") and "check" not in _text(s, "rh 1.005%")

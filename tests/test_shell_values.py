@@ -234,10 +234,42 @@ def test_svg_labels_the_freezing_level():
     assert ">0 deg %d ft<" % round(15.0 / 6.5 * 1000.0 / FT) in written["p.svg"]
 
 
+def _moist_rho(t_c, td_c, p_hpa):
+    # Ideal gas with the virtual temperature (Wallace & Hobbs eq. 3.60), AE96 e_s.
+    e = ae_es_hpa(min(td_c, t_c))
+    return 100.0 * p_hpa / (RD * (t_c + 273.15) / (1.0 - e / p_hpa * (1.0 - EPS)))
+
+
+def test_loads_at_the_field():
+    # The load table's field row: gross lift = V rho (1 - T / T_env) at each field
+    # temperature (same pressure and humidity inside; ideal gas), heights every 2000 ft.
+    v = kv(session(ISA, "env 2800m3 wt 450kg tmax 120C"), "loads")
+    temps = [float(x) for x in v["temps_c"].split(",")]
+    heights = [float(x) for x in v["heights_msl_m"].split(",")]
+    assert heights == [round(2000.0 * k * FT, 6) for k in range(len(heights))]
+    field = [float(x) for x in v["gross_kg"].split(";")[0].split(",")]
+    for t, g in zip(temps, field):
+        want = 2800.0 * _moist_rho(t, 5.0, 1013.25) * (1.0 - (t + 273.15) / 373.15)
+        assert abs(g - want) < 0.01, t
+
+
+def test_sunset_superheat_lift():
+    # Gas at T + dT at the same pressure: its volume grows by (T + dT)/T and its
+    # density falls by the same factor, so the lift gained is v0 rho_air dT / T
+    # (ideal gas), and it is the ballast to drop when the superheat goes (no gas vented
+    # below the full height).
+    v = kv(session(ISA, "gas helium fill 500m3 env 1000m3 wt 300kg pure 100%",
+                   "superheat 10K"), "sunset")
+    want = 500.0 * _moist_rho(15.0, 5.0, 1013.25) * 10.0 / 288.15
+    assert abs(v["superheat_lift_kg"] - want) < 0.01
+    assert abs(v["ballast_superheat_lost_kg"] - want) < 0.01
+    assert abs(v["gas_volume_at_z_m3"] - 500.0 * 298.15 / 288.15) < 0.001
+
+
 # Query words with a session above checked against an outside value (issue: at least
 # one per word). A new query word fails the test below until it has one here.
 CHECKED_WORDS = {"obs", "da", "base", "ice", "iso", "at", "stab", "thermal", "parcel", "report",
-                 "show", "balloon", "chart", "svg"}
+                 "show", "balloon", "chart", "svg", "loads", "sunset"}
 
 
 def test_every_query_word_has_an_outside_check():

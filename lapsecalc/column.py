@@ -88,9 +88,11 @@ class Column:
             if t_top - T0_K < T_MIN_C:
                 # The column ends where the air would pass the coldest temperature allowed.
                 z_top = z + (T_MIN_C + T0_K - t) / grad
+                t_top = T_MIN_C + T0_K
                 if z_top - z > 1.0:
                     layers.append((z, z_top, t, grad, p))
-                    z = z_top
+                    p = layer_pressure(p, t, grad, z_top - z)
+                    z, t = z_top, t_top
                 break
             layers.append((z, z_top, t, grad, p))
             p = layer_pressure(p, t, grad, z_top - z)
@@ -116,8 +118,9 @@ class Column:
             z = self.top_m
         z = check("z_m", z, self.elev_m, self.top_m, "m MSL (the column)")
         for layer in self.layers:
-            if z <= layer[1]:    # the last layer ends at top_m: always found
+            if z <= layer[1]:
                 return z, layer
+        return z, self.layers[-1]
 
     def t_at(self, z_m):
         """Environment temperature, degC, at z_m MSL (inside the column)."""

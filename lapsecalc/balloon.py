@@ -494,7 +494,8 @@ def gas_report(col, gas, purity, gas_volume_m3, envelope_m3, weight_kg, z_m=None
     superheat_lift_kg (gross lift at z gained by the superheat over the same balloon
     without it), ballast_superheat_lost_kg (ballast to drop at z to hold level when
     the superheat goes: superheat_loss_kg of the gas aboard; more than the lift gained
-    once gas vented while warm), notes, warnings.
+    once gas vented while warm), oxygen_note (str or None: the planned height or the
+    float height passes the oxygen heights), notes, warnings.
     """
     m_gas = molar_mass(gas)
     f = check("purity", purity, PURITY_MIN, 1.0, "(volume fraction of the gas; the rest air)")
@@ -537,6 +538,10 @@ def gas_report(col, gas, purity, gas_volume_m3, envelope_m3, weight_kg, z_m=None
                         % (gross(col.elev_m), w - gross(col.elev_m)))
     if full is None:
         warnings.append("The envelope is not full below the column top (%.0f m MSL)." % col.top_m)
+    oxygen = oxygen_note(col, (("planned height", z),
+                               ("float height", col.top_m if flt_above else flt)))
+    if oxygen:
+        warnings.append(oxygen)
     notes = [
         "The gas is taken at the outside pressure and at the outside temperature plus the"
         " superheat you set (%.1f K), the same at every height; its impurity is dry air."
@@ -573,6 +578,7 @@ def gas_report(col, gas, purity, gas_volume_m3, envelope_m3, weight_kg, z_m=None
         "full_above_top": full is None,
         "float_msl_m": flt,
         "float_above_top": flt_above,
+        "oxygen_note": oxygen,
         "ballast_to_hold_kg": w - g_z if w > g_z else 0.0,
         "gross_lift_per_1000ft_kg": _per_1000ft(col, z, gross),
         "superheat_k": dt,

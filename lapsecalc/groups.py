@@ -40,7 +40,7 @@ GROUPS = {
             "gross_lift_kg", "free_lift_kg", "full_msl_m", "full_p_hpa", "full_above_top",
             "float_msl_m", "float_above_top", "ballast_to_hold_kg",
             "gross_lift_per_1000ft_kg", "superheat_k", "gas_t_c", "superheat_lift_kg",
-            "ballast_superheat_lost_kg", "warnings", "notes"),
+            "ballast_superheat_lost_kg", "oxygen_note", "warnings", "notes"),
     # The sunset word: the superheat and the ballast it costs when it goes.
     "sunset": ("z_msl_m", "ambient_t_c", "superheat_k", "gas_t_c", "gas_volume_at_z_m3",
                "full_at_z", "full_msl_m", "superheat_lift_kg", "ballast_superheat_lost_kg"),

@@ -631,6 +631,15 @@ def test_oxygen_note_at_the_common_heights():
     # A light balloon's ceiling passes the heights even from the field.
     r = hot_air_report(col, 2800.0, 500.0, 120.0)
     assert r["ceiling_msl_m"] > 3962.4 and "ceiling" in r["oxygen_note"]
+    # A gas balloon: the planned height, or the float height (ISA: 1000 m3 of helium
+    # from a half-full envelope floats 800 kg near 9 km, above 13000 ft; ICAO Doc 7488/3).
+    g = gas_report(col, "helium", 1.0, 1000.0, 2000.0, 800.0, 1000.0)
+    assert g["float_msl_m"] > 3962.4 and "float height" in g["oxygen_note"]
+    assert g["oxygen_note"] in g["warnings"]
+    g = gas_report(col, "helium", 1.0, 1000.0, 1000.0, 1050.0, 1000.0)
+    assert g["float_msl_m"] < 3000.0 and g["oxygen_note"] is None
+    assert "planned height" in gas_report(col, "helium", 1.0, 1000.0, 1000.0, 1050.0,
+                                          3100.0)["oxygen_note"]
     assert load_table(col, 2800.0, 100.0, None, None, TEMPS, [0.0, 3000.0])["oxygen_note"] is None
     assert load_table(col, 2800.0, 100.0, None, None, TEMPS, [0.0, 3200.0])["oxygen_note"]
 

@@ -3,7 +3,7 @@
 Everything here is an invented scenario (made-up fields, made-up weather). Keep the
 interpreter script in this one place: when the shell's words change, edit SESSION_SCRIPT.
 """
-from lapsecalc import (moisture, standard, condensation, adiabats, column, parcel,
+from lapsecalc import (moisture, standard, condensation, adiabats, column, parcel, hazards,
                        stability, units)
 from lapsecalc.column import Column
 
@@ -173,10 +173,16 @@ def call_cases():
         ("stability.lifted_index", stability.lifted_index, (col, levels, lcl, 500.0), {}),
         ("stability.thermal_top", stability.thermal_top, (col, 2.0), {}),
         ("stability.ccl", stability.ccl, (col, levels), {}),
-        ("stability.icing_band", stability.icing_band,
-         (col, levels, lcl, 7300.0, parcel.level(col, levels, 0.0, lcl)), {}),
         ("stability.add_to_report", stability.add_to_report,
          (col, levels, dict(col.report())), {}),
+        ("hazards.icing_band", hazards.icing_band,
+         (col, levels, lcl, 7300.0, parcel.level(col, levels, 0.0, lcl)), {}),
+        ("hazards.warm_layer", hazards.warm_layer, (col,), {}),
+        ("hazards.precip_type", hazards.precip_type, (col,), {}),
+        ("hazards.wet_bulb_zero", hazards.wet_bulb_zero, (col,), {}),
+        ("hazards.carb_icing", hazards.carb_icing, (BENCH_T_C, BENCH_TD_C), {}),
+        ("hazards.add_to_report", hazards.add_to_report, (col, levels, dict(col.report())), {}),
+        ("hazards.frost_point", hazards.frost_point, (-12.0,), {}),
     ]
     # Unit conversions: every one, each on a typical number.
     for name in sorted(dir(units)):

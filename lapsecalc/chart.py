@@ -64,6 +64,16 @@ def _label(v):
     return "%5d" % round(v) if v < 99999.5 else "%4dk" % round(v / 1000.0)
 
 
+def icing_span(rep):
+    """(bottom, top) of the icing band to draw, m MSL: a band whose top is unknown
+    (lapsecalc.hazards, basis "air") is drawn up to the air's -20 degC level or the
+    column top. (None, None) without a band."""
+    ib, it = rep.get("icing_band_bottom_msl_m"), rep.get("icing_band_top_msl_m")
+    if ib is not None and it is None:
+        it = rep.get("minus20_level_msl_m") or rep["top_msl_m"]
+    return ib, it
+
+
 def text(col, rep, levels, h_unit="ft", t_unit="c", top_m=None, rows=ROWS):
     """The profile as lines of at most 40 columns: environment "#", parcel "o" ("X"
     where both fall), the 0-degree isotherm ".", the cloud base row shaded "-", the
@@ -88,7 +98,7 @@ def text(col, rep, levels, h_unit="ft", t_unit="c", top_m=None, rows=ROWS):
             return None
         return rows - 1 - min(int((z - lo) / dz), rows - 1)
 
-    ib, it = rep.get("icing_band_bottom_msl_m"), rep.get("icing_band_top_msl_m")
+    ib, it = icing_span(rep)
     base_row = row_of(rep.get("cloud_base_msl_m"))
     x0 = x(0.0 if t_unit == "c" else 32.0) if t_lo < (0.0 if t_unit == "c" else 32.0) < t_hi \
         else None
@@ -171,7 +181,7 @@ def svg(col, rep, levels, h_unit="ft", t_unit="c", top_m=None):
            ' font-family="sans-serif" font-size="11">' % (w, h, w, h),
            "<title>lapsecalc profile: height against temperature</title>",
            '<rect x="0" y="0" width="%d" height="%d" fill="white"/>' % (w, h)]
-    ib, it = rep.get("icing_band_bottom_msl_m"), rep.get("icing_band_top_msl_m")
+    ib, it = icing_span(rep)
     if ib is not None and it is not None:
         y1, y0 = py(min(it, hi)), py(max(ib, lo))
         out.append('<rect id="icing" x="%d" y="%.1f" width="%d" height="%.1f" fill="#9cd"'

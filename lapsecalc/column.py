@@ -190,7 +190,9 @@ class Column:
 
     def report(self, thermal_excess_c=0.0):
         """Every result for this column as a dict of plain values with units in the keys;
-        None where a level does not exist in the column."""
+        None where a level does not exist in the column. The hazard keys and a caution
+        per hazard (lapsecalc.hazards) come when that module is installed (on CPython;
+        not yet on a board), the general cautions always."""
         from lapsecalc import stability, parcel
         lcl_agl, lcl_t, lcl_p = self.cloud_base()
         lcl_msl = self.elev_m + lcl_agl
@@ -221,6 +223,12 @@ class Column:
             r[name + "_level_msl_m"] = self.level(t, zs)
             r[name + "_levels_msl_m"] = zs
         stability.add_to_report(self, path, r, thermal_excess_c)
+        try:
+            from lapsecalc import hazards
+        except (ImportError, AttributeError):  # a board: the hazards module is not there
+            r["cautions"] = stability.CAUTIONS
+            return r
+        hazards.add_to_report(self, path, r)
         return r
 
 

@@ -13,14 +13,19 @@ GROUPS = {
     "ice": ("freezing_level_msl_m", "freezing_levels_msl_m", "minus10_level_msl_m",
             "minus10_levels_msl_m", "minus20_level_msl_m", "minus20_levels_msl_m",
             "warm_layer_aloft", "parcel_freezing_level_msl_m", "icing_band_bottom_msl_m",
-            "icing_band_top_msl_m"),
+            "icing_band_top_msl_m", "icing_band_basis", "warm_layer_bottom_msl_m",
+            "warm_layer_top_msl_m", "warm_layer_max_t_c", "cold_layer_below_depth_m",
+            "precip_type", "wet_bulb_zero_msl_m"),
+    "frost": ("t_c", "td_c", "frost_point_c", "rh_ice_pct", "fog_risk", "ice_fog_risk",
+              "carb_icing"),
     "da": ("elevation_m", "station_pressure_hpa", "qnh_hpa", "pressure_altitude_m",
            "air_density_kg_m3", "density_altitude_m"),
     "stab": ("stability", "stability_column", "stability_layers"),
     "parcel": ("lfc_msl_m", "el_msl_m", "el_above_top", "cape_j_kg", "cin_j_kg",
                "lifted_index_c", "parcel_freezing_level_msl_m"),
-    "thermal": ("thermal_excess_c", "thermal_top_msl_m", "thermal_kind", "ccl_msl_m",
-                "trigger_t_c"),
+    "thermal": ("thermal_excess_c", "thermal_top_msl_m", "thermal_cloud_base_msl_m",
+                "thermal_usable_top_msl_m", "thermal_kind", "capped_cloud_top_msl_m",
+                "dry_thermals_from_t_c", "ccl_msl_m", "trigger_t_c"),
     "at": ("at_msl_m", "at_t_c", "at_p_hpa", "at_vapour_pressure_hpa", "at_air_density_kg_m3",
            "at_density_altitude_m", "at_parcel_t_c"),
     "iso": ("iso_t_c", "iso_level_msl_m", "iso_levels_msl_m"),
@@ -46,7 +51,7 @@ GROUPS = {
                "full_at_z", "full_msl_m", "superheat_lift_kg", "ballast_superheat_lost_kg"),
 }
 # The groups of the full report, in order (the text report's sections follow them).
-REPORT_GROUPS = ("obs", "base", "ice", "stab", "parcel", "thermal")
+REPORT_GROUPS = ("obs", "base", "ice", "frost", "stab", "parcel", "thermal")
 
 
 def report_keys(rep):

@@ -7,10 +7,11 @@ from lapsecalc.output import f_h, f_t, f_dt, f_p, wrap as wrap_text
 from lapsecalc.state import dewpoint_of, STANDARD_QNH_HPA, ISA_LAPSE_K_PER_KM, DEFAULT_TOP_M
 
 # A new result key: its label and kind here (LABELS), its place in lapsecalc.groups.
-# Report key -> (label, kind) for text mode. Kinds: z height MSL, a height AGL,
+# Report key -> (label, kind) for text mode. Kinds: z height MSL (ztop: the icing
+# band's top, "unknown" when its basis is air), a height AGL,
 # alt an altitude, zl list of heights, t temperature, dt temperature difference,
 # p pressure, ph pressure always in hPa (aloft, vapour), rho density, pct, gkg, jkg,
-# b yes/no, s word.
+# b yes/no, s word, until the dry-thermal trigger sentence.
 LABELS = {
     "elevation_m": ("elevation", "z"),
     "top_msl_m": ("column top", "z"),
@@ -36,8 +37,6 @@ LABELS = {
     "minus20_levels_msl_m": ("-20C passes", "zl"),
     "warm_layer_aloft": ("warm aloft", "b"),
     "parcel_freezing_level_msl_m": ("parcel 0C", "z"),
-    "icing_band_bottom_msl_m": ("icing from", "z"),
-    "icing_band_top_msl_m": ("icing to", "z"),
     "stability": ("lowest layer", "s"),
     "stability_column": ("whole column", "s"),
     "lfc_msl_m": ("LFC", "z"),
@@ -71,9 +70,10 @@ WORDS = {
     "conditionally_unstable": "cond unstable",
     "absolutely_unstable": "abs unstable",
     "neutral": "neutral",
-    "none": "none (air cannot rise)",
+    "none": "none (stable at ground)",
     "blue": "blue (dry, no cumulus)",
     "cumulus": "cumulus",
+    "capped": "capped layer, not cumulus",
 }
 
 # Said under the parcel results (stability.parcel_analysis integrates the plain
@@ -86,6 +86,7 @@ SECTIONS = (
     ("surface", "obs"),
     ("cloud base", "base"),
     ("freezing and icing", "ice"),
+    ("frost, fog, carb icing", "frost"),
     ("stability", "stab"),
     ("parcel", "parcel"),
     ("thermals", "thermal"),
@@ -97,9 +98,32 @@ _PLAIN = {"rho": "%7.3f kg/m3", "jkg": "%7.0f J/kg", "pct": "%7.0f %%", "gkg": "
           "gmol": "%7.3f g/mol"}
 
 
-def text_lines(s, key, v, label_kind=None):
-    """Text-mode lines of one result key and value for session s (its display units)."""
-    label, kind = label_kind or LABELS.get(key, (key, "?"))  # balloon: balloontext.LABELS
+def text_lines(s, key, v, label_kind=None, rep=None):
+    """Text-mode lines of one result key and value for session s (its display units);
+    rep, when given, is the whole result (some lines depend on another key). The
+    hazard keys' labels and words are in lapsecalc.hazardtext, loaded only for them."""
+    if key == "stability_layers":
+        return layer_lines(s, v)
+    words = WORDS
+    lk = label_kind or LABELS.get(key)  # balloon: balloontext.LABELS
+    if lk is None and key != "cautions":
+        try:
+            from lapsecalc import hazardtext
+        except (ImportError, AttributeError):  # a board has no hazards yet
+            hazardtext = None
+        if hazardtext is not None:
+            if v is None and key in hazardtext.QUIET_WHEN_NONE:
+                return []
+            lk = hazardtext.LABELS.get(key)
+            words = hazardtext.WORDS
+    label, kind = lk or (key, "?")
+    if kind == "until":
+        return [] if v is None else wrap(
+            ["no dry thermals until the surface reaches %s" % f_t(s, v, True)], "-")
+    if kind == "ztop":
+        if v is None and rep is not None and rep.get("icing_band_basis") == "air":
+            return ["%-13s%s" % (label, "   unknown")]
+        kind = "z"
     if key == "stability_layers":
         return layer_lines(s, v)
     if key == "cautions" or kind == "say!":
@@ -130,7 +154,7 @@ def text_lines(s, key, v, label_kind=None):
     elif kind == "b":
         text = "    yes" if v else "     no"
     elif kind == "s":
-        text = " " + WORDS.get(v, str(v))
+        text = " " + words.get(v, WORDS.get(v, str(v)))
     elif kind in _PLAIN:
         text = _PLAIN[kind] % v
     elif kind == "frac":
@@ -185,7 +209,7 @@ def report_text(s, rep, keys):
         out.append("-- " + heading)
         for k in text_keys(word):
             if k in rep and k not in done:
-                out.extend(text_lines(s, k, rep[k]))
+                out.extend(text_lines(s, k, rep[k], rep=rep))
                 done.append(k)
         if word == "parcel":
             out.append(PARCEL_NOTE)
@@ -193,7 +217,7 @@ def report_text(s, rep, keys):
     if rest:
         out.append("-- more")
         for k in rest:
-            out.extend(text_lines(s, k, rep[k]))
+            out.extend(text_lines(s, k, rep[k], rep=rep))
     out.append("-- cautions")
     return out + wrap(rep.get("cautions", ()), "!")
 

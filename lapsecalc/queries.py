@@ -1,5 +1,5 @@
-"""The interpreter's query words (obs base ice da at iso stab parcel thermal report
-chart svg balloon show) and their output in text, kv and json form (runs on
+"""The interpreter's query words (obs base ice frost da at iso stab parcel thermal
+report chart svg balloon show) and their output in text, kv and json form (runs on
 MicroPython)."""
 # Sources: every number comes from the library (Column, Column.report(), parcel,
 #   balloon, chart); this module only picks, orders and formats them.
@@ -45,7 +45,8 @@ def emit(s, keys, values, balloon=False, word=None, rest=True):
     for k in keys:
         if k in heads:
             out.append(heads[k])
-        out.extend(text_lines(s, k, values[k], labels.get(k)))
+        if k in values:   # a board without the hazards module has no hazard keys
+            out.extend(text_lines(s, k, values[k], labels.get(k), values))
     return out
 
 
@@ -53,7 +54,11 @@ def emit(s, keys, values, balloon=False, word=None, rest=True):
 
 def _c_group(s, w, args):
     no_args(w, args)
-    out = emit(s, GROUPS[w], s.report(w), False, w)
+    keys = GROUPS[w]
+    if w == "base" and s.state.get("excess_c"):
+        # The heated thermals' cloud base beside the unheated one.
+        keys = keys + ("thermal_excess_c", "thermal_cloud_base_msl_m")
+    out = emit(s, keys, s.report(w), False, None if keys is not GROUPS[w] else w)
     if w == "base" and s.mode == "text":
         for method, label in (("bolton", "Bolton LCL"), ("spread", "spread rule")):
             out.append("%-13s%s AGL" % (label, f_h(s, s.column().cloud_base(method)[0])))
@@ -303,7 +308,7 @@ def _c_show(s, w, args):
 
 # query word -> f(session, word, args) -> output lines
 QUERIES = {
-    "obs": _c_group, "base": _c_group, "ice": _c_group, "stab": _c_group,
+    "obs": _c_group, "base": _c_group, "ice": _c_group, "frost": _c_group, "stab": _c_group,
     "parcel": _c_group, "thermal": _c_group, "da": _c_at, "at": _c_at, "iso": _c_iso,
     "balloon": _c_balloon, "loads": _c_loads, "sunset": _c_sunset, "report": _c_report,
     "chart": _c_chart, "svg": _c_svg, "show": _c_show,

@@ -13,7 +13,7 @@
 # keys), lapsecalc.output (display units, acks, kv values), lapsecalc.state (state
 # keys, defaults, the Column), lapsecalc.typed (numbers, units, aliases) -> the library.
 from lapsecalc.typed import ALIASES, AMBIGUOUS, shown, starts_number, nearest, is_unit, join_words
-from lapsecalc.state import AIR_KEYS, missing, build_column, dewpoint_of
+from lapsecalc.state import AIR_KEYS, missing, build_column, dewpoint_of, settle
 from lapsecalc.settings import SETTINGS, ONE, NUMBERS, whole
 from lapsecalc.queries import QUERIES
 from lapsecalc.commands import COMMANDS
@@ -28,12 +28,12 @@ _MAX_LINE = const(256)
 MAX_LINE = _MAX_LINE
 PROMPT = "lc> "
 # Modules loaded only for a line's work (help, chart, svg, balloon, metar, demo; the
-# text layout; the parcel and stability code of a report): on a board a Session
-# forgets them after the line, so the heap between lines holds only the dispatch
-# layer and the session's state (measured: bench/mpy_budget.py). A new module that
-# only some lines need goes here.
+# text layout; the parcel, stability and hazards code of a report): on a board a
+# Session forgets them after the line, so the heap between lines holds only the
+# dispatch layer and the session's state (measured: bench/mpy_budget.py). A new module
+# that only some lines need goes here.
 WORD_MODULES = ("helptext", "chart", "balloon", "loadtable", "balloontext", "metar", "demo",
-                "layout", "parcel", "stability")
+                "layout", "parcel", "stability", "hazards", "hazardtext")
 # Every word but the settings: the queries, then the session words.
 _WORDS = dict(QUERIES)
 _WORDS.update(COMMANDS)
@@ -236,6 +236,8 @@ class Session:
         col = self.column(word)
         if self._rep is None:
             self._rep = col.report(self.state.get("excess_c", 0.0))
+            # On a board the report kept is packed low in the heap (state.settle).
+            settle(self._rep)
         return self._rep
 
     def levels(self):

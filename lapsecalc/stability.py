@@ -19,16 +19,16 @@ from lapsecalc import parcel
 NEUTRAL_BAND_K_PER_KM = 0.1
 # Deepest band one stability class speaks for, m (the saturated rate varies with height).
 BAND_M = 2000.0
-_CCL_CAP = 40
-_CCL_TOL_M = 0.5
-
+# The general cautions of every full report (lapsecalc.hazards puts one line per hazard
+# present before them).
 CAUTIONS = (
     "Estimates from one surface observation and an assumed lapse rate, not a sounding.",
     "Real lapse rates change by the hour and by the place; recheck before each flight.",
     "Not an official forecast or briefing: use the official forecasts and briefings.",
     "Follow the flight manual, local regulations and licensed practice.",
 )
-
+_CCL_CAP = 40
+_CCL_TOL_M = 0.5
 
 def classify(lapse_k_per_km, saturated_k_per_km):
     """Stability class of a layer with the given ELR against the dry rate and the
@@ -195,8 +195,9 @@ def ccl(col, levels):
     return None
 
 
-def _illinois(f, a, fa, b, fb):
-    # Root of f in [a, b] with fa > 0 >= fb: Illinois steps, at most 40, to 0.5 m.
+def _illinois(f, a, fa, b, fb, what="the convective condensation level"):
+    # Root of f in [a, b] with fa > 0 >= fb: Illinois steps, at most 40, to 0.5 m;
+    # what names the height in the error when it does not converge.
     side = 0
     for _ in range(_CCL_CAP):
         c = (a * fb - b * fa) / (fb - fa)
@@ -213,25 +214,12 @@ def _illinois(f, a, fa, b, fb):
             side = -1
         if b - a < _CCL_TOL_M or fc == 0.0:
             return c
-    raise ValueError("the convective condensation level did not converge")
-
-
-def icing_band(col, levels, lcl_msl_m, cloud_top_msl_m, z0):
-    """(bottom, top) in m MSL of the in-cloud layer where the parcel (cloud)
-    temperature is between 0 and -20 degC, cloud between the LCL and cloud_top_msl_m;
-    z0 is the parcel's freezing level (parcel.level). None when there is no such layer."""
-    if cloud_top_msl_m is None or lcl_msl_m >= cloud_top_msl_m:
-        return None
-    z20 = parcel.level(col, levels, -20.0, lcl_msl_m)
-    bottom = lcl_msl_m if z0 is None or z0 < lcl_msl_m else z0
-    top = cloud_top_msl_m if z20 is None or z20 > cloud_top_msl_m else z20
-    if z0 is None or bottom >= top:
-        return None
-    return bottom, top
+    raise ValueError("%s did not converge" % what)
 
 
 def add_to_report(col, levels, r, excess_c=0.0):
-    """Add the stability, parcel, thermal, icing and caution keys to report dict r."""
+    """Add the stability, parcel and thermal keys to report dict r (lapsecalc.hazards
+    adds the thermals' cloud base, usable top and capped decks)."""
     lcl = r["cloud_base_msl_m"]
     per_layer = layers(col)
     r["stability"] = per_layer[0]["class"]
@@ -262,11 +250,3 @@ def add_to_report(col, levels, r, excess_c=0.0):
     r["ccl_msl_m"] = z_ccl
     r["trigger_t_c"] = None if z_ccl is None else \
         (col.t_at(z_ccl) + T0_K) * exp(KAPPA * log(col.p_hpa / col.p_at(z_ccl))) - T0_K
-    cloud_top = None
-    if pa["lfc_msl_m"] is not None:
-        cloud_top = col.top_m if pa["el_above_top"] else pa["el_msl_m"]
-    band = None if lcl is None else \
-        icing_band(col, levels, lcl, cloud_top, r["parcel_freezing_level_msl_m"])
-    r["icing_band_bottom_msl_m"] = None if band is None else band[0]
-    r["icing_band_top_msl_m"] = None if band is None else band[1]
-    r["cautions"] = CAUTIONS

@@ -63,3 +63,20 @@ def assumed(st, balloon=False):
     if balloon and "gas" in st and "purity" not in st:
         out.append("gas purity 100 % (pure not set)")
     return out
+
+
+def settle(rep):
+    """On MicroPython, move the numbers of a result kept for the session (a report)
+    out of the heap the computation left full of holes: after a collection each float
+    is boxed afresh, so it lands in the lowest free space, and its old place joins a
+    larger hole (a board's heap is never compacted; a long JSON line needs one piece
+    of a few KB). Nothing on CPython."""
+    import sys
+    if sys.implementation.name != "micropython":
+        return
+    import gc
+    gc.collect()
+    for k in rep:
+        v = rep[k]
+        if isinstance(v, float):
+            rep[k] = v + 0.0

@@ -58,9 +58,13 @@ def test_markers_at_the_right_rows():
     # Cloud base by the spread rule, about 125 m per degC (common practice): 10 degC
     # spread, about 1250 m, band 3 (1125..1500 m), row 12. Its row is shaded "-".
     assert "B" in _margin(rows[12]) and "-" in rows[12].split("|")[1]
-    # A stable ISA column: no LFC, so no cloud top and no icing band, no icing margin.
-    assert rep["icing_band_bottom_msl_m"] is None
-    assert not any(_margin(r).startswith(":") for r in rows)
+    # A stable ISA column: no LFC, so the cloud top is unknown; the icing band (basis
+    # "air") starts at the 0 degC level, above the cloud base, and is drawn up to the
+    # air's -20 degC level, 35 / 6.5 km = 5384.6 m (ISA, ICAO Doc 7488/3): bands 6..14
+    # from the bottom, rows 1..9 from the top.
+    assert rep["icing_band_basis"] == "air" and rep["icing_band_top_msl_m"] is None
+    assert abs(rep["icing_band_bottom_msl_m"] - 15.0 / 6.5e-3) < 0.01
+    assert [r for r in range(chart.ROWS) if _margin(rows[r]).startswith(":")] == list(range(1, 10))
     # The 0-degree isotherm column "." meets the environment in the F row.
     dots = [r.split("|")[1].find(".") for r in rows if "." in r.split("|")[1]]
     x0 = dots[0]

@@ -28,6 +28,8 @@ SHOTS = os.path.join(ROOT, "test-output", "page")
 sys.path.insert(0, HERE)
 sys.path.insert(0, os.path.join(ROOT, "bench"))
 import browser  # noqa: E402  (tests/browser.py)
+sys.path.insert(0, os.path.join(HERE, "mpy"))
+import boardset  # noqa: E402  (tests/mpy/boardset.py)
 import page_budget  # noqa: E402  (bench/page_budget.py)
 
 CI = os.environ.get("CI") == "true"
@@ -68,11 +70,16 @@ SESSIONS = (
 
 
 def expected(lines):
-    """CPython's transcript: the prompt and line, then Session().feed's lines."""
-    s = Session()
-    out = []
-    for line in lines:
-        out.append([PROMPT + line] + s.feed(line))
+    """CPython's transcript: the prompt and line, then Session().feed's lines, with the
+    board's modules only (boardset.hide_later)."""
+    undo = boardset.hide_later()
+    try:
+        s = Session()
+        out = []
+        for line in lines:
+            out.append([PROMPT + line] + s.feed(line))
+    finally:
+        undo()
     return out, s
 
 

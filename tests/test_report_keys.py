@@ -162,7 +162,8 @@ def test_environment_levels(main):
 
 
 @covers("parcel_freezing_level_msl_m", "lfc_msl_m", "el_msl_m", "el_above_top", "cape_j_kg",
-           "cin_j_kg", "lifted_index_c", "icing_band_bottom_msl_m", "icing_band_top_msl_m")
+           "cin_j_kg", "lifted_index_c", "icing_band_bottom_msl_m", "icing_band_top_msl_m",
+           "icing_band_basis")
 def test_parcel_levels(main):
     col, r, prof = main
     # Fine-step parcel (refs.fine_parcel): 0 and -20 degC of the parcel, in cloud
@@ -176,8 +177,15 @@ def test_parcel_levels(main):
     assert -(15.0 + 0.015 * cape) <= r["cape_j_kg"] - cape <= 1.0
     assert abs(r["cin_j_kg"] - cin) <= 4.0 + 0.01 * abs(cin)
     assert r["cloud_base_msl_m"] < z0 < z20 < el          # premise: the whole band in cloud
-    assert abs(r["icing_band_bottom_msl_m"] - z0) < 5.0
+    # The conservative band (common practice 0..-20 degC in cloud; cloud air mixes the
+    # parcel's with the air's): from the lower of the air's 0 degC level (closed form)
+    # and the parcel's, to the higher of the two -20 degC levels, inside the cloud.
+    za0 = bisect(lambda z: -_env_t(MAIN, z), MAIN[3], MAIN[5])
+    za20 = bisect(lambda z: -_env_t(MAIN, z) - 20.0, MAIN[3], MAIN[5])
+    assert za0 < z0 and za20 < z20                       # premise: the parcel is warmer
+    assert abs(r["icing_band_bottom_msl_m"] - za0) < 0.5
     assert abs(r["icing_band_top_msl_m"] - z20) < 5.0
+    assert r["icing_band_basis"] == "parcel"
     # LI = Te - Tp at 500 hPa (REFERENCES.md), 500 hPa found by bisection on the
     # closed-form pressure.
     z500 = bisect(lambda z: 500.0 - _env_p(MAIN, z), MAIN[3], MAIN[5])
@@ -214,6 +222,70 @@ def test_thermals_and_ccl(main):
     assert abs(r["ccl_msl_m"] - z_ccl) < 1.0
     trig = (_env_t(MAIN, z_ccl) + 273.15) * (p / _env_p(MAIN, z_ccl)) ** KAPPA - 273.15
     assert abs(r["trigger_t_c"] - trig) < 0.02
+
+
+@covers("thermal_cloud_base_msl_m", "thermal_usable_top_msl_m", "dry_thermals_from_t_c",
+        "capped_cloud_top_msl_m")
+def test_thermal_base_and_usable_top(main):
+    _, r, _ = main
+    t, td, p, elev, _, _, excess = MAIN
+    # The heated thermals' cloud base: Romps (2017) LCL of air at t + excess (refs.py).
+    rh = romps_pvstar_pa(td + 273.15) / romps_pvstar_pa(t + excess + 273.15)
+    base = elev + romps_lcl_m(t + excess + 273.15, rh, 100.0 * p)
+    assert abs(r["thermal_cloud_base_msl_m"] - base) < 2.0 + 0.002 * (base - elev)
+    # Usable: the lower of the dry-thermal top and that base (blue: the dry top).
+    assert r["thermal_usable_top_msl_m"] == min(r["thermal_top_msl_m"],
+                                                r["thermal_cloud_base_msl_m"])
+    # Thermals rise (no trigger sentence); no inversion anywhere (no capped deck).
+    assert r["dry_thermals_from_t_c"] is None and r["capped_cloud_top_msl_m"] is None
+
+
+@covers("warm_layer_bottom_msl_m", "warm_layer_top_msl_m", "warm_layer_max_t_c",
+        "cold_layer_below_depth_m", "precip_type", "wet_bulb_zero_msl_m")
+def test_precipitation_keys(main):
+    col, r, _ = main
+    t, td, p, elev, _, top, _ = MAIN
+    # Cools all the way up (slow scan): no warm layer aloft.
+    assert _warm_over_cold_by_scan(MAIN) is False
+    for k in ("warm_layer_bottom_msl_m", "warm_layer_top_msl_m", "warm_layer_max_t_c",
+              "cold_layer_below_depth_m"):
+        assert r[k] is None
+    # Melting area at the ground, g * integral (T - T0)/T dz up to 0 degC (Bourgouin
+    # 2000; midpoint sum): past his 13.2 J/kg (from memory), rain.
+    za0 = bisect(lambda z: -_env_t(MAIN, z), elev, top)
+    n = 2000
+    melt = sum(G0 * (1 - 273.15 / (_env_t(MAIN, elev + (i + 0.5) * (za0 - elev) / n) + 273.15))
+               * (za0 - elev) / n for i in range(n))
+    assert melt > 13.2 and r["precip_type"] == "rain"
+    # Wet-bulb zero: the wet bulb (ASHRAE eq. 33) of the air with the surface mixing
+    # ratio (AE96), capped at saturation, scanned every 10 m, then bisected.
+    w = EPS * ae_es_hpa(td) / (p - ae_es_hpa(td))
+
+    def tw(z):
+        pz, tz = _env_p(MAIN, z), _env_t(MAIN, z)
+        e = min(w * pz / (EPS + w), ae_es_hpa(tz))
+        return wet_bulb(tz, bisect(lambda x: ae_es_hpa(x) - e, -90.0, tz), pz)
+    z = elev
+    while tw(z + 10.0) > 0.0:
+        z += 10.0
+    zw = bisect(lambda zz: -tw(zz), z, z + 10.0)
+    assert abs(r["wet_bulb_zero_msl_m"] - zw) < 2.0
+
+
+@covers("frost_point_c", "rh_ice_pct", "fog_risk", "ice_fog_risk", "carb_icing")
+def test_field_hazards(main):
+    _, r, _ = main
+    t, td = MAIN[:2]
+    # Above 0 degC there is no frost point and no humidity over ice.
+    assert r["frost_point_c"] is None and r["rh_ice_pct"] is None
+    assert r["ice_fog_risk"] is False
+    # Spread 11 K: past the 3 K of fog risk (common practice).
+    assert r["fog_risk"] is False
+    # RH by Hyland-Wexler (ASHRAE) about 51 %, 26 degC: the band "serious icing at
+    # descent power" of the CAA Safety Sense Leaflet 14 chart (edges from memory: 50 %
+    # up to 35 degC), our name "glide".
+    rh = 100.0 * hyland_wexler_water_hpa(td) / hyland_wexler_water_hpa(t)
+    assert 50.0 < rh < 60.0 and r["carb_icing"] == "glide"
 
 
 @covers("stability", "stability_layers", "stability_column")
@@ -334,30 +406,59 @@ ICING = {
               0.0), "zero", "minus20"),
     "warm_cloud": ((28.0, 24.0, 1000.0, 0.0, [(1500.0, 7.5), (2000.0, -20.0), (None, 4.0)],
                     8000.0, 0.0), None, None),
+    "shallow_cumulus": ((28.0, 24.0, 1000.0, 0.0, [(1500.0, 7.5), (2000.0, -20.0), (None, 5.0)],
+                         8000.0, 0.0), "air", None),
 }
+
+
+def _air_level(spec, t_c):
+    # Lowest height where the air (closed form per layer) is at t_c, by a 10 m scan and
+    # bisection; the elevation when the surface already is, None above the top.
+    z, top = spec[3], spec[5]
+    if _env_t(spec, z) <= t_c:
+        return z
+    while _env_t(spec, min(z + 10.0, top)) > t_c:
+        z += 10.0
+        if z >= top:
+            return None
+    return bisect(lambda x: t_c - _env_t(spec, x), z, min(z + 10.0, top))
 
 
 @pytest.mark.parametrize("name", sorted(ICING))
 def test_icing_band_edges(name):
-    # In cloud (LCL up to the EL, or the column top when the EL is above it) where the
-    # parcel is between 0 and -20 degC (common practice): the parcel's levels from the
-    # fine-step reference (refs.fine_parcel), the EL from the fine reference integration.
+    # In cloud at 0 to -20 degC (common practice), conservative: a convective cloud (an
+    # LFC; up to the EL, or the column top when the EL is above it) mixes the parcel's
+    # air with the air's, so the band runs from the lower of the two 0 degC levels to
+    # the higher of the two -20 degC levels, never below the cloud base. The parcel's
+    # levels from the fine-step reference (refs.fine_parcel), the EL from the fine
+    # reference integration, the air's in closed form. A cloud topped below freezing
+    # leaves the humidity aloft unknown: the band starts at the air's 0 degC level (or
+    # the base) and its top is unknown.
     spec, bottom, top = ICING[name]
     col = _col(spec)
     r = col.report()
     lcl = spec[3] + r["cloud_base_agl_m"]
     prof = fine_parcel(col, lcl)
-    z0 = first_crossing(prof, lambda row: row[1]) if prof[0][1] > 0.0 else spec[3]
-    z20 = first_crossing(prof, lambda row: row[1] + 20.0)
+    zp0 = first_crossing(prof, lambda row: row[1]) if prof[0][1] > 0.0 else spec[3]
+    zp20 = first_crossing(prof, lambda row: row[1] + 20.0)
+    za0, za20 = _air_level(spec, 0.0), _air_level(spec, -20.0)
     lfc, el, _, _ = reference_parcel(col)
     cloud_top = col.top_m if el is None else el
     if bottom is None:
-        assert cloud_top < z0                              # the cloud never freezes
-        assert r["icing_band_bottom_msl_m"] is None and r["icing_band_top_msl_m"] is None
+        assert za0 is None                                 # the air never freezes
+        assert r["icing_band_bottom_msl_m"] is None and r["icing_band_basis"] is None
         return
+    if bottom == "air":
+        assert cloud_top < za0 and (zp0 is None or cloud_top < zp0)   # never freezes
+        assert r["icing_band_basis"] == "air" and r["icing_band_top_msl_m"] is None
+        assert abs(r["icing_band_bottom_msl_m"] - max(lcl, za0)) < 1.0
+        return
+    z0 = min(za0, zp0)
+    z20 = None if zp20 is None or za20 is None else max(za20, zp20)
     want_bottom = {"lcl": lcl, "zero": z0}[bottom]
     want_top = {"minus20": z20, "top": col.top_m}[top]
     assert max(lcl, z0) == pytest.approx(want_bottom)
+    assert r["icing_band_basis"] == "parcel"
     assert abs(r["icing_band_bottom_msl_m"] - want_bottom) < 5.0
     assert abs(r["icing_band_top_msl_m"] - want_top) < 5.0
 

@@ -379,7 +379,13 @@ def test_queries_text():
                  L("warm aloft", "     no"),
                  L("parcel 0C", H(r["parcel_freezing_level_msl_m"])),
                  L("icing from", H(r["icing_band_bottom_msl_m"])),
-                 L("icing to", H(r["icing_band_top_msl_m"]))]),
+                 L("icing to", H(r["icing_band_top_msl_m"])),
+                 L("icing basis", " parcel and air"), L("precip type", " rain"),
+                 L("wet bulb 0C", H(r["wet_bulb_zero_msl_m"]))]),
+        # 27 degC, dewpoint 13 degC: RH 42 %, the light band of the carburettor icing
+        # chart (CAA Safety Sense Leaflet 14, edges from memory); spread 14 K, no fog.
+        ("frost", [L("temp", T(27.0)), L("dewpoint", T(13.0)), L("fog risk", "     no"),
+                   L("ice fog risk", "     no"), L("carb icing", " light")]),
         ("da", [L("elevation", H(r["elevation_m"])),
                 L("station p", P(r["station_pressure_hpa"])), L("QNH", P(1016.0)),
                 L("press alt", H(r["pressure_altitude_m"])),
@@ -404,15 +410,29 @@ def test_queries_text():
                     # CAPE and CIN integrate plain temperatures (stability.parcel_analysis).
                     "CAPE/CIN use air temps (not virtual)"]),
         ("thermal", [L("excess", "   +0.0 K"), L("thermal top", H(r["thermal_top_msl_m"])),
-                     L("thermals", " none (air cannot rise)"), L("CCL", H(r["ccl_msl_m"])),
-                     L("trigger temp", T(r["trigger_t_c"]))]),
+                     L("thermal base", H(r["cloud_base_msl_m"])),
+                     L("usable top", "   none in column"),
+                     L("thermals", " none (stable at ground)"),
+                     "- no dry thermals until the surface",
+                     "  reaches %.1f C" % r["trigger_t_c"],
+                     L("CCL", H(r["ccl_msl_m"])), L("trigger temp", T(r["trigger_t_c"]))]),
     ])
     r2 = demo_report(2.0)
     run(s, [
         ("excess 2K", ["ok: excess 2 K"]),
         ("therm", [L("excess", "   +2.0 K"), L("thermal top", H(r2["thermal_top_msl_m"])),
+                   L("thermal base", H(r2["thermal_cloud_base_msl_m"])),
+                   # blue thermals: the usable top is the dry top, under their base
+                   L("usable top", H(r2["thermal_top_msl_m"])),
                    L("thermals", " blue (dry, no cumulus)"), L("CCL", H(r2["ccl_msl_m"])),
                    L("trigger temp", T(r2["trigger_t_c"]))]),
+        # With an excess set, base shows the heated thermals' cloud base beside the
+        # unheated one: the LCL of 29 degC air with dewpoint 13 degC.
+        ("base", [L("base AGL", H(r["cloud_base_agl_m"])),
+                  L("base MSL", H(r["cloud_base_msl_m"])), L("LCL temp", T(r["lcl_t_c"])),
+                  L("LCL press", P(r["lcl_p_hpa"])), L("excess", "   +2.0 K"),
+                  L("thermal base", H(411.48 + cloud_base(29.0, 13.0, col.p_hpa)[0])),
+                  L("Bolton LCL", H(bolton) + " AGL"), L("spread rule", H(1750.0) + " AGL")]),
     ])
 
 
@@ -512,8 +532,9 @@ def test_report_text_has_everything_and_the_cautions():
     r = demo_report()
     got = s.feed("report")
     heads = [line for line in got if line.startswith("-- ")]
-    assert heads == ["-- surface", "-- cloud base", "-- freezing and icing", "-- stability",
-                     "-- parcel", "-- thermals", "-- cautions"]
+    assert heads == ["-- surface", "-- cloud base", "-- freezing and icing",
+                     "-- frost, fog, carb icing", "-- stability", "-- parcel", "-- thermals",
+                     "-- cautions"]
     for key, label in (("cloud_base_msl_m", "base MSL"), ("el_msl_m", "EL"),
                        ("ccl_msl_m", "CCL"), ("density_altitude_m", "DA"),
                        ("icing_band_top_msl_m", "icing to")):
@@ -612,13 +633,18 @@ def test_queries_kv():
         "ice": ("freezing_level_msl_m", "freezing_levels_msl_m", "minus10_level_msl_m",
                 "minus10_levels_msl_m", "minus20_level_msl_m", "minus20_levels_msl_m",
                 "warm_layer_aloft", "parcel_freezing_level_msl_m",
-                "icing_band_bottom_msl_m", "icing_band_top_msl_m"),
+                "icing_band_bottom_msl_m", "icing_band_top_msl_m", "icing_band_basis",
+                "warm_layer_bottom_msl_m", "warm_layer_top_msl_m", "warm_layer_max_t_c",
+                "cold_layer_below_depth_m", "precip_type", "wet_bulb_zero_msl_m"),
+        "frost": ("t_c", "td_c", "frost_point_c", "rh_ice_pct", "fog_risk", "ice_fog_risk",
+                  "carb_icing"),
         "da": ("elevation_m", "station_pressure_hpa", "qnh_hpa", "pressure_altitude_m",
                "air_density_kg_m3", "density_altitude_m"),
         "parcel": ("lfc_msl_m", "el_msl_m", "el_above_top", "cape_j_kg", "cin_j_kg",
                    "lifted_index_c", "parcel_freezing_level_msl_m"),
-        "thermal": ("thermal_excess_c", "thermal_top_msl_m", "thermal_kind", "ccl_msl_m",
-                    "trigger_t_c"),
+        "thermal": ("thermal_excess_c", "thermal_top_msl_m", "thermal_cloud_base_msl_m",
+                    "thermal_usable_top_msl_m", "thermal_kind", "capped_cloud_top_msl_m",
+                    "dry_thermals_from_t_c", "ccl_msl_m", "trigger_t_c"),
     }
     run(s, [(word, [KV(k, r[k]) for k in keys]) for word, keys in groups.items()])
     layers = ";".join("%s:%s:%s:%s:%s" % (
@@ -1175,3 +1201,33 @@ def test_machine_numbers_carry_no_float_noise():
         assert key in got["defaults"]
     s.feed("out kv")
     assert "station_pressure_hpa=1009" in s.feed("show")
+
+
+def test_ice_and_frost_words_in_a_freezing_rain_setup():
+    # Invented: surface -2.8 degC (27 degF) under a warm nose (+16 K/km inversion to
+    # 500 m AGL), then 6.5 K/km: freezing rain by Bourgouin's area rule (from memory).
+    s = Session()
+    for line in ("elev 300ft qnh 1013", "temp 27F dew 25F", "elr -16@500m 6.5"):
+        assert s.feed(line)[0].startswith("ok")
+    col = Column.from_qnh(-25.0 / 9.0, -35.0 / 9.0, 1013.0, 91.44, [(500.0, -16.0), (None, 6.5)])
+    r = col.report()
+    got = s.feed("ice")
+    for want in (L("icing from", H(r["cloud_base_msl_m"])), L("icing to", "   unknown"),
+                 L("icing basis", " air (cloud top unknown)"),
+                 L("warm layer", H(r["warm_layer_bottom_msl_m"])),
+                 L("warm to", H(r["warm_layer_top_msl_m"])),
+                 L("warm max", T(r["warm_layer_max_t_c"])),
+                 L("precip type", " freezing rain")):
+        assert want in got, want
+    got = s.feed("frost")
+    assert L("frost point", T(r["frost_point_c"])) in got
+    assert L("RH over ice", "%7.0f %%" % r["rh_ice_pct"]) in got
+    assert L("fog risk", "    yes") in got
+    rep = s.feed("report")
+    body = " ".join(line.strip("! ") for line in rep[rep.index("-- cautions") + 1:])
+    assert "Warm layer" in body and "freezing rain" in body and "Icing likely in cloud" in body
+    assert all(len(line) <= 40 for line in rep)
+    # The help explains the two 0 degC levels and which the band uses.
+    h = " ".join(s.feed("help ice"))
+    assert "air's" in h and "parcel" in h and "lower 0C level" in h
+    assert all(len(line) <= 40 for line in s.feed("help ice") + s.feed("help frost"))

@@ -105,7 +105,10 @@ def test_ice_and_iso():
     z_l = romps_lcl_agl(15.0, 5.0, 1013.25)
     prof = fine_parcel(_IsaColumn(), z_l)
     assert abs(v["parcel_freezing_level_msl_m"] - first_crossing(prof, lambda r: r[1])) < 5.0
-    assert v["icing_band_bottom_msl_m"] == "" and v["icing_band_top_msl_m"] == ""  # no LFC
+    # No LFC: the cloud top is unknown, so the band (basis air) starts at the air's
+    # 0 degC level, above the cloud base, and its top is unknown (empty value).
+    assert abs(v["icing_band_bottom_msl_m"] - 15.0 / 6.5 * 1000.0) < 0.01
+    assert v["icing_band_top_msl_m"] == "" and v["icing_band_basis"] == "air"
     v = kv(s, "iso -15C")
     assert abs(v["iso_level_msl_m"] - 30.0 / 6.5 * 1000.0) < 0.01
 
@@ -266,9 +269,24 @@ def test_sunset_superheat_lift():
     assert abs(v["gas_volume_at_z_m3"] - 500.0 * 298.15 / 288.15) < 0.001
 
 
+def test_frost():
+    # -10 degC, dewpoint -12 degC: the frost point where Hyland-Wexler over ice reaches
+    # Hyland-Wexler over water at the dewpoint (ASHRAE Fundamentals ch. 1; refs.py),
+    # RH over ice their ratio; spread 2 K: fog risk (3 K or less, common practice).
+    from refs import hyland_wexler_ice_hpa
+    s = session("temp -10 dew -12 elev 0 qnh 1013.25")
+    v = kv(s, "frost")
+    e = hyland_wexler_water_hpa(-12.0)
+    fp = bisect(lambda t: hyland_wexler_ice_hpa(t) - e, -40.0, 0.0)
+    assert abs(v["frost_point_c"] - fp) < 0.1
+    assert abs(v["rh_ice_pct"] - 100.0 * e / hyland_wexler_ice_hpa(-10.0)) < 0.5
+    assert v["fog_risk"] == 1.0 and v["ice_fog_risk"] == 0.0
+
+
 # Query words with a session above checked against an outside value (issue: at least
 # one per word). A new query word fails the test below until it has one here.
-CHECKED_WORDS = {"obs", "da", "base", "ice", "iso", "at", "stab", "thermal", "parcel", "report",
+CHECKED_WORDS = {"obs", "da", "base", "ice", "frost", "iso", "at", "stab", "thermal", "parcel",
+                 "report",
                  "show", "balloon", "chart", "svg", "loads", "sunset"}
 
 

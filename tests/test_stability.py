@@ -1,4 +1,4 @@
-"""Stability classes, the surface parcel (LFC, EL, CAPE, CIN, LI), thermals, CCL, icing."""
+"""Stability classes, the surface parcel (LFC, EL, CAPE, CIN, LI), thermals, CCL."""
 import math
 
 import pytest
@@ -187,13 +187,6 @@ def test_ccl_and_trigger():
     assert abs(mixing_ratio(col.t_at(z), col.p_at(z)) - mixing_ratio(12.0, 1000.0)) < 0.02
     t_trig = (col.t_at(z) + 273.15) * (1000.0 / col.p_at(z)) ** (RD / CP) - 273.15
     assert abs(r["trigger_t_c"] - t_trig) < 0.01 and r["trigger_t_c"] > 22.0
-
-
-def test_icing_band():
-    r = Column(*CASES["unstable_day"][:5], top_m=CASES["unstable_day"][5]).report()
-    assert r["icing_band_bottom_msl_m"] == pytest.approx(r["parcel_freezing_level_msl_m"])
-    assert r["icing_band_bottom_msl_m"] < r["icing_band_top_msl_m"] <= (r["el_msl_m"] or r["top_msl_m"])
-    assert Column(*CASES["stable"][:5], top_m=12000.0).report()["icing_band_top_msl_m"] is None
 
 
 def test_cautions_travel_with_report():

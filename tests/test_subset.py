@@ -62,7 +62,7 @@ MISSING_METHODS = (
 # f"{x=}" (self-documenting expression): an "=" closing the expression.
 _FSTRING_EQ = re.compile(r"(?<![=!<>])=\s*(?:![rsa])?\s*(?::[^{}]*)?\}")
 
-BOARD = boardset.board_modules()
+BOARD = boardset.board_modules() + list(boardset.BOARD_LATER)
 
 
 def _source(module):

@@ -40,12 +40,17 @@ def micropython_command(given=None):
 
 
 def stage():
-    """A temporary folder with lapsecalc/*.mpy (the board modules) and the scripts."""
+    """A temporary folder with lapsecalc/*.mpy (the board modules), core/lapsecalc/*.mpy
+    (the core alone, package.json: what the report script measures) and the scripts."""
     tmp = tempfile.mkdtemp(prefix="lapsecalc-hardlimit-")
     pkg = os.path.join(tmp, "lapsecalc")
     os.mkdir(pkg)
     names = [m + ".py" for m in boardset.board_modules()]
     compile_mpy.compile_all(boardset.PKG, pkg, names)
+    core = os.path.join(tmp, "core", "lapsecalc")
+    os.makedirs(core)
+    for m in boardset.core_modules():
+        shutil.copy(os.path.join(pkg, m + ".mpy"), os.path.join(core, m + ".mpy"))
     for n in list(SCRIPTS.values()) + ["board_session.txt"]:
         shutil.copy(os.path.join(HERE, n), os.path.join(tmp, n))
     return tmp
@@ -53,7 +58,8 @@ def stage():
 
 def run(mp, folder, what, heap_kib):
     """(ok, last output lines) of SCRIPTS[what] under a heap of heap_kib KiB."""
-    cmd = [mp, "-X", "heapsize=%dK" % heap_kib, SCRIPTS[what], folder]
+    pkg_parent = os.path.join(folder, "core") if what == "report" else folder
+    cmd = [mp, "-X", "heapsize=%dK" % heap_kib, SCRIPTS[what], pkg_parent]
     proc = subprocess.run(cmd, cwd=folder, stdout=subprocess.PIPE, stderr=subprocess.STDOUT,
                           universal_newlines=True, timeout=_TIMEOUT_S)
     tail = "\n".join(proc.stdout.strip().splitlines()[-3:])

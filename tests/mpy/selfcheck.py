@@ -13,6 +13,17 @@ from lapsecalc.column import Column
 
 _PKG_DIR = lapsecalc.__file__.replace("\\", "/").rsplit("/", 1)[0]
 _FILES = os.listdir(_PKG_DIR)
+if "package-full.json" in _FILES:
+    # CPython on the sources: hide the modules the board set does not have yet
+    # (boardset.BOARD_LATER), so that both ports run the same set.
+    import json
+    import sys
+    with open(_PKG_DIR + "/package-full.json") as _f:
+        _BOARD = [t.rsplit("/", 1)[1] for t, _ in json.load(_f)["urls"]]
+    for _n in list(_FILES):
+        if _n.endswith(".py") and _n not in _BOARD and _n[:-3] not in ("cli", "__main__", "page"):
+            sys.modules["lapsecalc." + _n[:-3]] = None
+            _FILES.remove(_n)
 COUNT = [0]
 
 
@@ -222,6 +233,36 @@ def check_column():
     refused("column.warm", Column, 40.0, 10.0, 1000.0, 100.0, -30.0)
 
 
+def check_hazards():
+    if not has("hazards"):
+        print("# hazards.py absent: skipped")
+        return
+    from lapsecalc import hazards
+    # Frost point: dewpoint -10 degC -> -8.90 degC (REFERENCES.md "Frost point",
+    # Hyland-Wexler via ASHRAE, computed); RH over ice 100 % there.
+    fp = hazards.frost_point(-10.0)
+    assert near(fp, -8.90, 0.1)
+    assert near(hazards.relative_humidity_ice(fp, -10.0), 100.0, 1e-3)
+    put("hazards.frost", (fp, hazards.frost_point(-45.0), hazards.frost_point(0.0)))
+    put("hazards.rh_ice", (hazards.relative_humidity_ice(-20.0, -20.0),
+                           hazards.relative_humidity_ice(-5.0, -12.0)))
+    # Invented warm nose over a shallow cold layer: freezing rain (Bourgouin's rule).
+    fz = Column(-3.0, -4.0, 1000.0, 100.0, [(500.0, -16.0), (None, 6.5)], 10000.0)
+    assert hazards.precip_type(fz) == "glaze"
+    put("hazards.warm", hazards.warm_layer(fz))
+    put("hazards.report_fz", fz.report())
+    pel = Column(-12.0, -13.0, 1000.0, 0.0, [(2500.0, -6.0), (None, 6.5)], 10000.0)
+    put("hazards.pellets", hazards.precip_type(pel))
+    dry = Column(8.0, -6.0, 1000.0, 200.0, 6.5, 10000.0)
+    put("hazards.wbz", hazards.wet_bulb_zero(dry))
+    for t, td in ((12.0, 10.0), (25.0, 15.0), (33.0, 20.0), (37.0, 14.0), (40.0, 30.0)):
+        put("hazards.carb_%d_%d" % (t, td), hazards.carb_icing(t, td))
+    put("hazards.fog", (hazards.fog_risk(10.0, 7.0), hazards.fog_risk(10.0, 6.0)))
+    capped = Column(10.0, 9.0, 1000.0, 0.0, [(600.0, 9.77), (900.0, -5.0), (None, 6.5)])
+    put("hazards.capped", capped.report(1.0))
+    refused("hazards.frost_warm", hazards.frost_point, 2.0)
+
+
 def check_station():
     if not has("station"):
         print("# station.py absent: skipped")
@@ -293,6 +334,7 @@ def main():
     check_units()
     check_limits()
     check_column()
+    check_hazards()
     check_station()
     check_balloon()
     check_shell()

@@ -1,0 +1,329 @@
+"""Hazards: icing band, freezing rain and ice pellets, wet-bulb zero, frost point and
+RH over ice, fog, carburettor icing, thermal cloud base and the thermal wording.
+Every profile here is invented."""
+import math
+
+import pytest
+from hypothesis import assume, given, strategies as st
+
+import refs
+from lapsecalc import Column, cloud_base, dewpoint, wet_bulb
+from lapsecalc import hazards
+from lapsecalc.hazards import carb_icing, fog_risk, precip_type, warm_layer, wet_bulb_zero
+from lapsecalc.moisture import _dewpoint_from_e
+from lapsecalc.hazards import frost_point, relative_humidity_ice
+
+G0 = 9.80665   # ICAO Doc 7488/3
+
+
+# ---- frost point and RH over ice ----
+
+# REFERENCES.md "Frost point" (Hyland-Wexler over water and ice, ASHRAE Fundamentals
+# ch. 1; computed): dewpoint -> frost point, degC.
+FROST_TABLE = ((-5.0, -4.43), (-10.0, -8.90), (-20.0, -17.94), (-30.0, -27.13),
+               (-40.0, -36.46))
+
+
+@pytest.mark.parametrize("td, want", FROST_TABLE)
+def test_frost_point_table(td, want):
+    # Within 0.1 K of Hyland-Wexler (issue requirement); the table has two decimals.
+    assert abs(frost_point(td) - want) < 0.1 - 0.005
+
+
+def test_frost_point_against_hyland_wexler_minus60_to_0():
+    # Hyland-Wexler over water gives the dewpoint's vapour pressure; the frost point is
+    # where Hyland-Wexler over ice reaches it (ASHRAE Fundamentals ch. 1, tests/refs.py).
+    for i in range(0, 66):
+        td = -0.99 * i
+        e = refs.hyland_wexler_water_hpa(td)
+        want = refs.bisect(lambda t: refs.hyland_wexler_ice_hpa(t) - e, -90.0, 0.0)
+        if want < -60.0:
+            break
+        assert abs(frost_point(td) - want) < 0.1, td
+    # The frost point lies between the dewpoint and 0 degC (ice holds its vapour
+    # tighter than water below 0 degC; any textbook).
+    assert -10.0 < frost_point(-10.0) < 0.0 and frost_point(0.0) == 0.0
+
+
+def test_rh_over_ice_is_100_at_the_frost_point():
+    # 100 % where the dewpoint's vapour pressure equals the ice saturation pressure.
+    for td in (-1.0, -7.5, -15.0, -33.0, -55.0):
+        assert abs(relative_humidity_ice(frost_point(td), td) - 100.0) < 1e-6
+    # REFERENCES.md "Frost point": dewpoint -10 degC, frost point -8.90 degC (two
+    # decimals: 0.005 K is 0.05 % of RH).
+    assert abs(relative_humidity_ice(-8.90, -10.0) - 100.0) < 0.3
+    # Saturated over water below 0 degC is supersaturated over ice: at -20 degC by the
+    # ratio of the Hyland-Wexler pressures 1.2563 / 1.0326 hPa (REFERENCES.md).
+    assert abs(relative_humidity_ice(-20.0, -20.0) - 100.0 * 1.2563 / 1.0326) < 0.5
+
+
+def test_frost_and_rh_ice_refuse_warm_input():
+    with pytest.raises(ValueError, match="td_c=2"):
+        frost_point(2.0)
+    with pytest.raises(ValueError, match="t_c=3"):
+        relative_humidity_ice(3.0, -5.0)
+
+
+def test_report_frost_fog_and_ice_fog():
+    # Ice fog: -30 degC, dewpoint -31 degC (over water) is saturated over ice.
+    r = Column(-30.0, -31.0, 1030.0, 100.0, 6.5).report()
+    assert r["frost_point_c"] == pytest.approx(frost_point(-31.0))
+    assert r["rh_ice_pct"] > 100.0 and r["ice_fog_risk"] is True
+    assert r["fog_risk"] is True      # spread 1 K <= 3 K (common practice)
+    assert any("saturated over ice" in c for c in r["cautions"])
+    warm = Column(20.0, 10.0, 1000.0, 0.0).report()
+    assert warm["frost_point_c"] is None and warm["rh_ice_pct"] is None
+    assert warm["fog_risk"] is False and warm["ice_fog_risk"] is False
+    assert not any("fog" in c for c in warm["cautions"])
+
+
+def test_fog_threshold_is_3_k():
+    # Spread 3 K or less: fog or low stratus likely (common practice).
+    assert fog_risk(10.0, 7.0) is True
+    assert fog_risk(10.0, 6.9) is False
+
+
+# ---- carburettor icing ----
+
+def _td(t, rh):
+    return dewpoint(t, rh)
+
+
+# Band corners, recalled from the chart of the CAA Safety Sense Leaflet 14 "Piston
+# Engine Icing" (from memory): (t_c, rh_pct, band just inside, band just outside).
+CARB_CORNERS = (
+    (20.0, 80.0, "any_power", "cruise_and_glide"),
+    (30.0, 60.0, "cruise_and_glide", "glide"),
+    (35.0, 50.0, "glide", "light"),
+    (38.0, 30.0, "light", "unlikely"),
+    (-10.0, 80.0, "any_power", "unlikely"),
+)
+
+
+@pytest.mark.parametrize("t, rh, inside, outside", CARB_CORNERS)
+def test_carb_icing_band_corners(t, rh, inside, outside):
+    assert carb_icing(t, _td(t, rh + 0.5)) == inside
+    # Just past the corner in temperature, then in humidity.
+    step = 0.5 if t > 0.0 else -0.5
+    assert carb_icing(t + step, _td(t + step, rh + 0.5)) == outside
+    if outside != "unlikely" or rh > 30.0:
+        assert carb_icing(t, _td(t, rh - 0.5)) != inside
+
+
+def test_carb_icing_report_and_caution():
+    r = Column(12.0, 10.0, 1000.0, 0.0).report()     # RH 88 %: serious at any power
+    assert r["carb_icing"] == "any_power"
+    assert any("Carburettor icing" in c for c in r["cautions"])
+    r = Column(36.0, 5.0, 1000.0, 0.0).report()      # RH 15 %
+    assert r["carb_icing"] == "unlikely"
+    assert not any("Carburettor" in c for c in r["cautions"])
+
+
+# ---- freezing rain and ice pellets ----
+
+def _fine_area(col, a, b, n=4000):
+    # g * integral (T - T0)/T dz by a fine midpoint sum (Bourgouin's area, J/kg).
+    dz = (b - a) / n
+    return sum(G0 * (1.0 - 273.15 / (col.t_at(a + (i + 0.5) * dz) + 273.15)) * dz
+               for i in range(n))
+
+
+def test_warm_nose_over_shallow_cold_layer_is_freezing_rain():
+    # Surface -3 degC, inversion +16 K/km to 500 m AGL (+5 degC), then cooling 6.5 K/km.
+    col = Column(-3.0, -4.0, 1000.0, 100.0, [(500.0, -16.0), (None, 6.5)], 10000.0)
+    w = warm_layer(col)
+    z_bot = 100.0 + 3.0 / 16.0 * 1000.0                 # 0 degC on the way up
+    z_top = 600.0 + 5.0 / 6.5 * 1000.0                  # 0 degC on the way down
+    assert w["warm_layer_bottom_msl_m"] == pytest.approx(z_bot)
+    assert w["warm_layer_top_msl_m"] == pytest.approx(z_top)
+    assert w["warm_layer_max_t_c"] == pytest.approx(5.0)
+    assert w["cold_layer_below_depth_m"] == pytest.approx(z_bot - 100.0)
+    assert w["melt_area_j_kg"] == pytest.approx(_fine_area(col, z_bot, z_top), rel=1e-4)
+    assert w["refreeze_area_j_kg"] == pytest.approx(-_fine_area(col, 100.0, z_bot), rel=1e-4)
+    # Bourgouin (2000) (from memory): refreezing area under 46 + 0.66 * melting area.
+    assert w["refreeze_area_j_kg"] < 46.0 + 0.66 * w["melt_area_j_kg"]
+    assert precip_type(col) == "glaze"
+    r = col.report()
+    assert r["precip_type"] == "glaze"
+    assert r["warm_layer_bottom_msl_m"] == pytest.approx(z_bot)
+    assert any("Warm layer" in c and "freezing rain" in c for c in r["cautions"])
+
+
+def test_warm_nose_over_deep_cold_layer_is_ice_pellets():
+    # Surface -12 degC warming 6 K/km for 2.5 km (+3 degC), then cooling 6.5 K/km.
+    col = Column(-12.0, -13.0, 1000.0, 0.0, [(2500.0, -6.0), (None, 6.5)], 10000.0)
+    w = warm_layer(col)
+    assert w["cold_layer_below_depth_m"] == pytest.approx(2000.0)
+    assert w["refreeze_area_j_kg"] > 66.0 + 0.66 * w["melt_area_j_kg"]   # Bourgouin
+    assert precip_type(col) == "pellets"
+
+
+def test_no_warm_nose():
+    cold = Column(-5.0, -7.0, 1000.0, 0.0, 6.5, 10000.0)
+    assert warm_layer(cold) is None and precip_type(cold) == "snow"
+    r = cold.report()
+    assert r["warm_layer_bottom_msl_m"] is None and r["cold_layer_below_depth_m"] is None
+    assert not any("Warm layer" in c for c in r["cautions"])
+    # Warm ground, 0 degC 2 km up: the melting area at the ground (about 70 J/kg) is
+    # past Bourgouin's 13.2 J/kg: rain.
+    assert precip_type(Column(13.0, 5.0, 1000.0, 0.0, 6.5, 10000.0)) == "rain"
+    # 0 degC 150 m up: little melting (under 5.6 J/kg): snow reaches the ground.
+    assert precip_type(Column(1.0, 0.0, 1000.0, 0.0, 6.5, 10000.0)) == "snow"
+
+
+def test_weak_warm_nose_leaves_snow():
+    # Barely above 0 degC (+0.2 degC) for a few hundred metres: melting area under
+    # Bourgouin's 2 J/kg, snow.
+    col = Column(-2.0, -3.0, 1000.0, 0.0, [(200.0, -11.0), (300.0, 0.0), (None, 6.5)], 9000.0)
+    w = warm_layer(col)
+    assert w is not None and w["melt_area_j_kg"] < 2.0
+    assert precip_type(col) == "snow"
+
+
+# ---- wet-bulb freezing level ----
+
+def _wb_at(col, z):
+    e = col.vapour_pressure_at(z)
+    return wet_bulb(col.t_at(z), min(_dewpoint_from_e(e), col.t_at(z)), col.p_at(z))
+
+
+def test_wet_bulb_zero_against_wet_bulb():
+    # Dry air: the wet bulb (ASHRAE eq. 33, moisture.wet_bulb) reaches 0 degC well below
+    # the air's 0 degC level.
+    col = Column(8.0, -6.0, 1000.0, 200.0, 6.5, 10000.0)
+    z = wet_bulb_zero(col)
+    assert z < col.level(0.0) - 300.0
+    assert abs(_wb_at(col, z)) < 0.02
+    assert _wb_at(col, z - 50.0) > 0.0 > _wb_at(col, z + 50.0)
+    assert col.report()["wet_bulb_zero_msl_m"] == z
+    # At or below 0 degC wet bulb at the ground: the elevation.
+    assert wet_bulb_zero(Column(1.0, -8.0, 1000.0, 300.0, 6.5, 8000.0)) == 300.0
+
+
+@given(st.floats(-5.0, 30.0), st.floats(0.5, 20.0), st.floats(3.0, 9.5))
+def test_wet_bulb_zero_not_above_freezing_level(t, spread, lapse):
+    col = Column(t, t - spread, 1000.0, 0.0, lapse, 12000.0)
+    z = wet_bulb_zero(col)
+    z0 = col.level(0.0)
+    assert z is not None and z <= z0 + 1.0
+    if z > col.elev_m:
+        assert abs(_wb_at(col, z)) < 0.05
+
+
+# ---- icing band ----
+
+def test_stable_cloud_band_starts_at_the_freezing_level():
+    # 5 degC, dewpoint 4 degC, ISA: cloud base about 125 m, 0 degC at 769 m, no LFC.
+    r = Column(5.0, 4.0, 1013.25, 0.0, 6.5).report()
+    assert r["lfc_msl_m"] is None
+    assert r["icing_band_basis"] == "air"
+    assert r["icing_band_bottom_msl_m"] == pytest.approx(5.0 / 6.5e-3)
+    assert r["icing_band_top_msl_m"] is None
+    assert any("cloud tops unknown" in c for c in r["cautions"])
+
+
+def test_stable_cloud_above_the_freezing_level_starts_at_the_base():
+    # Dry air below freezing: the cloud base is above the 0 degC level.
+    r = Column(2.0, -10.0, 1000.0, 0.0, 6.5).report()
+    assert r["icing_band_bottom_msl_m"] == pytest.approx(r["cloud_base_msl_m"])
+    assert r["cloud_base_msl_m"] > r["freezing_level_msl_m"]
+
+
+def test_convective_band_runs_from_the_lower_zero_to_the_higher_minus20():
+    # A tropical-style day: the parcel is warmer than the air in cloud, so its 0 degC
+    # level is higher; the band starts at the air's.
+    col = Column(32.0, 22.0, 1000.0, 100.0, 7.5, 14000.0)
+    r = col.report()
+    assert r["icing_band_basis"] == "parcel"
+    assert r["parcel_freezing_level_msl_m"] > r["freezing_level_msl_m"]
+    assert r["icing_band_bottom_msl_m"] == pytest.approx(r["freezing_level_msl_m"])
+    from lapsecalc import parcel
+    levels = parcel.path(col, r["cloud_base_msl_m"])
+    z20p = parcel.level(col, levels, -20.0, r["cloud_base_msl_m"])
+    assert z20p > r["minus20_level_msl_m"]
+    cloud_top = r["el_msl_m"] or r["top_msl_m"]        # EL, or above the column top
+    assert r["icing_band_top_msl_m"] == pytest.approx(min(z20p, cloud_top))
+
+
+def test_no_band_without_cloud_base_or_freezing():
+    # Column entirely above 0 degC (top below the freezing level).
+    r = Column(30.0, 20.0, 1000.0, 0.0, 6.5, 3000.0).report()
+    assert r["icing_band_bottom_msl_m"] is None and r["icing_band_basis"] is None
+    # Cloud base above the -20 degC level: colder than the band.
+    r = Column(-18.0, -40.0, 1000.0, 0.0, 6.5, 10000.0).report()
+    assert r["cloud_base_msl_m"] > r["minus20_level_msl_m"]
+    assert r["icing_band_bottom_msl_m"] is None
+
+
+@given(st.floats(-15.0, 40.0), st.floats(0.0, 25.0), st.floats(-5.0, 10.0),
+       st.floats(2.0, 9.7), st.floats(200.0, 3000.0))
+def test_icing_band_never_empty_when_cloud_can_reach_the_band(t, spread, inv, lapse, h):
+    # Issue requirement: the cloud base below the -20 degC level and the column reaching
+    # 0 degC: a band, starting at or above the cloud base, below its known top.
+    col = Column(t, t - spread, 1000.0, 0.0, [(h, inv), (None, lapse)], 14000.0)
+    r = col.report()
+    base, z0, z20 = r["cloud_base_msl_m"], r["freezing_level_msl_m"], r["minus20_level_msl_m"]
+    assume(base is not None and z0 is not None and (z20 is None or base < z20))
+    b, top = r["icing_band_bottom_msl_m"], r["icing_band_top_msl_m"]
+    assert b is not None and b >= base - 1e-6
+    assert (top is None) == (r["icing_band_basis"] == "air")
+    assert top is None or b < top
+    assert z20 is None or b < z20
+
+
+# ---- thermals ----
+
+@given(st.floats(-10.0, 40.0), st.floats(0.0, 20.0), st.floats(0.0, 10.0),
+       st.floats(-200.0, 1000.0))
+def test_thermal_cloud_base_is_the_heated_parcels_lcl(t, spread, excess, elev):
+    # Issue requirement: cloud_base(t + excess, td, p) above the field.
+    col = Column(t, t - spread, 950.0, elev, 7.0, 16000.0)
+    r = col.report(excess)
+    want = elev + cloud_base(min(t + excess, 60.0), t - spread, 950.0)[0]
+    assert r["thermal_cloud_base_msl_m"] == pytest.approx(want, abs=1e-6)
+    if excess == 0.0:
+        assert r["thermal_cloud_base_msl_m"] == pytest.approx(r["cloud_base_msl_m"])
+
+
+def test_usable_thermal_top_is_the_lower_of_dry_top_and_cloud_base():
+    # Superadiabatic 12 K/km to 300 m, then 6 K/km: dry thermals rise about 470 m.
+    dry = Column(30.0, 5.0, 1000.0, 0.0, [(300.0, 12.0), (None, 6.0)], 10000.0).report(1.0)
+    assert dry["thermal_kind"] == "blue"
+    assert dry["thermal_usable_top_msl_m"] == dry["thermal_top_msl_m"]
+    assert dry["thermal_top_msl_m"] < dry["thermal_cloud_base_msl_m"]
+    wet = Column(25.0, 23.0, 1000.0, 0.0, [(300.0, 12.0), (None, 6.0)], 10000.0).report(1.0)
+    assert wet["thermal_kind"] == "cumulus"
+    assert wet["thermal_usable_top_msl_m"] == wet["thermal_cloud_base_msl_m"]
+    assert wet["thermal_top_msl_m"] > wet["thermal_cloud_base_msl_m"]
+
+
+def test_no_dry_thermals_until_the_trigger_temperature():
+    # Moist and conditionally unstable, but stable for dry thermals at the surface:
+    # large CAPE and no dry thermals until the convective (trigger) temperature.
+    r = Column(30.0, 24.0, 1000.0, 0.0, 6.5).report()
+    assert r["cape_j_kg"] > 1000.0
+    assert r["thermal_kind"] == "none"
+    assert r["dry_thermals_from_t_c"] == r["trigger_t_c"] and r["trigger_t_c"] > 30.0
+    assert r["thermal_usable_top_msl_m"] is None
+
+
+def test_capped_deck_under_a_low_inversion():
+    # A moist mixed layer (about the dry rate) to 600 m AGL under a 300 m inversion:
+    # the cloud fills the layer from its base to the inversion, a capped deck.
+    col = Column(10.0, 9.0, 1000.0, 0.0, [(600.0, 9.77), (900.0, -5.0), (None, 6.5)])
+    r = col.report(1.0)
+    assert r["thermal_kind"] == "capped"
+    assert r["capped_cloud_top_msl_m"] == pytest.approx(600.0)
+    assert r["thermal_cloud_base_msl_m"] < 600.0
+    # The same without the inversion: cumulus, no cap.
+    r = Column(10.0, 9.0, 1000.0, 0.0, [(600.0, 9.77), (900.0, 6.0), (None, 6.5)]).report(1.0)
+    assert r["thermal_kind"] == "cumulus" and r["capped_cloud_top_msl_m"] is None
+
+
+def test_cautions_keep_the_general_ones_last():
+    r = Column(-3.0, -4.0, 1000.0, 100.0, [(500.0, -16.0), (None, 6.5)], 10000.0).report()
+    assert list(r["cautions"][-len(hazards.CAUTIONS):]) == list(hazards.CAUTIONS)
+    text = " ".join(r["cautions"]).lower()
+    assert "not an official forecast" in text and "flight manual" in text
+    for c in r["cautions"]:
+        assert math.isfinite(len(c)) and "None" not in c

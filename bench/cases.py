@@ -10,8 +10,8 @@ from lapsecalc.column import Column
 # Modules whose public functions should each have a timed case; run.py lists any
 # public function without one as "not timed". Optional modules are skipped when they
 # do not import.
-COVERED_MODULES = ("moisture", "standard", "condensation", "adiabats", "column", "parcel",
-                   "stability", "units", "metar", "balloon", "chart")
+COVERED_MODULES = ("moisture", "standard", "condensation", "adiabats", "column", "aloft",
+                   "parcel", "stability", "units", "metar", "balloon", "chart")
 
 # The benchmark column: an invented warm afternoon at an invented field (as the demo).
 BENCH_T_C = 27.0
@@ -88,8 +88,21 @@ SESSION_SCRIPT = (
 )
 
 
+# Nine points aloft over the bench field (invented forecast-aloft and model-level
+# temperatures, five with dewpoints, two by pressure), for the 0.5 ms report() target.
+BENCH_ALOFT = [(914.4, 22.0, 11.0), (1828.8, 16.0, 8.0), (2743.2, 10.0, 2.0),
+               (850.0, 17.0, 9.0, "hPa"), (3657.6, 3.0, None), (700.0, 7.0, -2.0, "hPa"),
+               (5486.4, -9.0, None), (7315.2, -22.0, None), (9144.0, -36.0, None)]
+
+
 def bench_column():
     return Column.from_qnh(BENCH_T_C, BENCH_TD_C, BENCH_QNH_HPA, BENCH_ELEV_M, BENCH_LAPSE)
+
+
+def aloft_column():
+    """The bench column with the nine points aloft (BENCH_ALOFT)."""
+    return Column.from_qnh(BENCH_T_C, BENCH_TD_C, BENCH_QNH_HPA, BENCH_ELEV_M, BENCH_LAPSE,
+                           aloft=BENCH_ALOFT)
 
 
 def scale_column(n_layers=None, top_m=None):
@@ -110,6 +123,7 @@ def call_cases():
     levels = parcel.path(col, lcl)
     t, td, p = col.t_c, col.td_c, col.p_hpa
     z = col.elev_m + 2500.0
+    aloft = aloft_column()
     cases = [
         ("moisture.saturation_vapour_pressure", moisture.saturation_vapour_pressure, (t,), {}),
         ("moisture.saturation_vapour_pressure(ice)", moisture.saturation_vapour_pressure,
@@ -160,6 +174,10 @@ def call_cases():
         ("Column.cloud_base", col.cloud_base, (), {}),
         ("Column.report", col.report, (), {}),
         ("Column.report(excess 2C)", col.report, (2.0,), {}),
+        ("Column(): 9 points aloft", aloft_column, (), {}),
+        ("Column.report(9 points aloft)", aloft.report, (), {}),
+        ("Column.dewpoint_at", aloft.dewpoint_at, (z,), {}),
+        ("stability.add_warnings", stability.add_warnings, (col, dict(col.report())), {}),
         ("column.warm_layer_aloft", column.warm_layer_aloft, (col,), {}),
         ("parcel.path", parcel.path, (col, lcl), {}),
         ("parcel.temperature_at", parcel.temperature_at,
@@ -168,7 +186,7 @@ def call_cases():
         ("parcel.level", parcel.level, (col, levels, 0.0, lcl), {}),
         ("stability.classify", stability.classify, (6.5, 5.0), {}),
         ("stability.layers", stability.layers, (col,), {}),
-        ("stability.whole_column", stability.whole_column, (col,), {}),
+        ("stability.lapse_measures", stability.lapse_measures, (col,), {}),
         ("stability.parcel_analysis", stability.parcel_analysis, (col, levels, lcl), {}),
         ("stability.lifted_index", stability.lifted_index, (col, levels, lcl, 500.0), {}),
         ("stability.thermal_top", stability.thermal_top, (col, 2.0), {}),
@@ -196,6 +214,18 @@ def call_cases():
 def _optional_cases(col, levels):
     # Modules still being written by colleagues: time them when they import.
     out = []
+    try:
+        from lapsecalc import aloft
+        acol = aloft_column()
+        out += [
+            ("aloft.resolve", aloft.resolve,
+             (BENCH_ALOFT, col.elev_m, col.t_c + 273.15, col.p_hpa, col.top_m), {}),
+            ("aloft.cloud_layers", aloft.cloud_layers, (acol,), {}),
+            ("aloft.vapour_pressure", aloft.vapour_pressure, (acol, col.elev_m + 2500.0), {}),
+            ("aloft.steep_warnings", aloft.steep_warnings, (acol,), {}),
+        ]
+    except ImportError:
+        pass
     try:
         from lapsecalc import metar
         out.append(("metar.parse", metar.parse,

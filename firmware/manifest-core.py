@@ -9,7 +9,6 @@ package(
         "__init__.py",
         "constants.py",
         "limits.py",
-        "units.py",
         "moisture.py",
         "standard.py",
         "condensation.py",

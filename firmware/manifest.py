@@ -8,6 +8,7 @@ include("manifest-core.py")
 package(
     "lapsecalc",
     files=(
+        "aloft.py",
         "balloon.py",
         "balloontext.py",
         "chart.py",
@@ -24,6 +25,7 @@ package(
         "shell.py",
         "state.py",
         "typed.py",
+        "units.py",
     ),
     base_path="..",
 )

@@ -7,7 +7,8 @@
 from lapsecalc.constants import T0_K, EPS
 from lapsecalc.limits import (check, check_p, check_elev, check_lapse, check_dew, finite,
                               T_MIN_C, T_MAX_C)
-from lapsecalc.moisture import _es_water, _mixing_ratio_kg_kg, relative_humidity, wet_bulb
+from lapsecalc.moisture import (_es_water, _mixing_ratio_kg_kg, _dewpoint_from_e,
+                                relative_humidity, wet_bulb)
 from lapsecalc.standard import (layer_pressure, layer_height, station_pressure, qnh,
                                 pressure_altitude, isa_height_of_density, _density)
 from lapsecalc.condensation import cloud_base
@@ -21,14 +22,11 @@ def _layer_tops(lapse, elev_m, top_m):
     # [(top_msl_m, k_per_km), ...] from a number or from [(top_agl_m or None, k_per_km), ...].
     if isinstance(lapse, (int, float)):
         return [(top_m, check_lapse("lapse", lapse))]
-    if isinstance(lapse, str):
+    try:
+        items = list(None if isinstance(lapse, str) else lapse)
+    except TypeError:
         raise ValueError("lapse=%r must be a number in K/km (allowed -30..30) or a list of"
                          " (top_agl_m, k_per_km)" % (lapse,))
-    try:
-        items = list(lapse)
-    except TypeError:
-        raise ValueError("lapse=%r must be a number in K/km or a list of (top_agl_m, k_per_km)"
-                         % (lapse,))
     if not items:
         raise ValueError("lapse=[] is empty; give at least one layer (top_agl_m, k_per_km)")
     tops = []
@@ -55,30 +53,65 @@ def _layer_tops(lapse, elev_m, top_m):
 
 
 class Column:
-    """A surface observation (t_c, td_c degC, station pressure p_hpa, elevation elev_m)
-    and an assumed ELR, up to top_m (MSL).
+    """A surface observation (t_c, td_c degC, station pressure p_hpa, elevation elev_m),
+    optional temperatures aloft and an assumed ELR, up to top_m (MSL).
 
+    aloft: points (z_msl_m, t_c, td_c) or, by pressure, (p_hpa, t_c, td_c, "hPa");
+    td_c may be None (lapsecalc.aloft). The temperature is linear in height from the
+    surface to the first point and between points; above the last point lapse goes on.
     lapse is a number in K/km (positive: cooling with height) or layers
-    [(top_agl_m, k_per_km), ...]; the last top may be None and then runs to top_m.
+    [(top_agl_m, k_per_km), ...]; the last top may be None and then runs to top_m;
+    layers whose tops lie at or below the last point are the points' part.
+    Above tropopause_m (MSL; ICAO standard atmosphere 11000 m, real ones lie between
+    about 8 and 17 km) the assumed part is isothermal, unless points or a layer that
+    starts above it say otherwise; None turns it off.
     A last layer that ends below top_m ends the column there (nothing above it is
     invented), and so does the height where the ELR would take the air below -90 degC
-    (the coldest temperature the library handles); top_m then tells the real top.
+    (the coldest temperature the library handles); top_m then tells the real top,
+    top_asked_m the one asked for and end_why the reason in words (None when it
+    reached it).
     Heights are geopotential metres MSL unless a name says agl.
     """
 
-    def __init__(self, t_c, td_c, p_hpa, elev_m, lapse=6.5, top_m=16000.0):
+    def __init__(self, t_c, td_c, p_hpa, elev_m, lapse=6.5, top_m=16000.0, aloft=None,
+                 tropopause_m=11000.0):
         self.t_c, self.td_c = check_dew(t_c, td_c)
         self.p_hpa = check_p("p_hpa", p_hpa)
         self.elev_m = check_elev("elev_m", elev_m)
         # A station pressure that implies an impossible QNH is a mistake (often QNH or
         # an altimeter setting typed as station pressure): qnh() refuses it.
         self.qnh_hpa = qnh(self.p_hpa, self.elev_m)
-        top = check("top_m", top_m, self.elev_m + 100.0, TOP_MAX_M, "m MSL (at least 100 m above"
-                    " the elevation)")
-        # layers: (bottom_m, top_m, bottom_t_k, grad_k_per_m, bottom_p_hpa)
+        unit = "m MSL (at least 100 m above the elevation)"
+        top = check("top_m", top_m, self.elev_m + 100.0, TOP_MAX_M, unit)
+        trop = None if tropopause_m is None else check(
+            "tropopause_m", tropopause_m, self.elev_m + 100.0, TOP_MAX_M, unit)
+        self.top_asked_m = top
+        self.tropopause_m = None
+        self.end_why = None
+        self.r_kg_kg = _mixing_ratio_kg_kg(_es_water(self.td_c), self.p_hpa)
+        # Points aloft (lapsecalc.aloft.build): their heights aloft_m, m MSL, and the
+        # dewpoints given, dews [(z_m, td_c), ...] from the surface up; else None.
+        self.aloft_m = self.dews = None
         layers = []
         z, t, p = self.elev_m, self.t_c + T0_K, self.p_hpa
-        for z_top, rate in _layer_tops(lapse, self.elev_m, top):
+        if aloft is not None:
+            from lapsecalc.aloft import build
+            z, t, p = build(self, aloft, layers, top)
+        tops = _layer_tops(lapse, self.elev_m, top)
+        if trop is not None:
+            # Isothermal above the tropopause, unless a layer starts above it (or the
+            # points go past it: then from the last point).
+            below = self.elev_m
+            for i in range(len(tops)):
+                z_top, rate = tops[i]
+                if below < trop < z_top:
+                    tops[i:i + 1] = [(trop, rate), (z_top, 0.0)]
+                    self.tropopause_m = trop if trop > z else z
+                    break
+                below = z_top
+        for z_top, rate in tops:
+            if z_top <= z:
+                continue
             grad = -rate / 1000.0
             t_top = t + grad * (z_top - z)
             if t_top - T0_K > T_MAX_C:
@@ -87,12 +120,12 @@ class Column:
                                  % (T_MAX_C, z + (T_MAX_C + T0_K - t) / grad, T_MAX_C))
             if t_top - T0_K < T_MIN_C:
                 # The column ends where the air would pass the coldest temperature allowed.
+                self.end_why = "the air reaches -90 degC, the coldest handled" + (
+                    "" if trop else " (no tropopause)")
                 z_top = z + (T_MIN_C + T0_K - t) / grad
-                t_top = T_MIN_C + T0_K
                 if z_top - z > 1.0:
                     layers.append((z, z_top, t, grad, p))
-                    p = layer_pressure(p, t, grad, z_top - z)
-                    z, t = z_top, t_top
+                    z = z_top
                 break
             layers.append((z, z_top, t, grad, p))
             p = layer_pressure(p, t, grad, z_top - z)
@@ -100,14 +133,19 @@ class Column:
         if not layers:
             raise ValueError("t_c=%s with this ELR leaves no column above the surface; allowed"
                              " a surface above %g degC" % (self.t_c, T_MIN_C))
+        if z < top and self.end_why is None:
+            self.end_why = "its last layer ends there"
+        if self.tropopause_m is not None and self.tropopause_m >= z:
+            self.tropopause_m = None
         self.layers = layers
         self.top_m = z
-        self.r_kg_kg = _mixing_ratio_kg_kg(_es_water(self.td_c), self.p_hpa)
 
     @classmethod
-    def from_qnh(cls, t_c, td_c, qnh_hpa, elev_m, lapse=6.5, top_m=16000.0):
+    def from_qnh(cls, t_c, td_c, qnh_hpa, elev_m, lapse=6.5, top_m=16000.0, aloft=None,
+                 tropopause_m=11000.0):
         """The same column built from QNH (hPa) instead of station pressure."""
-        return cls(t_c, td_c, station_pressure(qnh_hpa, elev_m), elev_m, lapse, top_m)
+        return cls(t_c, td_c, station_pressure(qnh_hpa, elev_m), elev_m, lapse, top_m, aloft,
+                   tropopause_m)
 
     def _layer(self, z_m):
         z = finite("z_m", z_m)
@@ -134,22 +172,40 @@ class Column:
 
     def z_at(self, p_hpa):
         """Height, m MSL, where the environment pressure is p_hpa (inside the column)."""
-        lo = layer_pressure(self.layers[-1][4], self.layers[-1][2], self.layers[-1][3],
-                            self.top_m - self.layers[-1][0])
-        p = check("p_hpa", p_hpa, lo * (1.0 - 1e-9), self.p_hpa, "hPa (the column)")
-        for z0, z1, t0, grad, p0 in self.layers:
-            z = z0 + layer_height(p0, t0, grad, p)
-            if z <= z1:
-                return z
-        return self.top_m if z > self.top_m else z
+        layers = self.layers
+        p = check("p_hpa", p_hpa, 1.0, self.p_hpa, "hPa (the column)")
+        # The layer that holds p: the first whose top (the next one's foot) is not
+        # above it; only the last one's top pressure is computed.
+        i = 0
+        while i < len(layers) - 1 and layers[i + 1][4] > p:
+            i += 1
+        z0, z1, t0, grad, p0 = layers[i]
+        z = z0 + layer_height(p0, t0, grad, p)
+        if z > z1:
+            lo = layer_pressure(p0, t0, grad, z1 - z0)
+            check("p_hpa", p, lo * (1.0 - 1e-9), self.p_hpa, "hPa (the column)")
+            z = z1
+        return z
 
-    def vapour_pressure_at(self, z_m):
-        """Vapour pressure, hPa, assumed at z_m: the surface mixing ratio carried up
-        (a well-mixed layer), capped at saturation. Humidity aloft is not observed."""
+    def vapour_pressure_at(self, z_m, r_kg_kg=None):
+        """Vapour pressure, hPa, at z_m. Up to the highest dewpoint given aloft: from the
+        dewpoint linear in height between the surface and the points that carry one,
+        never above the temperature (lapsecalc.aloft). Above it (or with none given):
+        the mixing ratio of the highest dewpoint (else of the surface air; r_kg_kg when
+        given) carried up, a well-mixed layer, capped at saturation."""
+        if r_kg_kg is None:
+            if self.dews is not None:
+                from lapsecalc.aloft import vapour_pressure
+                return vapour_pressure(self, z_m)
+            r_kg_kg = self.r_kg_kg
         p = self.p_at(z_m)
-        e = self.r_kg_kg * p / (EPS + self.r_kg_kg)
+        e = r_kg_kg * p / (EPS + r_kg_kg)
         es = _es_water(self.t_at(z_m))
         return es if e > es else e
+
+    def dewpoint_at(self, z_m):
+        """Dewpoint, degC (over water), at z_m MSL; humidity as vapour_pressure_at."""
+        return _dewpoint_from_e(self.vapour_pressure_at(z_m))
 
     def density_at(self, z_m):
         """Air density, kg/m3, at z_m MSL (humidity as vapour_pressure_at)."""
@@ -192,7 +248,9 @@ class Column:
         """Every result for this column as a dict of plain values with units in the keys;
         None where a level does not exist in the column. The hazard keys and a caution
         per hazard (lapsecalc.hazards) come when that module is installed (on CPython;
-        not yet on a board), the general cautions always."""
+        not yet on a board), the general cautions always. levels_above_top
+        names the keys whose None means "above the column top" and warnings says so in
+        words, with why the column ends below the top asked for (stability.add_warnings)."""
         from lapsecalc import stability, parcel
         lcl_agl, lcl_t, lcl_p = self.cloud_base()
         lcl_msl = self.elev_m + lcl_agl
@@ -222,7 +280,14 @@ class Column:
             zs = self.crossings(t)
             r[name + "_level_msl_m"] = self.level(t, zs)
             r[name + "_levels_msl_m"] = zs
+        r["tropopause_msl_m"] = self.tropopause_m
         stability.add_to_report(self, path, r, thermal_excess_c)
+        if self.dews is None:
+            r["cloud_layers_msl_m"] = None
+        else:
+            from lapsecalc.aloft import cloud_layers
+            r["cloud_layers_msl_m"] = cloud_layers(self)
+        stability.add_warnings(self, r)
         try:
             from lapsecalc import hazards
         except (ImportError, AttributeError):  # a board: the hazards module is not there

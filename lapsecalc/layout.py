@@ -38,7 +38,13 @@ LABELS = {
     "warm_layer_aloft": ("warm aloft", "b"),
     "parcel_freezing_level_msl_m": ("parcel 0C", "z"),
     "stability": ("lowest layer", "s"),
-    "stability_column": ("whole column", "s"),
+    "lapse_0_3km_k_per_km": ("ELR 0-3km", "lkm"),
+    "lapse_0_3km_class": ("", "hide"),
+    "lapse_700_500_k_per_km": ("ELR 700-500", "lkm"),
+    "lapse_700_500_class": ("", "hide"),
+    "tropopause_msl_m": ("tropopause", "z"),
+    "cloud_layers_msl_m": ("cloud layer", "zz"),
+    "levels_above_top": ("", "hide"),
     "lfc_msl_m": ("LFC", "z"),
     "el_msl_m": ("EL", "z"),
     "el_above_top": ("EL above top", "b"),
@@ -69,7 +75,8 @@ WORDS = {
     "absolutely_stable": "abs stable",
     "conditionally_unstable": "cond unstable",
     "absolutely_unstable": "abs unstable",
-    "neutral": "neutral",
+    "dry_neutral": "dry neutral",
+    "saturated_neutral": "sat neutral",
     "none": "none (stable at ground)",
     "blue": "blue (dry, no cumulus)",
     "cumulus": "cumulus",
@@ -96,6 +103,21 @@ SECTIONS = (
 # Kinds shown as one number and a fixed unit.
 _PLAIN = {"rho": "%7.3f kg/m3", "jkg": "%7.0f J/kg", "pct": "%7.0f %%", "gkg": "%7.1f g/kg",
           "gmol": "%7.3f g/mol"}
+# What a report's level line says when the level lies above the column top (the
+# library's levels_above_top); the top follows on the next line.
+ABOVE = "above the column top"
+
+
+def warning_lines(s, rep, keys):
+    """The report's warnings that concern keys, as "!" lines for the text mode: the
+    ones about the whole column and its inputs, and "LABEL above the column top (N)"
+    in the display unit for each key whose level lies above the top."""
+    said = [w for w in rep["warnings"] if ": %s (" % ABOVE not in w]
+    for k in rep.get("levels_above_top", ()):
+        if k in keys:
+            said.append("%s: %s (%s)" % (LABELS[k][0].strip(), ABOVE,
+                                         f_h(s, rep["top_msl_m"], True)))
+    return wrap(said, "!")
 
 
 def text_lines(s, key, v, label_kind=None, rep=None):
@@ -126,12 +148,27 @@ def text_lines(s, key, v, label_kind=None, rep=None):
         kind = "z"
     if key == "stability_layers":
         return layer_lines(s, v)
+    if kind == "hide" or (key == "warnings" and rep is not None and "levels_above_top" in rep):
+        return []
     if key == "cautions" or kind == "say!":
         return wrap(v, "!")
     if kind == "say1":
         return []  # said among the warnings
     if kind == "say-":
         return wrap(v, "-")
+    if v is None and rep is not None and key in rep.get("levels_above_top", ()):
+        return ["%-13s%s" % (label, ABOVE), "%-13s(%s)" % ("", f_h(s, rep["top_msl_m"], True))]
+    if kind == "lkm" and v is not None:
+        # The rate and its class (the report's key ..._class) on one line.
+        c = rep.get(key.replace("k_per_km", "class")) if rep else None
+        return ["%-13s%7.1f K/km %s" % (label, v, WORDS.get(c, c or ""))]
+    if kind == "zz":
+        if v is None:
+            return []  # no dewpoints aloft: the assumed humidity places no layers
+        if not v:
+            return ["%-13s%s" % (label + "s", "   none (spread > 3 K)")]
+        return ["%-13s%s" % (label if i == 0 else "", "%s-%s" % (
+            f_h(s, a, True).split(" (")[0], f_h(s, b, True))) for i, (a, b) in enumerate(v)]
     if kind == "zl":
         # Every pass only when there is more than one (else the level line says it).
         if len(v) < 2:
@@ -192,19 +229,24 @@ def wrap(items, mark, width=40):
 
 def text_keys(word):
     """The keys of query word's group in text: the column top is said with the
-    stability of the whole column, not in the surface block."""
+    stability of the whole column (after the tropopause), not in the surface block."""
     keys = GROUPS[word]
     if word == "obs":
         return [k for k in keys if k != "top_msl_m"]
     if word == "stab":
-        return list(keys[:2]) + ["top_msl_m"] + list(keys[2:])
+        return list(keys[:-1]) + ["top_msl_m"] + list(keys[-1:])
     return keys
 
 
 def report_text(s, rep, keys):
-    """The whole report in sections, cautions last (keys: queries.report_keys order)."""
+    """The whole report in sections, warnings first, cautions last (keys:
+    queries.report_keys order)."""
     out = []
-    done = []
+    done = ["warnings", "levels_above_top"]
+    said = warning_lines(s, rep, keys)
+    if said:
+        out.append("-- warnings")
+        out.extend(said)
     for heading, word in SECTIONS:
         out.append("-- " + heading)
         for k in text_keys(word):

@@ -5,8 +5,8 @@ line of a taken line, and values in kv form (runs on MicroPython)."""
 # The f_* functions take the session (they read s.disp) and give a padded column
 # ("   1350 ft    411 m") or, with compact, the short form for acks ("1350 ft (411 m)").
 # kv: None is an empty value, booleans 0/1, numbers as DECIMALS says, lists comma-joined,
-# stability_layers bottom:top:elr:salr:class joined by ";", lists of sentences joined
-# by " | ".
+# stability_layers bottom:top:elr:salr:class joined by ";", cloud_layers_msl_m
+# bottom:top joined by ";", lists of sentences joined by " | ".
 from lapsecalc import units
 
 

@@ -15,8 +15,9 @@ from lapsecalc.adiabats import moist_step
 MAX_STEP_M = 1250.0
 _MAX_LEVELS = 400
 # Below this parcel temperature, K (-60 degC), less than 0.1 g/kg of vapour is left and
-# the pseudo-adiabat is followed as a dry adiabat (within 0.2 K): a board's report()
-# then stays under 64 KiB of allocation even for a deep column.
+# the pseudo-adiabat is followed as a dry adiabat (within 0.2 K), with levels up to
+# 5000 m apart: a board's report() then stays under 64 KiB of allocation even for a
+# column to 32 km with a deep isothermal stratosphere.
 _DRY_BELOW_K = 213.15
 
 
@@ -43,8 +44,9 @@ def path(col, lcl_msl_m, max_step_m=MAX_STEP_M):
         for j in range(len(marks) - 1):
             a, b = marks[j], marks[j + 1]
             n = int(ceil((b - a) / max_step_m))    # at least 1: every mark is above the last
-            start = 0 if not out else 1
-            for i in range(start, n + 1):
+            cold = False
+            i = 0 if not out else 1
+            while i <= n:
                 z = b if i == n else a + (b - a) * i / n
                 p = layer_pressure(p0, t0, grad, z - z0)
                 if z <= lcl_msl_m or not out:
@@ -56,6 +58,13 @@ def path(col, lcl_msl_m, max_step_m=MAX_STEP_M):
                 if len(out) > _MAX_LEVELS:
                     raise ValueError("parcel path needs over %d levels; allowed max_step_m"
                                      " gives fewer" % _MAX_LEVELS)
+                i += 1
+                if not cold and i <= n and z >= lcl_msl_m and tp < _DRY_BELOW_K:
+                    # Above the LCL a parcel colder than -60 degC follows a dry adiabat,
+                    # exact over any step: the rest of the interval in levels four
+                    # times as far apart.
+                    cold = True
+                    a, n, i = z, int(ceil((b - z) / (4.0 * max_step_m))), 1
     return out
 
 

@@ -34,14 +34,21 @@ def emit(s, keys, values, balloon=False, word=None, rest=True):
                 obj[k] = machine(k, values[k])
         if notes:
             obj["assumed"] = notes
+        if s.drop_word_modules:
+            # On a board: the line is one string of a few KiB that grows as it is
+            # written; collecting first leaves it the largest free run of the heap.
+            import gc
+            gc.collect()
         return [s.json.dumps(obj)]
-    from lapsecalc.layout import text_lines, text_keys
+    from lapsecalc.layout import text_lines, text_keys, warning_lines
     if word is not None:
         keys = text_keys(word)
     labels, heads = {}, {}
     if balloon:
         from lapsecalc.balloontext import LABELS as labels, HEADINGS as heads
     out = ["assumed " + n for n in notes]
+    if not balloon and "warnings" in values:
+        out.extend(warning_lines(s, values, keys))
     for k in keys:
         if k in heads:
             out.append(heads[k])

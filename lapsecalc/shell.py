@@ -28,12 +28,12 @@ _MAX_LINE = const(256)
 MAX_LINE = _MAX_LINE
 PROMPT = "lc> "
 # Modules loaded only for a line's work (help, chart, svg, balloon, metar, demo; the
-# text layout; the parcel, stability and hazards code of a report): on a board a
+# text layout; the parcel, stability, hazards and points-aloft code of a report): on a board a
 # Session forgets them after the line, so the heap between lines holds only the
 # dispatch layer and the session's state (measured: bench/mpy_budget.py). A new module
 # that only some lines need goes here.
 WORD_MODULES = ("helptext", "chart", "balloon", "loadtable", "balloontext", "metar", "demo",
-                "layout", "parcel", "stability", "hazards", "hazardtext")
+                "layout", "parcel", "stability", "hazards", "hazardtext", "aloft")
 # Every word but the settings: the queries, then the session words.
 _WORDS = dict(QUERIES)
 _WORDS.update(COMMANDS)

@@ -4,6 +4,7 @@
 #   LFC, EL, CAPE = g * integral of (Tp - Te)/Te dz over the positive area above the
 #   LFC, CIN the negative area below it; lifted index Te - Tp at 500 hPa;
 #   convective condensation level and convective (trigger) temperature.
+#   The 0-3 km (above the field) and 700-500 hPa lapse rates: common practice.
 # Plain air temperatures are used for parcel and environment, not virtual ones: the
 # humidity aloft is not observed, so CAPE and CIN here are for the temperature only.
 from math import log, exp, fabs, ceil
@@ -32,11 +33,14 @@ _CCL_TOL_M = 0.5
 
 def classify(lapse_k_per_km, saturated_k_per_km):
     """Stability class of a layer with the given ELR against the dry rate and the
-    given saturated rate (both K/km): absolutely_stable, conditionally_unstable,
-    absolutely_unstable, or neutral (within 0.1 K/km of either reference)."""
-    if fabs(lapse_k_per_km - DRY_LAPSE_K_PER_KM) <= NEUTRAL_BAND_K_PER_KM or \
-            fabs(lapse_k_per_km - saturated_k_per_km) <= NEUTRAL_BAND_K_PER_KM:
-        return "neutral"
+    given saturated rate (both K/km): absolutely_stable, saturated_neutral (within
+    0.1 K/km of the saturated rate: saturated air neither rises nor sinks on its own),
+    conditionally_unstable, dry_neutral (within 0.1 K/km of the dry rate: so for
+    unsaturated air), absolutely_unstable."""
+    if fabs(lapse_k_per_km - DRY_LAPSE_K_PER_KM) <= NEUTRAL_BAND_K_PER_KM:
+        return "dry_neutral"
+    if fabs(lapse_k_per_km - saturated_k_per_km) <= NEUTRAL_BAND_K_PER_KM:
+        return "saturated_neutral"
     if lapse_k_per_km > DRY_LAPSE_K_PER_KM:
         return "absolutely_unstable"
     if lapse_k_per_km < saturated_k_per_km:
@@ -55,13 +59,14 @@ def _band(layer, a, b, lapse):
 
 def layers(col, max_depth_m=BAND_M):
     """Stability of every ELR layer, bottom first: a list of dicts (bottom_msl_m,
-    top_msl_m, lapse_k_per_km, saturated_k_per_km at mid-layer, class). A layer
-    deeper than max_depth_m is split into equal bands no deeper than that, because
-    the saturated rate changes with height inside it."""
+    top_msl_m, lapse_k_per_km, saturated_k_per_km at mid-layer, class). A cooling
+    layer deeper than max_depth_m is split into equal bands no deeper than that,
+    because the saturated rate changes with height inside it; an isothermal layer or
+    an inversion is absolutely stable at any depth and stays whole."""
     out = []
     for layer in col.layers:
         z0, z1, _, grad, _ = layer
-        n = int(ceil((z1 - z0) / max_depth_m))
+        n = 1 if grad >= 0.0 else int(ceil((z1 - z0) / max_depth_m))
         for i in range(n):
             a = z0 + (z1 - z0) * i / n
             b = z1 if i == n - 1 else z0 + (z1 - z0) * (i + 1) / n
@@ -69,13 +74,27 @@ def layers(col, max_depth_m=BAND_M):
     return out
 
 
-def whole_column(col):
-    """Stability of the column as a whole (mean ELR, saturated rate at mid-height)."""
-    zm = 0.5 * (col.elev_m + col.top_m)
-    lapse = 1000.0 * (col.t_c - col.t_at(col.top_m)) / (col.top_m - col.elev_m)
-    salr = moist_lapse_k_per_km(col.t_at(zm) + T0_K, col.p_at(zm))
-    return {"bottom_msl_m": col.elev_m, "top_msl_m": col.top_m, "lapse_k_per_km": lapse,
-            "saturated_k_per_km": salr, "class": classify(lapse, salr)}
+def lapse_measures(col):
+    """The two lapse rates of common practice, each taken as a whole (mean ELR) and
+    classified against the saturated rate at its middle: [lapse_0_3km_k_per_km, its
+    class, lapse_700_500_k_per_km, its class], 0-3 km above the field and 700-500 hPa;
+    None where the layer is not inside the column (700 hPa below the field, or a top
+    below 3 km above the field or below 500 hPa)."""
+    out = []
+    z7 = z5 = None
+    if col.p_hpa > 700.0:
+        try:
+            z7, z5 = col.z_at(700.0), col.z_at(500.0)
+        except ValueError:  # 500 hPa above the column top
+            pass
+    for a, b in ((col.elev_m, col.elev_m + 3000.0), (z7, z5)):
+        if a is None or b > col.top_m:
+            out += [None, None]
+            continue
+        lapse = 1000.0 * (col.t_at(a) - col.t_at(b)) / (b - a)
+        zm = 0.5 * (a + b)
+        out += [lapse, classify(lapse, moist_lapse_k_per_km(col.t_at(zm) + T0_K, col.p_at(zm)))]
+    return out
 
 
 def _crossing(z0, d0, z1, d1):
@@ -224,7 +243,8 @@ def add_to_report(col, levels, r, excess_c=0.0):
     per_layer = layers(col)
     r["stability"] = per_layer[0]["class"]
     r["stability_layers"] = per_layer
-    r["stability_column"] = whole_column(col)["class"]
+    r["lapse_0_3km_k_per_km"], r["lapse_0_3km_class"], r["lapse_700_500_k_per_km"], \
+        r["lapse_700_500_class"] = lapse_measures(col)
     if lcl is None:
         pa = {"lfc_msl_m": None, "el_msl_m": None, "el_above_top": False, "cape_j_kg": 0.0,
               "cin_j_kg": None,
@@ -250,3 +270,39 @@ def add_to_report(col, levels, r, excess_c=0.0):
     r["ccl_msl_m"] = z_ccl
     r["trigger_t_c"] = None if z_ccl is None else \
         (col.t_at(z_ccl) + T0_K) * exp(KAPPA * log(col.p_hpa / col.p_at(z_ccl))) - T0_K
+
+
+# Report keys whose None can mean "above the column top" (add_warnings).
+ABOVE_TOP = ("cloud_base_msl_m", "freezing_level_msl_m", "minus10_level_msl_m",
+             "minus20_level_msl_m", "parcel_freezing_level_msl_m", "lfc_msl_m", "el_msl_m",
+             "thermal_top_msl_m", "ccl_msl_m", "lapse_0_3km_k_per_km",
+             "lapse_700_500_k_per_km")
+
+
+def add_warnings(col, r):
+    """Add levels_above_top (the keys of ABOVE_TOP whose None means "above the column
+    top": never reached inside it, and it may exist above; an LFC only when the column
+    was cut short below its tropopause, as none forms above one; an EL only with
+    el_above_top; the 700-500 hPa rate only with 700 hPa above the field) and warnings
+    (plain lines
+    about this column and its inputs: why it ends below the top asked for, each level
+    above its top, steep layers between points aloft) to report r."""
+    top = col.top_m
+    out = []
+    if col.end_why:
+        out.append("The column ends at %.0f m MSL, below the top asked for (%.0f m): %s."
+                   % (top, col.top_asked_m, col.end_why))
+    keys = []
+    for k in ABOVE_TOP:
+        if r[k] is not None or (k == "el_msl_m" and not r["el_above_top"]) or \
+                (k == "lfc_msl_m" and (col.tropopause_m is not None or not col.end_why)) or \
+                (k == "lapse_700_500_k_per_km" and col.p_hpa <= 700.0):
+            continue
+        keys.append(k)
+        w = k.split("_msl")[0].split("_k_per")[0].replace("_", " ")
+        out.append("%s: above the column top (%.0f m)" % (w.upper() if len(w) < 4 else w, top))
+    if col.aloft_m:
+        from lapsecalc.aloft import steep_warnings
+        out.extend(steep_warnings(col))
+    r["levels_above_top"] = keys
+    r["warnings"] = out

@@ -174,7 +174,7 @@ def columns(draw):
     spec.append((None, draw(st.floats(2.0, 9.8))))
     top_m = elev + 9000.0
     try:
-        col = Column(t, td, p, elev, spec, top_m)
+        col = Column(t, td, p, elev, spec, top_m, tropopause_m=None)
     except ValueError:
         assume(False)
     return col, spec

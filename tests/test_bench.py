@@ -32,9 +32,11 @@ def test_bench_quick_run_writes_json(tmp_path):
            "units.")
     assert [e for e in res["cpython"]["errors"] if e.startswith(api)] == []
     calls = res["cpython"]["calls_us"]
-    for name in ("Column.report", "condensation.cloud_base(exact)", "Column(): 1 layer"):
+    for name in ("Column.report", "condensation.cloud_base(exact)", "Column(): 1 layer",
+                 "Column.report(9 points aloft)"):
         assert calls[name] > 0.0, name
-    assert [t["key"] for t in res["targets"]] == ["report_us", "cloud_base_exact_us",
+    assert [t["key"] for t in res["targets"]] == ["report_us", "report_aloft_us",
+                                                  "cloud_base_exact_us",
                                                   "interpreter_lines_per_s"]
     assert [r["layers_given"] for r in res["scaling"]["by_layers"]] == [1, 4, 16]
     assert [r["top_given_m"] for r in res["scaling"]["by_top"]] == [6000, 10000, 16000, 24000]

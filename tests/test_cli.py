@@ -62,7 +62,7 @@ def test_stdin_piped_has_no_prompt_and_stops_at_bye():
     lines = p.stdout.splitlines()
     assert lines[0] == "ok: temp 20 C, dew 10 C"
     assert "lc>" not in p.stdout
-    assert lines[-1].startswith("lcl_p_hpa=")
+    assert lines[-1].startswith("cloud_layers_msl_m=")
     assert "temp 5" not in p.stdout and len([x for x in lines if x == "ok=out"]) == 1
 
 
@@ -72,12 +72,12 @@ def test_cr_and_crlf_line_ends_on_stdin_and_in_e():
     assert p.returncode == 0, p.stderr
     lines = p.stdout.splitlines()
     assert lines[:3] == ["ok: temp 20 C, dew 10 C", "ok: elev 0 ft (0 m)", "ok=out"]
-    assert lines[-1].startswith("lcl_p_hpa=") and "temp 5" not in p.stdout
+    assert lines[-1].startswith("cloud_layers_msl_m=") and "temp 5" not in p.stdout
     p = lapsecalc("-e", "temp 20 dew 10\r\nelev 0\rout kv\r", "-e", "base\r\n")
     assert p.returncode == 0, p.stdout
     lines = p.stdout.splitlines()
     assert lines[:3] == ["ok: temp 20 C, dew 10 C", "ok: elev 0 ft (0 m)", "ok=out"]
-    assert lines[-1].startswith("lcl_p_hpa=")
+    assert lines[-1].startswith("cloud_layers_msl_m=")
 
 
 def test_errors_set_the_status_in_every_mode():

@@ -134,11 +134,17 @@ def test_density_altitude_aloft():
 
 
 def test_steep_elr_ends_at_coldest_allowed():
-    # 9 K/km from 20 degC reaches -90 degC at 12222 m: the column ends there.
-    col = Column(20.0, 10.0, 1000.0, 0.0, 9.0)
+    # 9 K/km from 20 degC reaches -90 degC at 12222 m: with the tropopause turned off
+    # the column ends there, and says so.
+    col = Column(20.0, 10.0, 1000.0, 0.0, 9.0, tropopause_m=None)
     assert abs(col.top_m - 110000.0 / 9.0) < 1e-6
     assert abs(col.t_at(col.top_m) + 90.0) < 1e-9
+    w = col.report()["warnings"][0]
+    assert "12222 m" in w and "-90 degC" in w and "16000 m" in w and "tropopause" in w
     assert Column(20.0, 10.0, 1000.0, 0.0, 9.0, top_m=10000.0).top_m == 10000.0
+    # With the default tropopause (11000 m) it is isothermal above -79 degC instead.
+    col = Column(20.0, 10.0, 1000.0, 0.0, 9.0)
+    assert col.top_m == 16000.0 and abs(col.t_at(16000.0) + 79.0) < 1e-9
 
 
 def test_inversion_too_warm_is_refused():

@@ -97,7 +97,7 @@ def test_thermal_excess_past_60_degc():
     # The warmed parcel is capped at 60 degC (the library's range) for its own cloud
     # base; a 9 K/km column from 55 degC with 10 K of excess still reports thermals
     # (rising to the top: the dry parcel stays warmer than 9 K/km air).
-    r = Column(55.0, 10.0, 1000.0, 0.0, 9.0, top_m=12000.0).report(10.0)
+    r = Column(55.0, 10.0, 1000.0, 0.0, 9.0, top_m=12000.0, tropopause_m=None).report(10.0)
     assert r["thermal_top_msl_m"] is None and r["thermal_kind"] == "cumulus"
 
 

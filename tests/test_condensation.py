@@ -5,6 +5,7 @@ import pytest
 from hypothesis import given, strategies as st
 
 from lapsecalc import cloud_base
+from lapsecalc.moisture import mixing_ratio
 from lapsecalc.condensation import lambert_w_minus1
 from refs import romps_lcl_m, romps_lcl_t_p, romps_pvstar_pa, bisect
 
@@ -132,13 +133,19 @@ def test_spread_rule_temperature_and_pressure():
 
 
 def test_bolton_height_and_pressure():
-    # Bolton's T_L (eq. 15, checked above) with Poisson's equation for p and the
-    # hypsometric equation for z (Wallace & Hobbs ch. 3), computed here.
+    # Bolton's T_L (eq. 15, checked above) with Poisson's equation for p, using
+    # Bolton's moist exponent 0.2854 (1 - 0.28e-3 r), r in g/kg (Bolton 1980 eq. 7),
+    # and the hypsometric equation for z with the mean virtual temperature
+    # (Wallace & Hobbs ch. 3), computed here.
     t, td, p = 26.85, 15.57, 1000.0
     z, t_l, p_l = cloud_base(t, td, p, "bolton")
     t_k, td_k = t + 273.15, td + 273.15
     t_l_ref = 1.0 / (1.0 / (td_k - 56.0) + math.log(t_k / td_k) / 800.0) + 56.0
     assert abs(t_l + 273.15 - t_l_ref) < 1e-9
-    p_ref = p * (t_l_ref / t_k) ** (1004.0 / 287.05287)
+    r_g = mixing_ratio(td, p)                               # g/kg
+    kappa = 0.2854 * (1.0 - 0.28e-3 * r_g)
+    p_ref = p * (t_l_ref / t_k) ** (1.0 / kappa)
     assert abs(p_l - p_ref) < 1e-6
-    assert abs(z - 287.05287 * 0.5 * (t_k + t_l_ref) / 9.80665 * math.log(p / p_ref)) < 1e-6
+    r = r_g / 1000.0
+    tv = 0.5 * (t_k + t_l_ref) * (1.0 + r / (287.05287 / 461.5)) / (1.0 + r)
+    assert abs(z - 287.05287 * tv / 9.80665 * math.log(p / p_ref)) < 1e-6

@@ -31,15 +31,24 @@ def _col(spec):
     return Column(t, td, p, elev, layers, top_m=top)
 
 
+# The Column's default tropopause: isothermal above 11000 m MSL (ICAO Doc 7488/3).
+TROPOPAUSE_M = 11000.0
+
+
 def _layers_msl(spec):
-    # [(bottom_msl, top_msl, t_bottom_c, rate_k_per_km)] from the spec, by hand.
+    # [(bottom_msl, top_msl, t_bottom_c, rate_k_per_km)] from the spec, by hand, the
+    # layer across the tropopause cut there and isothermal above it.
     t, _, _, elev, layers, top, _ = spec
     out, z, tz = [], elev, t
     for top_agl, rate in layers:
         z1 = top if top_agl is None else min(elev + top_agl, top)
-        out.append((z, z1, tz, rate))
-        tz -= rate * (z1 - z) / 1000.0
-        z = z1
+        parts = [(z1, rate)]
+        if z < TROPOPAUSE_M < z1:
+            parts = [(TROPOPAUSE_M, rate), (z1, 0.0)]
+        for zt, rt in parts:
+            out.append((z, zt, tz, rt))
+            tz -= rt * (zt - z) / 1000.0
+            z = zt
     return out
 
 
@@ -291,11 +300,12 @@ def test_field_hazards(main):
 @covers("stability", "stability_layers", "stability_column")
 def test_stability_keys(main):
     col, r, _ = main
-    # Bands of at most 2 km in each layer; each class from the layer's ELR against the
+    # Bands of at most 2 km in each cooling layer (an isothermal layer or an inversion
+    # is stable at any depth: one band); each class from the layer's ELR against the
     # dry rate g/cp and the saturated rate at the band's middle (AMS Glossary, refs.py).
     bands = []
     for z0, z1, t0, rate in _layers_msl(MAIN):
-        n = int(math.ceil((z1 - z0) / 2000.0))
+        n = 1 if rate <= 0.0 else int(math.ceil((z1 - z0) / 2000.0))
         bands += [(z0 + (z1 - z0) * i / n, z0 + (z1 - z0) * (i + 1) / n, rate) for i in range(n)]
     got = r["stability_layers"]
     assert len(got) == len(bands)
@@ -304,11 +314,6 @@ def test_stability_keys(main):
         te = _env_t(MAIN, z) + 273.15
         return -1000.0 * pseudo_adiabatic_dt_dz(te, _env_p(MAIN, z), te)
 
-    def cls(rate, s):
-        if abs(rate - DRY_RATE) <= 0.1 or abs(rate - s) <= 0.1:
-            return "neutral"
-        return "absolutely_unstable" if rate > DRY_RATE else \
-            "absolutely_stable" if rate < s else "conditionally_unstable"
     for (a, b, rate), band in zip(bands, got):
         s = salr(0.5 * (a + b))
         assert band["bottom_msl_m"] == pytest.approx(a) and band["top_msl_m"] == pytest.approx(b)
@@ -316,10 +321,66 @@ def test_stability_keys(main):
         assert abs(band["saturated_k_per_km"] - s) < 0.01
         assert band["class"] == cls(rate, s)
     assert r["stability"] == got[0]["class"] == "conditionally_unstable"
-    if "stability_column" in r:
-        top = r["top_msl_m"]
-        mean = 1000.0 * (MAIN[0] - _env_t(MAIN, top)) / (top - MAIN[3])
-        assert r["stability_column"] == cls(mean, salr(0.5 * (MAIN[3] + top)))
+    assert "stability_column" not in r
+
+
+def _salr(z):
+    te = _env_t(MAIN, z) + 273.15
+    return -1000.0 * pseudo_adiabatic_dt_dz(te, _env_p(MAIN, z), te)
+
+
+def cls(rate, s):
+    # Stability by ELR against the dry and saturated rates (any textbook; REFERENCES.md
+    # "Lapse rates"), neutral split into dry and saturated, within 0.1 K/km.
+    if abs(rate - DRY_RATE) <= 0.1:
+        return "dry_neutral"
+    if abs(rate - s) <= 0.1:
+        return "saturated_neutral"
+    return "absolutely_unstable" if rate > DRY_RATE else \
+        "absolutely_stable" if rate < s else "conditionally_unstable"
+
+
+@covers("lapse_0_3km_k_per_km", "lapse_0_3km_class", "lapse_700_500_k_per_km",
+        "lapse_700_500_class", "tropopause_msl_m")
+def test_lapse_measures_and_tropopause(main):
+    _, r, _ = main
+    # The two lapse rates of common practice, from the hand-built layers: 0-3 km above
+    # the field, and between the heights of 700 and 500 hPa (found by bisection on the
+    # closed-form pressure); classed at the layer's middle.
+    elev = MAIN[3]
+    low = (MAIN[0] - _env_t(MAIN, elev + 3000.0)) / 3.0
+    assert abs(r["lapse_0_3km_k_per_km"] - low) < 1e-9
+    assert r["lapse_0_3km_class"] == cls(low, _salr(elev + 1500.0))
+    z7 = bisect(lambda z: 700.0 - _env_p(MAIN, z), elev, 9000.0)
+    z5 = bisect(lambda z: 500.0 - _env_p(MAIN, z), elev, 9000.0)
+    mid = 1000.0 * (_env_t(MAIN, z7) - _env_t(MAIN, z5)) / (z5 - z7)
+    assert abs(r["lapse_700_500_k_per_km"] - mid) < 1e-6
+    assert r["lapse_700_500_class"] == cls(mid, _salr(0.5 * (z7 + z5)))
+    # MAIN reaches 14000 m: isothermal from 11000 m (ICAO Doc 7488/3's tropopause).
+    assert r["tropopause_msl_m"] == TROPOPAUSE_M
+
+
+@covers("warnings", "levels_above_top", "cloud_layers_msl_m")
+def test_warnings_and_cloud_layers(main):
+    _, r, _ = main
+    # MAIN reaches the top asked for and every level lies inside it: nothing to warn;
+    # no dewpoints aloft: no cloud layers can be placed (None, not []).
+    assert r["warnings"] == [] and r["levels_above_top"] == []
+    assert r["cloud_layers_msl_m"] is None
+    # The same column cut at 3 km: it says where and why, and the levels above it.
+    t, td, p, elev, layers, _, excess = MAIN
+    short = Column(t, td, p, elev, layers[:2] + [(2580.0, 6.5)]).report(excess)
+    assert short["top_msl_m"] == elev + 2580.0
+    assert short["warnings"][0].startswith("The column ends at 3000 m MSL, below the top"
+                                           " asked for (16000 m)")
+    assert "freezing_level_msl_m" in short["levels_above_top"]
+    assert "freezing level: above the column top (3000 m)" in short["warnings"]
+    # Dewpoints aloft: spread 2 K at 2000 m, 11 K at the field and at 4000 m: cloud
+    # where the spread is at most 3 K (common practice), linear between the points.
+    moist = Column(t, td, p, elev, layers, aloft=[(2000.0, 8.0, 6.0), (4000.0, -5.0, -16.0)])
+    (a, b), = moist.report()["cloud_layers_msl_m"]
+    assert abs(a - (elev + (2000.0 - elev) * 8.0 / 9.0)) < 1e-6
+    assert abs(b - (2000.0 + 2000.0 / 9.0)) < 1e-6
 
 
 @covers("cautions")
@@ -464,10 +525,13 @@ def test_icing_band_edges(name):
 
 
 @pytest.mark.parametrize("lapse,want", [(5.1005 + 0.0, "conditionally_unstable"),
-                                         (5.0995, "neutral"), (9.7675 + 0.1005, "absolutely_unstable"),
-                                         (9.7675 + 0.0995, "neutral"), (4.8995, "absolutely_stable")])
+                                         (5.0995, "saturated_neutral"),
+                                         (9.7675 + 0.1005, "absolutely_unstable"),
+                                         (9.7675 + 0.0995, "dry_neutral"),
+                                         (4.8995, "absolutely_stable")])
 def test_neutral_band_is_a_tenth_of_a_kelvin_per_km(lapse, want):
-    # Neutral: within 0.1 K/km of the dry rate (g/cp) or of the saturated rate.
+    # Neutral: within 0.1 K/km of the dry rate (g/cp: dry_neutral) or of the saturated
+    # rate (saturated_neutral).
     from lapsecalc.stability import classify
     assert classify(lapse, 5.0) == want
 

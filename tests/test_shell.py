@@ -371,7 +371,9 @@ def test_queries_text():
         # Spread rule: 125 m per degC of spread (common practice): 14 degC -> 1750 m.
         ("base", [L("base AGL", H(r["cloud_base_agl_m"])),
                   L("base MSL", H(r["cloud_base_msl_m"])), L("LCL temp", T(r["lcl_t_c"])),
-                  L("LCL press", P(r["lcl_p_hpa"])), L("Bolton LCL", H(bolton) + " AGL"),
+                  L("LCL press", P(r["lcl_p_hpa"])),
+                  # No dewpoints aloft: no cloud-layer line (kv and json say None).
+                  L("Bolton LCL", H(bolton) + " AGL"),
                   L("spread rule", H(1750.0) + " AGL")]),
         ("ice", [L("0C level", H(r["freezing_level_msl_m"])),
                  L("-10C level", H(r["minus10_level_msl_m"])),
@@ -393,8 +395,14 @@ def test_queries_text():
                 L("DA", H(r["density_altitude_m"]))]),
         ("stab", [L("lowest layer", " " + r["stability"].replace("conditionally", "cond")
                     .replace("absolutely", "abs").replace("_", " ")),
-                  L("whole column", " " + r["stability_column"].replace("absolutely", "abs")
+                  # The rate and its class on one line.
+                  L("ELR 0-3km", "%7.1f K/km " % r["lapse_0_3km_k_per_km"] +
+                    r["lapse_0_3km_class"].replace("absolutely", "abs")
                     .replace("conditionally", "cond").replace("_", " ")),
+                  L("ELR 700-500", "%7.1f K/km " % r["lapse_700_500_k_per_km"] +
+                    r["lapse_700_500_class"].replace("absolutely", "abs")
+                    .replace("conditionally", "cond").replace("_", " ")),
+                  L("tropopause", H(11000.0)),
                   L("column top", H(16000.0)),
                   "layer ft MSL     ELR SALR K/km"] +
          ["%6d-%-6d %5.1f %4.1f %s" % (
@@ -629,7 +637,8 @@ def test_queries_kv():
         "obs": ("elevation_m", "t_c", "td_c", "rh_pct", "mixing_ratio_g_kg", "wet_bulb_c",
                 "station_pressure_hpa", "qnh_hpa", "pressure_altitude_m",
                 "air_density_kg_m3", "density_altitude_m", "top_msl_m"),
-        "base": ("cloud_base_agl_m", "cloud_base_msl_m", "lcl_t_c", "lcl_p_hpa"),
+        "base": ("cloud_base_agl_m", "cloud_base_msl_m", "lcl_t_c", "lcl_p_hpa",
+                 "cloud_layers_msl_m"),
         "ice": ("freezing_level_msl_m", "freezing_levels_msl_m", "minus10_level_msl_m",
                 "minus10_levels_msl_m", "minus20_level_msl_m", "minus20_levels_msl_m",
                 "warm_layer_aloft", "parcel_freezing_level_msl_m",
@@ -653,8 +662,10 @@ def test_queries_kv():
         x["class"]) for x in r["stability_layers"])
     z = 9500 * 0.3048
     run(s, [
-        ("stab", [KV("stability", r["stability"]), KV("stability_column", r["stability_column"]),
-                  "stability_layers=" + layers]),
+        ("stab", [KV("stability", r["stability"])] +
+         [KV(k, r[k]) for k in ("lapse_0_3km_k_per_km", "lapse_0_3km_class",
+                                "lapse_700_500_k_per_km", "lapse_700_500_class",
+                                "tropopause_msl_m")] + ["stability_layers=" + layers]),
         ("iso -15C", ["iso_t_c=-15", KV("iso_level_msl_m", col.level(-15.0)),
                       KV("iso_levels_msl_m", col.crossings(-15.0))]),
         # The values in force, defaults included and named in "defaults".
@@ -757,8 +768,10 @@ def test_json_mode():
     # Numbers to the stated decimals (heights 0.01 m, temperatures and pressures 0.01).
     assert obj["cloud_base_msl_m"] == round(r["cloud_base_msl_m"], 2)
     assert obj["stability_layers"][0]["class"] == r["stability_layers"][0]["class"]
-    assert json.loads(s.feed("base")[0]) == {k: round(r[k], 2) for k in (
-        "cloud_base_agl_m", "cloud_base_msl_m", "lcl_t_c", "lcl_p_hpa")}
+    # No dewpoints aloft: cloud_layers_msl_m is null.
+    assert json.loads(s.feed("base")[0]) == dict([(k, round(r[k], 2)) for k in (
+        "cloud_base_agl_m", "cloud_base_msl_m", "lcl_t_c", "lcl_p_hpa")] +
+        [("cloud_layers_msl_m", None)])
     for line in s.feed("help") + s.feed("chart"):
         assert isinstance(json.loads(line)["text"], str)
     assert [json.loads(x) for x in s.feed("temp 27 dew 12")] == [{"ok": ["temp", "dew"]}]

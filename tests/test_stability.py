@@ -69,8 +69,16 @@ def test_classes_at_known_rates():
     assert classify(10.5, 5.0) == "absolutely_unstable"
     assert classify(3.0, 4.0) == "absolutely_stable"
     assert classify(6.5, 5.0) == "conditionally_unstable"
-    assert classify(DRY_LAPSE_K_PER_KM + 0.05, 5.0) == "neutral"
-    assert classify(5.05, 5.0) == "neutral"
+    # Neutral is split: at the dry rate for unsaturated air, at the saturated rate for
+    # saturated air (within 0.1 K/km either way).
+    assert classify(DRY_LAPSE_K_PER_KM + 0.09, 5.0) == "dry_neutral"
+    assert classify(DRY_LAPSE_K_PER_KM - 0.09, 5.0) == "dry_neutral"
+    assert classify(DRY_LAPSE_K_PER_KM + 0.11, 5.0) == "absolutely_unstable"
+    assert classify(DRY_LAPSE_K_PER_KM - 0.11, 5.0) == "conditionally_unstable"
+    assert classify(5.09, 5.0) == "saturated_neutral"
+    assert classify(4.91, 5.0) == "saturated_neutral"
+    assert classify(4.89, 5.0) == "absolutely_stable"
+    assert classify(5.11, 5.0) == "conditionally_unstable"
 
 
 def test_column_classes_use_local_saturated_rate():

@@ -215,7 +215,7 @@ def check_column():
         put("parcel.%s.n" % key, len(levels))
         put("parcel.%s.last" % key, levels[-1])
         put("parcel.%s.level_m5" % key, parcel.level(col, levels, -5.0, lcl))
-        put("stability.%s.column" % key, stability.whole_column(col))
+        put("stability.%s.lapses" % key, stability.lapse_measures(col))
         put("stability.%s.thermal" % key, stability.thermal_top(col, 3.0))
         put("stability.%s.ccl" % key, stability.ccl(col, levels))
         put("stability.%s.li700" % key, stability.lifted_index(col, levels, lcl, 700.0))
@@ -261,6 +261,48 @@ def check_hazards():
     capped = Column(10.0, 9.0, 1000.0, 0.0, [(600.0, 9.77), (900.0, -5.0), (None, 6.5)])
     put("hazards.capped", capped.report(1.0))
     refused("hazards.frost_warm", hazards.frost_point, 2.0)
+
+
+# Invented points aloft over an invented field: by height and by pressure, some with
+# dewpoints (a moist layer near 700 hPa), one point above the tropopause.
+ALOFT = [(914.4, 9.0, 2.0), (1828.8, 4.0, None), (850.0, 11.0, 5.0, "hPa"),
+         (700.0, -1.0, -2.5, "hPa"), (5486.4, -14.0, -30.0), (500.0, -19.0, None, "hPa"),
+         (12500.0, -58.0, None)]
+
+
+def check_aloft():
+    if not has("aloft"):
+        print("# aloft.py absent: skipped")
+        return
+    from lapsecalc import aloft
+    col = Column.from_qnh(16.0, 6.0, 1012.0, 180.0, 6.5, 16000.0, ALOFT)
+    rep = col.report()
+    # Each pressure point lands where the column's own pressure is it (0.01 hPa).
+    for z in col.aloft_m:
+        assert z > 180.0
+    assert near(col.p_at(col.z_at(700.0)), 700.0, 0.01)
+    assert rep["tropopause_msl_m"] == 12500.0
+    put("aloft.report", rep)
+    put("aloft.layers", col.layers)
+    put("aloft.dews", col.dews)
+    put("aloft.at", [(col.t_at(z), col.p_at(z), col.dewpoint_at(z), col.density_at(z))
+                     for z in (500.0, 2500.0, 3100.0, 6000.0, 14000.0)])
+    put("aloft.cloud", aloft.cloud_layers(col))
+    put("aloft.resolve", aloft.resolve(ALOFT, 0.0, 290.0, 1013.25, 16000.0))
+    # Without a tropopause, a short layered column: the warnings say where and why.
+    short = Column(30.0, 10.0, 1000.0, 0.0, [(1500.0, 8.0), (3000.0, 6.0)])
+    put("aloft.short", short.report()["warnings"])
+    cold = Column(20.0, 10.0, 1000.0, 0.0, 9.0, 16000.0, None, None)
+    put("aloft.cold", (cold.top_m, cold.report()["warnings"]))
+    refused("aloft.dup", Column, 15.0, 5.0, 1000.0, 100.0, 6.5, 16000.0,
+            [(1000.0, 5.0, None), (1000.0, 3.0, None)])
+    refused("aloft.dew", Column, 15.0, 5.0, 1000.0, 100.0, 6.5, 16000.0, [(2000.0, 5.0, 6.0)])
+    refused("aloft.below", Column, 15.0, 5.0, 1000.0, 100.0, 6.5, 16000.0,
+            [(1010.0, 5.0, None, "hPa")])
+    refused("aloft.nan", Column, 15.0, 5.0, 1000.0, 100.0, 6.5, 16000.0,
+            [(float("nan"), 5.0, None)])
+    refused("aloft.top", Column, 15.0, 5.0, 1000.0, 100.0, 6.5, 16000.0,
+            [(20.0, -60.0, None, "hPa")])
 
 
 def check_station():
@@ -335,6 +377,9 @@ def main():
     check_limits()
     check_column()
     check_hazards()
+
+
+    check_aloft()
     check_station()
     check_balloon()
     check_shell()

@@ -57,8 +57,11 @@ WORD_FACTOR = 1.5
 # --check enforces (the goal is not met yet: README "Memory on a board"). Lower a
 # ceiling when memory work lands; never raise one to land: make the new word lazy
 # (imported by the word, dropped after) or cheaper.
-CEILINGS = {"board_session_heap_bytes": 160 * KIB, "board_report_heap_bytes": 97 * KIB,
-            "unix_session_kib": 184, "unix_report_kib": 86}
+# Raised for the tropopause, points aloft, warnings and lapse measures of every report
+# (lead's rule of 08:58: by what the feature measurably costs): session (a) 160 -> 164
+# KiB (measured +3.2 KiB: 158.2 -> 161.4), (b) 184 -> 198 KiB (measured +13: 183 -> 196).
+CEILINGS = {"board_session_heap_bytes": 164 * KIB, "board_report_heap_bytes": 97 * KIB,
+            "unix_session_kib": 198, "unix_report_kib": 86}
 SESSION_FILE = os.path.join(MPY_DIR, "board_session.txt")
 
 

@@ -239,6 +239,7 @@ def _illinois(f, a, fa, b, fb, what="the convective condensation level"):
 def add_to_report(col, levels, r, excess_c=0.0):
     """Add the stability, parcel and thermal keys to report dict r (lapsecalc.hazards
     adds the thermals' cloud base, usable top and capped decks)."""
+    excess_c = check("excess_c", excess_c, 0.0, 10.0, "K")
     lcl = r["cloud_base_msl_m"]
     per_layer = layers(col)
     r["stability"] = per_layer[0]["class"]

@@ -64,6 +64,7 @@ DEFAULT_TESTS = {
                  "test_metar.py"],
     "typed": ["test_typed.py", "test_settings_limits.py", "test_shell.py", "test_units.py"],
     "metar": ["test_metar.py", "test_settings_limits.py", "test_shell.py"],
+    "indicated": ["test_altimetry.py", "test_report_keys.py", "test_float32.py"],
     "altimetry": ["test_altimetry.py", "test_column.py", "test_shell.py"],
     "hazards": ["test_hazards.py", "test_stability.py", "test_column.py", "test_shell.py"],
 }

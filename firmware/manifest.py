@@ -9,6 +9,7 @@ package(
     "lapsecalc",
     files=(
         "aloft.py",
+        "altimetry.py",
         "balloon.py",
         "balloontext.py",
         "chart.py",
@@ -16,6 +17,7 @@ package(
         "demo.py",
         "groups.py",
         "helptext.py",
+        "indicated.py",
         "layout.py",
         "loadtable.py",
         "metar.py",

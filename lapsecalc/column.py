@@ -149,10 +149,11 @@ class Column:
 
     def _layer(self, z_m):
         z = finite("z_m", z_m)
-        # A millimetre of rounding at either end is the end itself.
-        if self.elev_m - 0.001 <= z < self.elev_m:
+        # A millimetre of rounding at either end is the end itself (the differences are
+        # computed only outside: a board allocates every float).
+        if z < self.elev_m and self.elev_m - z <= 0.001:
             z = self.elev_m
-        elif self.top_m < z <= self.top_m + 0.001:
+        elif z > self.top_m and z - self.top_m <= 0.001:
             z = self.top_m
         z = check("z_m", z, self.elev_m, self.top_m, "m MSL (the column)")
         for layer in self.layers:
@@ -244,14 +245,24 @@ class Column:
         """(height_agl_m, t_c, p_hpa) of the surface parcel's LCL (condensation.cloud_base)."""
         return cloud_base(self.t_c, self.td_c, self.p_hpa, method)
 
-    def report(self, thermal_excess_c=0.0):
+    def report(self, thermal_excess_c=0.0, altimetry=True):
         """Every result for this column as a dict of plain values with units in the keys;
         None where a level does not exist in the column. The hazard keys and a caution
         per hazard (lapsecalc.hazards) come when that module is installed (on CPython;
         not yet on a board), the general cautions always. levels_above_top
         names the keys whose None means "above the column top" and warnings says so in
-        words, with why the column ends below the top asked for (stability.add_warnings)."""
+        words, with why the column ends below the top asked for (stability.add_warnings).
+        altimetry: add the keys of lapsecalc.indicated (indicated_altitude_m,
+        isa_deviation_c, density_altitude_dry_m) when that module is installed; they cost
+        a board about 4 KB of heap."""
         from lapsecalc import stability, parcel
+        altimetry_keys = None
+        if altimetry:
+            # Loaded first, while the heap is not yet cut up by the parcel path.
+            try:
+                from lapsecalc.indicated import add_to_report as altimetry_keys
+            except ImportError:
+                pass
         lcl_agl, lcl_t, lcl_p = self.cloud_base()
         lcl_msl = self.elev_m + lcl_agl
         path = parcel.path(self, lcl_msl)
@@ -292,8 +303,14 @@ class Column:
             from lapsecalc import hazards
         except (ImportError, AttributeError):  # a board: the hazards module is not there
             r["cautions"] = stability.CAUTIONS
-            return r
-        hazards.add_to_report(self, path, r)
+        else:
+            hazards.add_to_report(self, path, r)
+        # Last, so that it sees every height key: indicated altitudes, the ISA deviation
+        # and the dry density altitude (indicated.py, an extra: a core-only board gets
+        # the rest of the report and keeps within its memory budget).
+        if altimetry_keys is not None:
+            path = None  # free the parcel path first (a board's heap is small)
+            altimetry_keys(self, r)
         return r
 
 

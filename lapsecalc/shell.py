@@ -235,7 +235,9 @@ class Session:
         """The current Column.report() (computed once per state)."""
         col = self.column(word)
         if self._rep is None:
-            self._rep = col.report(self.state.get("excess_c", 0.0))
+            # Without the altimetry keys: no word shows them yet, and a board's session
+            # heap has no room for them (bench/mpy_budget.py).
+            self._rep = col.report(self.state.get("excess_c", 0.0), False)
             # On a board the report kept is packed low in the heap (state.settle).
             settle(self._rep)
         return self._rep

@@ -23,6 +23,7 @@ CLOUD_BASE_M = 2.0
 FREEZING_LEVEL_M = 5.0
 DENSITY_ALTITUDE_M = 5.0
 QNH_HPA = 0.1
+INDICATED_M = 1.0
 CAPE_REL = 0.02
 CAPE_J_KG = 5.0
 
@@ -34,7 +35,8 @@ WORST = {}
 def s():
     f32.CAPS.clear()
     pkg = f32.load("constants", "limits", "units", "moisture", "standard", "condensation",
-                   "adiabats", "column", "parcel", "stability", "station")
+                   "adiabats", "column", "parcel", "stability", "station", "indicated",
+                   "altimetry")
     return pkg
 
 
@@ -164,6 +166,36 @@ def test_column_reports(s):
         e = _err("cape_j_kg", got["cape_j_kg"], cape)
         WORST["cape_rel"] = max(WORST.get("cape_rel", 0.0), e / cape if cape > 0 else 0.0)
         assert e <= max(CAPE_REL * cape, CAPE_J_KG), (args, got["cape_j_kg"], cape)
+
+
+def test_altimetry(s):
+    # Indicated altitude, its inverse and the report's indicated heights to a metre
+    # (INDICATED_M); the cold-temperature correction to a decimetre.
+    import lapsecalc_f32.altimetry as a
+    import lapsecalc.altimetry as d
+    for args, want, got in _reports(s):
+        assert set(got["indicated_altitude_m"]) == set(want["indicated_altitude_m"]), args
+        for k, zd in want["indicated_altitude_m"].items():
+            assert (got["indicated_altitude_m"][k] is None) == (zd is None), (k, args)
+            if zd is not None:
+                assert _err("indicated_m", got["indicated_altitude_m"][k], zd) < INDICATED_M
+        assert _err("isa_deviation_c", got["isa_deviation_c"], want["isa_deviation_c"]) < 0.01
+        assert _err("density_altitude_m", got["density_altitude_dry_m"],
+                    want["density_altitude_dry_m"]) < DENSITY_ALTITUDE_M, args
+    import lapsecalc_f32.column as c
+    for args in COLUMNS:
+        cs, cd = c.Column(*args), d_column.Column(*args)
+        for frac in (0.0, 0.01, 0.3, 0.7, 0.999, 1.0):
+            z = cd.elev_m + frac * (cd.top_m - cd.elev_m)
+            ind = d.indicated_altitude_at(cd, z)
+            ind_s = a.indicated_altitude_at(cs, z)
+            assert _err("indicated_m", ind_s, ind) < INDICATED_M
+            # The board's own reading back (the double one may lie a hair past its top).
+            assert _err("true_altitude_m", a.true_altitude_of(cs, ind_s), z) < INDICATED_M
+    for h in (30.0, 300.0, 1500.0):
+        for t in (-50.0, -20.0, 0.0):
+            assert _err("cold_correction_m", a.cold_temperature_correction(h, t, 600.0),
+                        d.cold_temperature_correction(h, t, 600.0)) < 0.1
 
 
 def test_station_line_values(s):

@@ -119,6 +119,12 @@ def test_core_imports_only_core():
         assert m in core and not (extras & core)
 
 
+def test_optional_import_is_seen_as_optional():
+    # column.report() tries indicated.py, only under "except ImportError".
+    assert "indicated" in _lapsecalc_imports("column")
+    assert "indicated" not in _lapsecalc_imports("column", optional_too=False)
+
+
 def test_board_modules_never_import_cpython_only_ones():
     board = set(boardset.board_modules())
     for m in board:
@@ -133,6 +139,8 @@ INTERPRETER_LAYERS = (
     ("settings", "queries", "commands"),
     ("layout", "chart", "metar", "helptext", "loadtable", "balloontext"),
     ("balloon", "groups", "output", "state", "typed", "hazardtext"),
+    ("altimetry",),  # library extras over the core: altimetry.py over indicated.py,
+    ("indicated",),  # which column.report() tries under "except ImportError"
 )
 
 

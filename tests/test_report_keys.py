@@ -136,6 +136,39 @@ def test_pressures_and_density(main):
     assert abs(r["density_altitude_m"] - da) < 0.5
 
 
+def _isa_pa_m(p):
+    # Pressure altitude, ICAO Doc 7488/3: troposphere closed form, isothermal 216.65 K
+    # above 11 km (226.32 hPa, REFERENCES.md table) up to 20 km.
+    if p >= 226.32:
+        return ISA_T0 / ISA_L * (1 - (p / ISA_P0) ** (RD * ISA_L / G0))
+    return 11000.0 + RD * 216.65 / G0 * math.log(226.3206 / p)
+
+
+@covers("isa_deviation_c", "density_altitude_dry_m", "indicated_altitude_m")
+def test_altimetry_keys(main):
+    _, r, _ = main
+    t, td, p, elev = MAIN[:4]
+    # ISA temperature at the field's pressure altitude (ICAO Doc 7488/3).
+    pa = _isa_pa_m(p)
+    assert abs(r["isa_deviation_c"] - (t - (15.0 - ISA_L * pa))) < 1e-6
+    # Dry air: rho = p / (R T), then the ISA height of that density (closed form).
+    rho = 100.0 * p / (RD * (t + 273.15))
+    da = ISA_T0 / ISA_L * (1.0 - (rho / ISA_RHO0) ** (1.0 / (G0 / (RD * ISA_L) - 1.0)))
+    assert abs(r["density_altitude_dry_m"] - da) < 0.5
+    assert r["density_altitude_dry_m"] < r["density_altitude_m"]  # humid air is lighter
+    # An altimeter on QNH reads PA(p) - PA(QNH) (REFERENCES.md "Altimetry"), p from the
+    # closed-form layers; every single height of the report, None kept.
+    ind = r["indicated_altitude_m"]
+    singles = [k for k in r if k.endswith("_msl_m") and not isinstance(r[k], list)]
+    assert sorted(ind) == sorted(singles) and "cloud_base_msl_m" in ind
+    for k in singles:
+        if r[k] is None:
+            assert ind[k] is None, k
+        else:
+            want = _isa_pa_m(_env_p(MAIN, r[k])) - _isa_pa_m(r["qnh_hpa"])
+            assert abs(ind[k] - want) < 0.5, k
+
+
 @covers("cloud_base_agl_m", "cloud_base_msl_m", "lcl_t_c", "lcl_p_hpa")
 def test_cloud_base(main):
     col, r, _ = main

@@ -305,6 +305,36 @@ def check_aloft():
             [(20.0, -60.0, None, "hPa")])
 
 
+def check_altimetry():
+    if not has("altimetry"):
+        print("# altimetry.py absent: skipped")
+        return
+    from lapsecalc import altimetry
+    # ICAO Doc 7488/3: 701.09 hPa is 3000 m (FL98.4).
+    fl = altimetry.flight_level(701.09)
+    assert near(fl, 3000.0 / 30.48, 0.01)
+    # REFERENCES.md "Altimetry" (PANS-OPS formula, computed): 1000 m, -20 degC -> 122.9 m.
+    cc = altimetry.cold_temperature_correction(1000.0, -20.0, 0.0)
+    assert near(cc, 122.9, 0.06)
+    put("altimetry.fl", (fl, altimetry.flight_level(1050.0), altimetry.flight_level(50.0)))
+    put("altimetry.cold", (cc, altimetry.cold_temperature_correction(500.0, -20.0, 1000.0),
+                           altimetry.cold_temperature_correction(150.0, 25.0, -200.0)))
+    for key, t, td, p, elev, lapse, top in columns():
+        col = Column(t, td, p, elev, lapse, top)
+        zm = 0.5 * (col.elev_m + col.top_m)
+        ind = altimetry.indicated_altitude_at(col, zm)
+        z = altimetry.true_altitude_of(col, ind)
+        # An altimeter on QNH reads the elevation at the field (ICAO Annex 3).
+        assert near(altimetry.indicated_altitude_at(col, elev), elev, 0.01)
+        assert near(z, zm, 0.1)
+        fl_mid = int(altimetry.flight_level(col.p_at(zm)))
+        put("altimetry.%s" % key, (ind, z, altimetry.isa_deviation_at(col, zm),
+                                   altimetry.z_at_flight_level(col, fl_mid),
+                                   altimetry.column_cold_correction(col, 300.0)))
+    refused("altimetry.fl", altimetry.flight_level, 2000.0)
+    refused("altimetry.cold", altimetry.cold_temperature_correction, -1.0, -10.0, 0.0)
+
+
 def check_station():
     if not has("station"):
         print("# station.py absent: skipped")
@@ -380,6 +410,7 @@ def main():
 
 
     check_aloft()
+    check_altimetry()
     check_station()
     check_balloon()
     check_shell()

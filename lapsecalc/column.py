@@ -149,11 +149,10 @@ class Column:
 
     def _layer(self, z_m):
         z = finite("z_m", z_m)
-        # A millimetre of rounding at either end is the end itself (the differences are
-        # computed only outside: a board allocates every float).
-        if z < self.elev_m and self.elev_m - z <= 0.001:
+        # A millimetre of rounding at either end is the end itself.
+        if self.elev_m - 0.001 <= z < self.elev_m:
             z = self.elev_m
-        elif z > self.top_m and z - self.top_m <= 0.001:
+        elif self.top_m < z <= self.top_m + 0.001:
             z = self.top_m
         z = check("z_m", z, self.elev_m, self.top_m, "m MSL (the column)")
         for layer in self.layers:

@@ -44,7 +44,8 @@ def layer_pressure(p0_hpa, t0_k, grad_k_per_m, dz_m):
     """Hydrostatic pressure, hPa, dz_m above a level (p0_hpa, t0_k) in air whose
     temperature changes linearly by grad_k_per_m; exact for any gradient, zero too:
     ln(p0/p) = g dz / (R T0) * ln(1 + u)/u with u = grad dz / T0."""
-    return p0_hpa * exp(-G0 * dz_m / (R_DRY * t0_k) * ratio_ln(grad_k_per_m * dz_m / t0_k))
+    # p0 / exp(x), not p0 * exp(-x): a board allocates the negated float too.
+    return p0_hpa / exp(G0 * dz_m / (R_DRY * t0_k) * ratio_ln(grad_k_per_m * dz_m / t0_k))
 
 
 def layer_height(p0_hpa, t0_k, grad_k_per_m, p_hpa):
@@ -86,10 +87,15 @@ def pressure_altitude(p_hpa):
     ISA pressures at 32000 and -1000 m). Exact inverse of isa() through every layer.
     """
     p = check("p_hpa", p_hpa, 8.68, 1139.3, "hPa")
-    for h in (20000.0, 11000.0, 0.0):
-        base, t0, grad, p0 = _isa_layer(h)
-        if p <= p0 or h == 0.0:
-            return base + layer_height(p0, t0, grad, p)
+    # The troposphere first: its closed form needs no upper layer (cheap on a board);
+    # pressure falls with height, so a height past a layer's top is in a layer above.
+    h = layer_height(ISA_P0_HPA, ISA_T0_K, -ISA_LAPSE_K_PER_M, p)
+    for layer_m in _BASES_M[1:]:
+        if h <= layer_m:
+            break
+        base, t0, grad, p0 = _isa_layer(layer_m)
+        h = base + layer_height(p0, t0, grad, p)
+    return h
 
 
 def station_pressure(qnh_hpa, elev_m):
@@ -137,22 +143,28 @@ def air_density(p_hpa, t_c, td_c=None):
     return _density(p, t, min(_es_water(td), 0.5 * p))
 
 
+def _height_of_density(rho_kg_m3, h_m):
+    # The height, m, of density rho_kg_m3 by the equation of the ISA layer holding h_m.
+    base, t0, grad, p0 = _isa_layer(h_m)
+    rho0 = 100.0 * p0 / (R_DRY * t0)
+    if grad == 0.0:
+        return base + R_DRY * t0 / G0 * log(rho0 / rho_kg_m3)
+    # rho = rho0 (T/T0)^(-g/(R grad) - 1), solved for T, then z from T.
+    return base + (t0 * pow(rho_kg_m3 / rho0, -1.0 / (G0 / (R_DRY * grad) + 1.0)) - t0) / grad
+
+
 def isa_height_of_density(rho_kg_m3):
     """The ISA geopotential height, m, whose density is rho_kg_m3 (troposphere
     extended below -1000 m; refused above 32000 m). rho_kg_m3 0.0132..2.5."""
     rho_kg_m3 = check("rho_kg_m3", rho_kg_m3, _RHO_MIN_KG_M3, _RHO_MAX_KG_M3, "kg/m3")
-    for h in (20000.0, 11000.0, 0.0):
-        base, t0, grad, p0 = _isa_layer(h)
-        rho0 = 100.0 * p0 / (R_DRY * t0)
-        if rho_kg_m3 <= rho0:
-            break
-    if grad == 0.0:
-        z = R_DRY * t0 / G0 * log(rho0 / rho_kg_m3)
-    else:
-        # rho = rho0 (T/T0)^(-g/(R grad) - 1), solved for T, then z from T.
-        t = t0 * pow(rho_kg_m3 / rho0, -1.0 / (G0 / (R_DRY * grad) + 1.0))
-        z = (t - t0) / grad
-    z += base
+    # The troposphere first: its closed form needs no upper layer (cheap on a board);
+    # density falls with height through every layer, so a height past a layer's top
+    # belongs to a layer above.
+    z = _height_of_density(rho_kg_m3, 0.0)
+    if z > _BASES_M[1]:
+        z = _height_of_density(rho_kg_m3, _BASES_M[1])
+        if z > _BASES_M[2]:
+            z = _height_of_density(rho_kg_m3, _BASES_M[2])
     if z > ISA_MAX_M:
         raise ValueError("rho_kg_m3=%.4g is below the ISA density at %g m; allowed %.4f..%g"
                          " kg/m3" % (rho_kg_m3, ISA_MAX_M, isa(ISA_MAX_M)[2], _RHO_MAX_KG_M3))

@@ -44,8 +44,7 @@ def layer_pressure(p0_hpa, t0_k, grad_k_per_m, dz_m):
     """Hydrostatic pressure, hPa, dz_m above a level (p0_hpa, t0_k) in air whose
     temperature changes linearly by grad_k_per_m; exact for any gradient, zero too:
     ln(p0/p) = g dz / (R T0) * ln(1 + u)/u with u = grad dz / T0."""
-    # p0 / exp(x), not p0 * exp(-x): a board allocates the negated float too.
-    return p0_hpa / exp(G0 * dz_m / (R_DRY * t0_k) * ratio_ln(grad_k_per_m * dz_m / t0_k))
+    return p0_hpa * exp(-G0 * dz_m / (R_DRY * t0_k) * ratio_ln(grad_k_per_m * dz_m / t0_k))
 
 
 def layer_height(p0_hpa, t0_k, grad_k_per_m, p_hpa):

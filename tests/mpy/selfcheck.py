@@ -407,8 +407,6 @@ def main():
     check_limits()
     check_column()
     check_hazards()
-
-
     check_aloft()
     check_altimetry()
     check_station()

@@ -341,7 +341,7 @@ def test_cold_warnings():
     # Cold aloft over a hot field: 16 km is more than 10 K colder than ISA, yet the warm
     # air below makes the altimeter read low there: no warning.
     hot = Column.from_qnh(27.0, 13.0, 1016.0, 411.48, [(250.0, 9.5), (2400.0, 7.5),
-                                                        (None, 6.5)], 16000.0)
+                                                        (None, 6.5)], 16000.0, None, None)
     rh = hot.report()
     assert alt.isa_deviation_at(hot, 16000.0) < -15.0
     assert rh["indicated_altitude_m"]["top_msl_m"] < 16000.0

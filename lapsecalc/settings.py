@@ -28,6 +28,32 @@ _HOT_T_C = 50.0
 _HOT_TD_C = 32.0
 
 
+def parse_level(tok):
+    """A level as typed: a height with its unit ("3000ft", "914m", "2.5km": m MSL),
+    a flight level ("FL180": pressure altitude in hundreds of feet) or a pressure
+    ("700hPa", "700mb"). Returns ("z", m MSL), ("fl", flight level) or ("p", hPa);
+    ValueError naming the token. A flight level's pressure: fl_pressure_hpa()."""
+    t = tok.lower()
+    if t[:2] == "fl":
+        if not (t[2:].isdigit() and 0 < len(t) - 2 <= 3):
+            raise ValueError("'%s' is not a flight level; accepted FL0..FL999" % shown(tok))
+        return "fl", int(t[2:])
+    kind = unit_of(tok, None) if tok[:1] in "+-.0123456789" else None
+    if kind in ("m", "ft", "km"):
+        return "z", number(tok, "h", None)
+    if kind in ("hpa", "mb", "mbar", "inhg", "mmhg", "kpa"):
+        return "p", number(tok, "p", None)
+    raise ValueError("'%s' is not a level; accepted a height with its unit (3000ft,"
+                     " 914m, 2.5km), a flight level (FL180) or a pressure (700hPa)" % shown(tok))
+
+
+def fl_pressure_hpa(fl):
+    """The pressure, hPa, of flight level fl: the ICAO standard atmosphere's pressure at
+    fl hundred feet (ICAO Doc 7488/3)."""
+    from lapsecalc.standard import isa
+    return isa(fl * 30.48)[1]
+
+
 def _sig(x):
     # A derived amount at a sensible precision: 680, 12.3, 0.45.
     return ("%.0f" if x >= 100.0 else "%.1f" if x >= 10.0 else "%.2f") % x

@@ -66,6 +66,7 @@ DEFAULT_TESTS = {
     "metar": ["test_metar.py", "test_settings_limits.py", "test_shell.py"],
     "indicated": ["test_altimetry.py", "test_report_keys.py", "test_float32.py"],
     "altimetry": ["test_altimetry.py", "test_column.py", "test_shell.py"],
+    "altitext": ["test_shell_altimetry.py", "test_shell_values.py", "test_shell.py"],
     "hazards": ["test_hazards.py", "test_stability.py", "test_column.py", "test_shell.py"],
 }
 COPY = ("lapsecalc", "tests", "bench", "README.md", "DEVELOPERS.md", "pyproject.toml")

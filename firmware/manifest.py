@@ -10,6 +10,7 @@ package(
     files=(
         "aloft.py",
         "altimetry.py",
+        "altitext.py",
         "balloon.py",
         "balloontext.py",
         "chart.py",

@@ -1,4 +1,5 @@
-"""The interpreter's session words: clear, unit, out, help, bye (runs on MicroPython)."""
+"""The interpreter's session words: clear, unit, heights, out, help, bye (runs on
+MicroPython)."""
 # Sources: none; they change the session's state, display units, output mode or end it.
 #
 # A session word is f(session, word, args) -> output lines, like a query, but it may
@@ -39,6 +40,11 @@ def _unit(s, w, args):
                                       "hPa" if disp["p"] == "hpa" else "inHg"), ["unit"])
 
 
+def _heights(s, w, args):
+    from lapsecalc.altitext import heights_word
+    return heights_word(s, w, args)
+
+
 def _out(s, w, args):
     mode = args[0].lower() if len(args) == 1 else ""
     if mode not in ("text", "kv", "json"):
@@ -71,4 +77,5 @@ def _bye(s, w, args):
 
 
 # session word -> f(session, word, args) -> output lines
-COMMANDS = {"clear": _clear, "unit": _unit, "out": _out, "help": _help, "bye": _bye}
+COMMANDS = {"clear": _clear, "unit": _unit, "heights": _heights, "out": _out, "help": _help,
+            "bye": _bye}

@@ -7,8 +7,8 @@ MicroPython)."""
 # query word (or result kind) -> its result keys, in the order shown
 GROUPS = {
     "obs": ("elevation_m", "t_c", "td_c", "rh_pct", "mixing_ratio_g_kg", "wet_bulb_c",
-            "station_pressure_hpa", "qnh_hpa", "pressure_altitude_m", "air_density_kg_m3",
-            "density_altitude_m", "top_msl_m"),
+            "station_pressure_hpa", "qnh_hpa", "pressure_altitude_m", "isa_deviation_c",
+            "air_density_kg_m3", "density_altitude_dry_m", "density_altitude_m", "top_msl_m"),
     "base": ("cloud_base_agl_m", "cloud_base_msl_m", "lcl_t_c", "lcl_p_hpa",
              "cloud_layers_msl_m"),
     "ice": ("freezing_level_msl_m", "freezing_levels_msl_m", "minus10_level_msl_m",
@@ -20,7 +20,8 @@ GROUPS = {
     "frost": ("t_c", "td_c", "frost_point_c", "rh_ice_pct", "fog_risk", "ice_fog_risk",
               "carb_icing"),
     "da": ("elevation_m", "station_pressure_hpa", "qnh_hpa", "pressure_altitude_m",
-           "air_density_kg_m3", "density_altitude_m"),
+           "isa_deviation_c", "air_density_kg_m3", "density_altitude_dry_m",
+           "density_altitude_m"),
     "stab": ("stability", "lapse_0_3km_k_per_km", "lapse_0_3km_class",
              "lapse_700_500_k_per_km", "lapse_700_500_class", "tropopause_msl_m",
              "stability_layers"),
@@ -29,7 +30,8 @@ GROUPS = {
     "thermal": ("thermal_excess_c", "thermal_top_msl_m", "thermal_cloud_base_msl_m",
                 "thermal_usable_top_msl_m", "thermal_kind", "capped_cloud_top_msl_m",
                 "dry_thermals_from_t_c", "ccl_msl_m", "trigger_t_c"),
-    "at": ("at_msl_m", "at_t_c", "at_p_hpa", "at_vapour_pressure_hpa", "at_air_density_kg_m3",
+    "at": ("at_msl_m", "at_indicated_m", "at_pressure_altitude_m", "at_isa_deviation_c", "at_t_c",
+           "at_p_hpa", "at_vapour_pressure_hpa", "at_air_density_kg_m3",
            "at_density_altitude_m", "at_parcel_t_c"),
     "iso": ("iso_t_c", "iso_level_msl_m", "iso_levels_msl_m"),
     # Working-temperature figures first, the absolute limit (at the maximum) after.

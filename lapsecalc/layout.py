@@ -7,13 +7,15 @@ from lapsecalc.output import f_h, f_t, f_dt, f_p, wrap as wrap_text
 from lapsecalc.state import dewpoint_of, STANDARD_QNH_HPA, ISA_LAPSE_K_PER_KM, DEFAULT_TOP_M
 
 # A new result key: its label and kind here (LABELS), its place in lapsecalc.groups.
-# Report key -> (label, kind) for text mode. Kinds: z height MSL (ztop: the icing
-# band's top, "unknown" when its basis is air), a height AGL,
-# alt an altitude, zl list of heights, t temperature, dt temperature difference,
-# p pressure, ph pressure always in hPa (aloft, vapour), rho density, pct, gkg, jkg,
-# b yes/no, s word, until the dry-thermal trigger sentence.
+# Report key -> (label, kind) for text mode. Kinds: z a level, shown true MSL or, after
+# "heights ind", indicated on QNH (IND) (ztop: the icing band's top, "unknown" when its
+# basis is air); zt always true MSL; a height AGL; i indicated on QNH; pa pressure
+# altitude (with its flight level); alt another altitude (density); zl list of levels,
+# t temperature, dt temperature difference, p pressure, ph pressure always in hPa
+# (aloft, vapour), rho density, pct, gkg, jkg, b yes/no, s word, until the dry-thermal
+# trigger sentence.
 LABELS = {
-    "elevation_m": ("elevation", "z"),
+    "elevation_m": ("elevation", "zt"),
     "top_msl_m": ("column top", "z"),
     "t_c": ("temp", "t"),
     "td_c": ("dewpoint", "t"),
@@ -22,11 +24,14 @@ LABELS = {
     "wet_bulb_c": ("wet bulb", "t"),
     "station_pressure_hpa": ("station p", "p"),
     "qnh_hpa": ("QNH", "p"),
-    "pressure_altitude_m": ("press alt", "alt"),
+    "pressure_altitude_m": ("press alt", "pa"),
     "air_density_kg_m3": ("density", "rho"),
-    "density_altitude_m": ("DA", "alt"),
-    "cloud_base_agl_m": ("base AGL", "a"),
-    "cloud_base_msl_m": ("base MSL", "z"),
+    "isa_deviation_c": ("ISA dev", "dt"),
+    # Dry: what flight-manual charts use; humid: the air as it is (higher).
+    "density_altitude_dry_m": ("DA dry", "alt"),
+    "density_altitude_m": ("DA humid", "alt"),
+    "cloud_base_agl_m": ("base", "a"),
+    "cloud_base_msl_m": ("base", "z"),
     "lcl_t_c": ("LCL temp", "t"),
     "lcl_p_hpa": ("LCL press", "ph"),
     "freezing_level_msl_m": ("0C level", "z"),
@@ -56,12 +61,15 @@ LABELS = {
     "thermal_kind": ("thermals", "s"),
     "ccl_msl_m": ("CCL", "z"),
     "trigger_t_c": ("trigger temp", "t"),
-    "at_msl_m": ("height", "z"),
+    "at_msl_m": ("true alt", "zt"),
+    "at_indicated_m": ("indicated", "i"),
+    "at_pressure_altitude_m": ("press alt", "pa"),
+    "at_isa_deviation_c": ("ISA dev", "dt"),
     "at_t_c": ("temp", "t"),
     "at_p_hpa": ("pressure", "p"),
     "at_vapour_pressure_hpa": ("vapour p", "ph"),
     "at_air_density_kg_m3": ("density", "rho"),
-    "at_density_altitude_m": ("DA", "alt"),
+    "at_density_altitude_m": ("DA humid", "alt"),
     "at_parcel_t_c": ("parcel temp", "t"),
     "iso_t_c": ("isotherm", "t"),
     "iso_level_msl_m": ("lowest <=T", "z"),
@@ -98,6 +106,18 @@ SECTIONS = (
     ("parcel", "parcel"),
     ("thermals", "thermal"),
 )
+
+
+def level(s, z_m):
+    """A level z_m (m MSL) in session s's display: true MSL, or indicated on QNH after
+    "heights ind" (true MSL where no altimeter reading exists)."""
+    if s.disp.get("z") == "ind":
+        from lapsecalc.indicated import indicated_altitude_at
+        try:
+            return f_h(s, indicated_altitude_at(s.column(), z_m), False, " IND")
+        except ValueError:
+            pass
+    return f_h(s, z_m, False, " MSL")
 
 
 # Kinds shown as one number and a fixed unit.
@@ -146,10 +166,10 @@ def text_lines(s, key, v, label_kind=None, rep=None):
         if v is None and rep is not None and rep.get("icing_band_basis") == "air":
             return ["%-13s%s" % (label, "   unknown")]
         kind = "z"
-    if key == "stability_layers":
-        return layer_lines(s, v)
     if kind == "hide" or (key == "warnings" and rep is not None and "levels_above_top" in rep):
         return []
+    if isinstance(v, dict):
+        return []  # indicated_altitude_m: the levels word and "heights ind" show it
     if key == "cautions" or kind == "say!":
         return wrap(v, "!")
     if kind == "say1":
@@ -173,13 +193,19 @@ def text_lines(s, key, v, label_kind=None, rep=None):
         # Every pass only when there is more than one (else the level line says it).
         if len(v) < 2:
             return []
-        return ["%-13s%s" % (label if i == 0 else "", f_h(s, z)) for i, z in enumerate(v)]
+        return ["%-13s%s" % (label if i == 0 else "", level(s, z)) for i, z in enumerate(v)]
     if v is None:
         return ["%-13s%s" % (label, "   none in column" if kind == "z" else "   none")]
     if isinstance(v, float) and -0.05 < v < 0.05 and kind in ("t", "dt", "kg"):
         v = 0.0  # no "-0.0" in a one-decimal column
-    if kind in ("z", "a", "alt"):
-        text = f_h(s, v)
+    if kind == "z":
+        text = level(s, v)
+    elif kind in ("zt", "a", "i", "alt"):
+        # The tag says what the height is (DA: its label does).
+        text = f_h(s, v, False, " MSL" if kind == "zt" else " AGL" if kind == "a" else
+                   " IND" if kind == "i" else "")
+    elif kind == "pa":
+        text = f_h(s, v, False, " FL%d" % round(units.m_to_ft(v) / 100.0))
     elif kind == "t":
         text = f_t(s, v)
     elif kind == "dt":
@@ -238,9 +264,10 @@ def text_keys(word):
     return keys
 
 
-def report_text(s, rep, keys):
+def report_text(s, rep, keys, extra=()):
     """The whole report in sections, warnings first, cautions last (keys:
-    queries.report_keys order)."""
+    queries.report_keys order); extra, when given, are the altimeter section's lines
+    (lapsecalc.altitext)."""
     out = []
     done = ["warnings", "levels_above_top"]
     said = warning_lines(s, rep, keys)
@@ -255,11 +282,16 @@ def report_text(s, rep, keys):
                 done.append(k)
         if word == "parcel":
             out.append(PARCEL_NOTE)
-    rest = [k for k in keys if k not in done and k != "cautions"]
-    if rest:
+    if extra:
+        out.append("-- altimeter")
+        out.extend(extra)
+    more = []
+    for k in keys:
+        if k not in done and k != "cautions":
+            more.extend(text_lines(s, k, rep[k], rep=rep))
+    if more:
         out.append("-- more")
-        for k in rest:
-            out.extend(text_lines(s, k, rep[k], rep=rep))
+        out.extend(more)
     out.append("-- cautions")
     return out + wrap(rep.get("cautions", ()), "!")
 
@@ -280,7 +312,7 @@ def show_text(s):
         put("rh", "%7.1f %%%s" % (hum, dew))
     else:
         put("dew", f_t(s, hum) if hum is not None else unset)
-    put("elev", f_h(s, st["elev_m"]) if "elev_m" in st else unset)
+    put("elev", f_h(s, st["elev_m"], False, " MSL") if "elev_m" in st else unset)
     pk, p = st.get("press", ("qnh", None))
     if p is None:
         put("qnh", "%7.2f hPa ISA, assumed" % STANDARD_QNH_HPA)
@@ -298,7 +330,7 @@ def show_text(s):
         put("elr", "%7.1f K/km (%.2f C/1000ft)" % (lapse, units.k_per_km_to_c_per_1000ft(lapse)))
     top = st.get("top_m")
     put("top" if top is not None else "top (default)",
-        f_h(s, DEFAULT_TOP_M if top is None else top))
+        f_h(s, DEFAULT_TOP_M if top is None else top, False, " MSL"))
     put("excess", f_dt(s, st.get("excess_c", 0.0)))
     for key, label, kind in (("env_m3", "env", "m3"), ("wt_kg", "wt", "kg"),
                              ("fill_m3", "fill", "m3"), ("tmax_c", "tmax", "t"),

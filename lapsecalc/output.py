@@ -6,15 +6,18 @@ line of a taken line, and values in kv form (runs on MicroPython)."""
 # ("   1350 ft    411 m") or, with compact, the short form for acks ("1350 ft (411 m)").
 # kv: None is an empty value, booleans 0/1, numbers as DECIMALS says, lists comma-joined,
 # stability_layers bottom:top:elr:salr:class joined by ";", cloud_layers_msl_m
-# bottom:top joined by ";", lists of sentences joined by " | ".
+# bottom:top joined by ";", lists of sentences joined by " | ", a dict
+# (indicated_altitude_m) as key:value pairs by sorted key joined by ";".
 from lapsecalc import units
 
 
-def f_h(s, z_m, compact=False):
+def f_h(s, z_m, compact=False, tag=""):
+    # tag: what the height is (" MSL", " AGL", " IND"), in the same string (a board
+    # allocates every string).
     ft, m = round(units.m_to_ft(z_m)), round(z_m)
     if s.disp["h"] == "ft":
-        return "%d ft (%d m)" % (ft, m) if compact else "%7d ft %6d m" % (ft, m)
-    return "%d m (%d ft)" % (m, ft) if compact else "%7d m %7d ft" % (m, ft)
+        return "%d ft (%d m)%s" % (ft, m, tag) if compact else "%7d ft %6d m%s" % (ft, m, tag)
+    return "%d m (%d ft)%s" % (m, ft, tag) if compact else "%7d m %7d ft%s" % (m, ft, tag)
 
 
 def f_h1(s, z_m):
@@ -150,6 +153,8 @@ def kv_value(v, key=""):
         return "1" if v else "0"
     if isinstance(v, float):
         return number_text(key, v)
+    if isinstance(v, dict):
+        return ";".join("%s:%s" % (k, kv_value(v[k], k)) for k in sorted(v))
     if isinstance(v, (list, tuple)):
         if v and isinstance(v[0], dict):
             return ";".join(":".join(kv_value(r[k], k) for k in (

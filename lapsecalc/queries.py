@@ -81,17 +81,38 @@ def _c_report(s, w, args):
     if s.mode != "text":
         return emit(s, report_keys(rep), rep)
     from lapsecalc.layout import report_text
-    return ["assumed " + n for n in assumed(s.state)] + report_text(s, rep, report_keys(rep))
+    return ["assumed " + n for n in assumed(s.state)] + report_text(
+        s, rep, report_keys(rep), _altimeter_section(s, rep))
+
+
+def _altimeter_section(s, rep):
+    # The report's altimeter lines (lapsecalc.altitext); [] without loading that code
+    # when there can be none: the field is not colder than ISA and the altimeter reads
+    # high at no reported level.
+    ind = rep.get("indicated_altitude_m") or {}
+    if rep.get("isa_deviation_c", 0.0) >= 0.0:
+        for k in ind:
+            if ind[k] is not None and ind[k] > rep[k]:
+                break
+        else:
+            return []
+    from lapsecalc.altitext import altimeter_lines
+    return altimeter_lines(s, rep)
 
 
 def _height(s, w, args, col):
-    # A height m MSL from "H", "H agl", "H msl", or a pressure "P" (the height of P);
-    # the field when there are no args.
+    # A height m MSL from "H" (MSL, or indicated on QNH after "heights ind"), "H agl",
+    # "H msl", "H ind", a flight level "FL85", or a pressure "P" (the height of P); the
+    # field when there are no args.
     if not args:
         return col.elev_m
     if len(args) > 2:
-        raise ValueError("%s takes a height, e.g. %s 8000ft, %s 2000ft agl, %s 700hPa"
-                         % (w, w, w, w))
+        raise ValueError("%s takes a height, e.g. %s 8000ft, %s 2000ft agl, %s FL85, %s 700hPa"
+                         % (w, w, w, w, w))
+    where = args[1].lower() if len(args) > 1 else s.disp["z"]
+    if args[0][:2].lower() == "fl" or where == "ind":
+        from lapsecalc.altitext import height_aloft
+        return height_aloft(s, w, args, col)
     if len(args) == 1 and unit_kind(args[0]) == "p":
         p = number(args[0], "p", "hpa")
         p_top = col.p_at(col.top_m)
@@ -101,9 +122,9 @@ def _height(s, w, args, col):
                                 f_p(s, p_top, True)))
         return col.z_at(p)
     z = number(args[0], "h", s.disp["h"])
-    where = args[1].lower() if len(args) > 1 else "msl"
     if where not in ("agl", "msl"):
-        raise ValueError("%s: '%s' after the height; accepted agl or msl" % (w, shown(args[1])))
+        raise ValueError("%s: '%s' after the height; accepted agl, msl or ind (indicated on"
+                         " QNH)" % (w, shown(args[1])))
     if where == "agl":
         z += col.elev_m
     typed = said(args[0], s.disp["h"]) + (" AGL" if where == "agl" else "")
@@ -123,12 +144,21 @@ def _c_at(s, w, args):
         raise ValueError("at needs a height, e.g. at 8000ft, at 2000ft agl, at 700hPa")
     col = s.column(w)
     z = _height(s, w, args, col)
-    vals = {"at_msl_m": z, "at_t_c": col.t_at(z), "at_p_hpa": col.p_at(z),
+    p = col.p_at(z)
+    vals = {"at_msl_m": z, "at_t_c": col.t_at(z), "at_p_hpa": p,
             "at_vapour_pressure_hpa": col.vapour_pressure_at(z),
             "at_air_density_kg_m3": col.density_at(z),
             "at_density_altitude_m": col.density_altitude_at(z),
             "at_parcel_t_c": _parcel_t(s, col, z)}
-    return emit(s, GROUPS["at"], vals)
+    from lapsecalc.altimetry import altimeter_view, COLD_WARNING_K
+    ind, pa, dev = altimeter_view(col, z, p)
+    vals["at_indicated_m"], vals["at_pressure_altitude_m"], vals["at_isa_deviation_c"] = \
+        ind, pa, dev
+    out = emit(s, GROUPS["at"], vals)
+    if s.mode == "text" and dev <= -COLD_WARNING_K and ind > z:
+        from lapsecalc.altitext import cold_warning_lines
+        out.extend(cold_warning_lines(s, [("at_msl_m", z, dev, ind - z)]))
+    return out
 
 
 def _parcel_t(s, col, z):
@@ -139,7 +169,7 @@ def _parcel_t(s, col, z):
     levels = s.levels()
     for i in range(1, len(levels)):
         if z <= levels[i][0]:
-            lcl = col.elev_m + s.report()["cloud_base_agl_m"]
+            lcl = col.elev_m + s.report("at")["cloud_base_agl_m"]
             return temperature_at(col, levels, i, z, lcl)
     return levels[-1][2]
 
@@ -313,10 +343,20 @@ def _c_show(s, w, args):
     return kv_lines(vals, keys)
 
 
+def _c_altimeter(s, w, args):
+    # levels and cold: their work and text in lapsecalc.altitext (loaded for the line).
+    from lapsecalc.altitext import altimeter_word
+    keys, vals, text = altimeter_word(s, w, args)
+    if s.mode != "text":
+        return emit(s, keys, vals)
+    return ["assumed " + n for n in assumed(s.state)] + text
+
+
 # query word -> f(session, word, args) -> output lines
 QUERIES = {
     "obs": _c_group, "base": _c_group, "ice": _c_group, "frost": _c_group, "stab": _c_group,
     "parcel": _c_group, "thermal": _c_group, "da": _c_at, "at": _c_at, "iso": _c_iso,
     "balloon": _c_balloon, "loads": _c_loads, "sunset": _c_sunset, "report": _c_report,
     "chart": _c_chart, "svg": _c_svg, "show": _c_show,
+    "levels": _c_altimeter, "cold": _c_altimeter,
 }

@@ -129,7 +129,7 @@ def _s_rh(s, new, args):
 
 def _s_elev(s, new, args):
     new["elev_m"] = value(args[0], "h", s.disp["h"], ELEV_MIN_M, ELEV_MAX_M)
-    return "elev " + echo(s, args[0], "h", s.disp["h"], new["elev_m"])
+    return "elev " + echo(s, args[0], "h", s.disp["h"], new["elev_m"]) + " MSL"
 
 
 def _pressure(s, tok, lo, hi):
@@ -196,7 +196,7 @@ def _s_elr(s, new, args):
 
 def _s_top(s, new, args):
     new["top_m"] = value(args[0], "h", s.disp["h"], -400.0, TOP_MAX_M)
-    return "top " + echo(s, args[0], "h", s.disp["h"], new["top_m"])
+    return "top " + echo(s, args[0], "h", s.disp["h"], new["top_m"]) + " MSL"
 
 
 def _s_excess(s, new, args):

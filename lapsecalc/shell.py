@@ -28,12 +28,16 @@ _MAX_LINE = const(256)
 MAX_LINE = _MAX_LINE
 PROMPT = "lc> "
 # Modules loaded only for a line's work (help, chart, svg, balloon, metar, demo; the
-# text layout; the parcel, stability, hazards and points-aloft code of a report): on a board a
-# Session forgets them after the line, so the heap between lines holds only the
-# dispatch layer and the session's state (measured: bench/mpy_budget.py). A new module
-# that only some lines need goes here.
+# text layout; the parcel, stability, hazards and points-aloft code of a report; the
+# altimeter's numbers and text): on a board a Session forgets them after the line, so
+# the heap between lines holds only the dispatch layer and the session's state
+# (measured: bench/mpy_budget.py). A new module that only some lines need goes here.
 WORD_MODULES = ("helptext", "chart", "balloon", "loadtable", "balloontext", "metar", "demo",
-                "layout", "parcel", "stability", "hazards", "hazardtext", "aloft")
+                "layout", "parcel", "stability", "hazards", "hazardtext", "aloft",
+                "altimetry", "altitext", "indicated")
+# The words whose report carries the altimetry keys (isa_deviation_c,
+# density_altitude_dry_m, indicated_altitude_m: Column.report(altimetry=True)).
+ALTIMETRY_WORDS = ("report", "obs", "da", "levels")
 # Every word but the settings: the queries, then the session words.
 _WORDS = dict(QUERIES)
 _WORDS.update(COMMANDS)
@@ -109,13 +113,16 @@ class Session:
 
     def __init__(self, svg_writer=None):
         self.state = {}
-        self.disp = {"h": "ft", "t": "c", "p": "hpa"}
+        # Display: height, temperature, pressure units; levels as true MSL ("msl") or
+        # indicated on QNH ("ind", the heights word).
+        self.disp = {"h": "ft", "t": "c", "p": "hpa", "z": "msl"}
         self.mode = "text"
         self.done = False
         self.svg_writer = svg_writer
         self.json = None  # the json module, once "out json" was asked for
         self.checks = []  # "check:" lines of the line being run (a word adds them)
         self._col = self._rep = self._levels = None
+        self._rep_alt = False
         # On a board, WORD_MODULES are dropped after each line (drop_modules) and the
         # heap collected (an allocation count sets collect_after_line False: it
         # collects between lines itself).
@@ -234,10 +241,13 @@ class Session:
     def report(self, word="report"):
         """The current Column.report() (computed once per state)."""
         col = self.column(word)
-        if self._rep is None:
-            # Without the altimetry keys: no word shows them yet, and a board's session
-            # heap has no room for them (bench/mpy_budget.py).
-            self._rep = col.report(self.state.get("excess_c", 0.0), False)
+        alt = word in ALTIMETRY_WORDS
+        if self._rep is None or (alt and not self._rep_alt):
+            # The altimetry keys only for the words that show them: a board's session
+            # heap has little room for them (bench/mpy_budget.py).
+            self._rep = None
+            self._rep = col.report(self.state.get("excess_c", 0.0), alt)
+            self._rep_alt = alt
             # On a board the report kept is packed low in the heap (state.settle).
             settle(self._rep)
         return self._rep
@@ -247,7 +257,7 @@ class Session:
         if self._levels is None:
             from lapsecalc.parcel import path
             col = self.column()
-            self._levels = path(col, col.elev_m + self.report()["cloud_base_agl_m"])
+            self._levels = path(col, col.elev_m + self.report("parcel")["cloud_base_agl_m"])
         return self._levels
 
 

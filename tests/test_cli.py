@@ -71,12 +71,12 @@ def test_cr_and_crlf_line_ends_on_stdin_and_in_e():
     p = lapsecalc(stdin="temp 20 dew 10\relev 0\r\nout kv\rbase\r\nbye\rtemp 5\r")
     assert p.returncode == 0, p.stderr
     lines = p.stdout.splitlines()
-    assert lines[:3] == ["ok: temp 20 C, dew 10 C", "ok: elev 0 ft (0 m)", "ok=out"]
+    assert lines[:3] == ["ok: temp 20 C, dew 10 C", "ok: elev 0 ft (0 m) MSL", "ok=out"]
     assert lines[-1].startswith("cloud_layers_msl_m=") and "temp 5" not in p.stdout
     p = lapsecalc("-e", "temp 20 dew 10\r\nelev 0\rout kv\r", "-e", "base\r\n")
     assert p.returncode == 0, p.stdout
     lines = p.stdout.splitlines()
-    assert lines[:3] == ["ok: temp 20 C, dew 10 C", "ok: elev 0 ft (0 m)", "ok=out"]
+    assert lines[:3] == ["ok: temp 20 C, dew 10 C", "ok: elev 0 ft (0 m) MSL", "ok=out"]
     assert lines[-1].startswith("cloud_layers_msl_m=")
 
 

@@ -137,6 +137,7 @@ def test_board_modules_never_import_cpython_only_ones():
 INTERPRETER_LAYERS = (
     ("shell",),
     ("settings", "queries", "commands"),
+    ("altitext",),
     ("layout", "chart", "metar", "helptext", "loadtable", "balloontext"),
     ("balloon", "groups", "output", "state", "typed", "hazardtext"),
     ("altimetry",),  # library extras over the core: altimetry.py over indicated.py,

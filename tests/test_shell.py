@@ -14,6 +14,7 @@ from hypothesis import given, settings, strategies as st
 
 from lapsecalc.column import Column
 from lapsecalc.condensation import cloud_base
+from lapsecalc.standard import density_altitude
 from lapsecalc.demo import DEMO_COLUMN, DEMO_LINES
 from lapsecalc.shell import Session, MAX_LINE, split_line, read_lines, split_ends, repl
 from lapsecalc.typed import number, nearest
@@ -35,8 +36,9 @@ def demo_column():
 
 
 def demo_report(excess_c=0.0):
-    # The interpreter's report leaves the altimetry keys out (Session.report).
-    return demo_column().report(excess_c, False)
+    # With the altimetry keys, as the report, obs and da words have them
+    # (Session.report); the other words' keys are the same either way.
+    return demo_column().report(excess_c)
 
 
 def session(mode="text"):
@@ -85,6 +87,21 @@ def L(label, text):
 def H(z_m):
     # Feet and metres side by side; 1 ft = 0.3048 m (REFERENCES.md, Units).
     return "%7d ft %6d m" % (round(z_m / 0.3048), round(z_m))
+
+
+def HM(z_m):
+    # A level, true height MSL.
+    return H(z_m) + " MSL"
+
+
+def PA(z_m):
+    # A pressure altitude with its flight level (hundreds of feet).
+    return H(z_m) + " FL%d" % round(z_m / 0.3048 / 100.0)
+
+
+def isa_pa(p_hpa):
+    # Pressure altitude, m, ISA troposphere (ICAO Doc 7488/3): T0/L (1 - (p/p0)^(R L/g0)).
+    return 288.15 / 0.0065 * (1.0 - (p_hpa / 1013.25) ** (287.05287 * 0.0065 / 9.80665))
 
 
 def T(t_c):
@@ -204,7 +221,7 @@ def test_settings_text():
     # hPa, 1 lb = 0.45359237 kg, 1 ft3 = 0.0283168 m3: REFERENCES.md, Units).
     s = Session()
     run(s, [
-        ("elev 1350ft", ["ok: elev 1350 ft (411 m)"]),
+        ("elev 1350ft", ["ok: elev 1350 ft (411 m) MSL"]),
         ("temp 27C dew 13C qnh 1016", ["ok: temp 27 C, dew 13 C, QNH 1016 hPa"]),
         ("elr 9.5@250m 7.5@2400m 6.5", ["ok: ELR 9.5@820ft 7.5@7874ft 6.5 K/km"]),
         ("T 80.6F TD 55.4F", ["ok: temp 80.6 F (27.0 C),", "    dew 55.4 F (13.0 C)"]),
@@ -215,7 +232,7 @@ def test_settings_text():
         ("elr 2C/1000ft", ["ok: ELR 6.6 K/km (2.00 C/1000ft)"]),
         ("elr -5@300m 8@1500m 6.5", ["ok: ELR -5@984ft 8@4921ft 6.5 K/km"]),
         ("elr 6.5@3000m", ["ok: ELR 6.5@9843ft K/km"]),
-        ("top 30000ft", ["ok: top 30000 ft (9144 m)"]),
+        ("top 30000ft", ["ok: top 30000 ft (9144 m) MSL"]),
         ("excess 2C", ["ok: excess 2 C"]),
         ("excess 3.6F", ["ok: excess 3.6 F (+2.0 K)"]),
         ("temp -0.04 dew -0.0", ["ok: temp -0.04 C, dew 0.0 C"]),
@@ -239,10 +256,10 @@ def test_settings_text():
 def test_units_after_a_space_and_aliases():
     s = Session()
     run(s, [
-        ("elev 6500 ft", ["ok: elev 6500 ft (1981 m)"]),
+        ("elev 6500 ft", ["ok: elev 6500 ft (1981 m) MSL"]),
         ("qnh 1016 hPa", ["ok: QNH 1016 hPa"]),
-        ("field elevation 411 m", ["ok: elev 411 m (1348 ft)"]),
-        ("elevation 1350 feet", ["ok: elev 1350 ft (411 m)"]),
+        ("field elevation 411 m", ["ok: elev 411 m (1348 ft) MSL"]),
+        ("elevation 1350 feet", ["ok: elev 1350 ft (411 m) MSL"]),
         ("oat 27 C dewpoint 13 C", ["ok: temp 27 C, dew 13 C"]),
         ("temperature 80.6 F dp 55.4 F", ["ok: temp 80.6 F (27.0 C),",
                                           "    dew 55.4 F (13.0 C)"]),
@@ -253,7 +270,7 @@ def test_units_after_a_space_and_aliases():
     ])
     # A unit after a space works for queries too; "alt" is refused with both meanings.
     assert s.feed("at 3000 ft agl")[0].startswith("assumed") is False
-    assert s.feed("at 3000 ft agl")[0] == L("height", H(411.48 + 914.4))
+    assert s.feed("at 3000 ft agl")[0] == L("true alt", HM(411.48 + 914.4))
     run(s, [("alt 3000", ["error: 'alt' is the altimeter setting or",
                           "  an altitude: write qnh (qnh",
                           "  29.92inHg), elev (elev 1350ft) or at",
@@ -329,28 +346,28 @@ def test_slips_of_habit():
 def test_show_and_clear_text():
     s = session()
     run(s, [
-        ("show", [L("temp", T(27.0)), L("dew", T(13.0)), L("elev", H(411.48)),
+        ("show", [L("temp", T(27.0)), L("dew", T(13.0)), L("elev", HM(411.48)),
                   L("qnh", P(1016.0)),
                   L("elr", "    9.5 K/km to 820 ft AGL"),
                   L("", "    7.5 K/km to 7874 ft AGL"),
                   L("", "    6.5 K/km to top"),
-                  L("top (default)", H(16000.0)), L("excess", "   +0.0 K"),
+                  L("top (default)", HM(16000.0)), L("excess", "   +0.0 K"),
                   L("units", "ft C hPa, out text")]),
         ("clear qnh elr", ["ok: cleared qnh elr"]),
         ("rh 50", ["ok: rh 50 %"]),
         ("show", [L("temp", T(27.0)),
                   # 30 degC at 50 % gives 18.45 (ASHRAE, REFERENCES.md); 27 degC at
                   # 50 % the library's dewpoint, shown to a tenth.
-                  L("rh", "   50.0 % (dew 15.7 C)"), L("elev", H(411.48)),
+                  L("rh", "   50.0 % (dew 15.7 C)"), L("elev", HM(411.48)),
                   L("qnh", "1013.25 hPa ISA, assumed"),
                   L("elr", "    6.5 K/km ISA, assumed"),
-                  L("top (default)", H(16000.0)), L("excess", "   +0.0 K"),
+                  L("top (default)", HM(16000.0)), L("excess", "   +0.0 K"),
                   L("units", "ft C hPa, out text")]),
         ("clear", ["ok: cleared all settings"]),
         ("show", [L("temp", "   not set"), L("dew", "   not set"), L("elev", "   not set"),
                   L("qnh", "1013.25 hPa ISA, assumed"),
                   L("elr", "    6.5 K/km ISA, assumed"),
-                  L("top (default)", H(16000.0)), L("excess", "   +0.0 K"),
+                  L("top (default)", HM(16000.0)), L("excess", "   +0.0 K"),
                   L("units", "ft C hPa, out text")]),
     ])
 
@@ -361,39 +378,45 @@ def test_queries_text():
     col = demo_column()
     bolton = cloud_base(27.0, 13.0, col.p_hpa, "bolton")[0]
     run(s, [
-        ("obs", [L("elevation", H(r["elevation_m"])), L("temp", T(27.0)),
+        ("obs", [L("elevation", HM(r["elevation_m"])), L("temp", T(27.0)),
                  L("dewpoint", T(13.0)), L("RH", "%7.0f %%" % r["rh_pct"]),
                  L("mix ratio", "%7.1f g/kg" % r["mixing_ratio_g_kg"]),
                  L("wet bulb", T(r["wet_bulb_c"])),
                  L("station p", P(r["station_pressure_hpa"])), L("QNH", P(1016.0)),
-                 L("press alt", H(r["pressure_altitude_m"])),
+                 L("press alt", PA(r["pressure_altitude_m"])),
+                 # ISA deviation: 27 degC against the ISA 15 - 6.5 K/km at the pressure
+                 # altitude (ICAO Doc 7488/3).
+                 L("ISA dev", "%+7.1f K" % (27.0 - 15.0 + 0.0065 * r["pressure_altitude_m"])),
                  L("density", "%7.3f kg/m3" % r["air_density_kg_m3"]),
-                 L("DA", H(r["density_altitude_m"]))]),
+                 L("DA dry", H(density_altitude(col.p_hpa, 27.0))),
+                 L("DA humid", H(r["density_altitude_m"]))]),
         # Spread rule: 125 m per degC of spread (common practice): 14 degC -> 1750 m.
-        ("base", [L("base AGL", H(r["cloud_base_agl_m"])),
-                  L("base MSL", H(r["cloud_base_msl_m"])), L("LCL temp", T(r["lcl_t_c"])),
+        ("base", [L("base", H(r["cloud_base_agl_m"]) + " AGL"),
+                  L("base", HM(r["cloud_base_msl_m"])), L("LCL temp", T(r["lcl_t_c"])),
                   L("LCL press", P(r["lcl_p_hpa"])),
                   # No dewpoints aloft: no cloud-layer line (kv and json say None).
                   L("Bolton LCL", H(bolton) + " AGL"),
                   L("spread rule", H(1750.0) + " AGL")]),
-        ("ice", [L("0C level", H(r["freezing_level_msl_m"])),
-                 L("-10C level", H(r["minus10_level_msl_m"])),
-                 L("-20C level", H(r["minus20_level_msl_m"])),
+        ("ice", [L("0C level", HM(r["freezing_level_msl_m"])),
+                 L("-10C level", HM(r["minus10_level_msl_m"])),
+                 L("-20C level", HM(r["minus20_level_msl_m"])),
                  L("warm aloft", "     no"),
-                 L("parcel 0C", H(r["parcel_freezing_level_msl_m"])),
-                 L("icing from", H(r["icing_band_bottom_msl_m"])),
-                 L("icing to", H(r["icing_band_top_msl_m"])),
+                 L("parcel 0C", HM(r["parcel_freezing_level_msl_m"])),
+                 L("icing from", HM(r["icing_band_bottom_msl_m"])),
+                 L("icing to", HM(r["icing_band_top_msl_m"])),
                  L("icing basis", " parcel and air"), L("precip type", " rain"),
-                 L("wet bulb 0C", H(r["wet_bulb_zero_msl_m"]))]),
+                 L("wet bulb 0C", HM(r["wet_bulb_zero_msl_m"]))]),
         # 27 degC, dewpoint 13 degC: RH 42 %, the light band of the carburettor icing
         # chart (CAA Safety Sense Leaflet 14, edges from memory); spread 14 K, no fog.
         ("frost", [L("temp", T(27.0)), L("dewpoint", T(13.0)), L("fog risk", "     no"),
                    L("ice fog risk", "     no"), L("carb icing", " light")]),
-        ("da", [L("elevation", H(r["elevation_m"])),
+        ("da", [L("elevation", HM(r["elevation_m"])),
                 L("station p", P(r["station_pressure_hpa"])), L("QNH", P(1016.0)),
-                L("press alt", H(r["pressure_altitude_m"])),
+                L("press alt", PA(r["pressure_altitude_m"])),
+                L("ISA dev", "%+7.1f K" % (27.0 - 15.0 + 0.0065 * r["pressure_altitude_m"])),
                 L("density", "%7.3f kg/m3" % r["air_density_kg_m3"]),
-                L("DA", H(r["density_altitude_m"]))]),
+                L("DA dry", H(density_altitude(col.p_hpa, 27.0))),
+                L("DA humid", H(r["density_altitude_m"]))]),
         ("stab", [L("lowest layer", " " + r["stability"].replace("conditionally", "cond")
                     .replace("absolutely", "abs").replace("_", " ")),
                   # The rate and its class on one line.
@@ -403,44 +426,44 @@ def test_queries_text():
                   L("ELR 700-500", "%7.1f K/km " % r["lapse_700_500_k_per_km"] +
                     r["lapse_700_500_class"].replace("absolutely", "abs")
                     .replace("conditionally", "cond").replace("_", " ")),
-                  L("tropopause", H(11000.0)),
-                  L("column top", H(16000.0)),
+                  L("tropopause", HM(11000.0)),
+                  L("column top", HM(16000.0)),
                   "layer ft MSL     ELR SALR K/km"] +
          ["%6d-%-6d %5.1f %4.1f %s" % (
              round(x["bottom_msl_m"] / 0.3048), round(x["top_msl_m"] / 0.3048),
              x["lapse_k_per_km"], x["saturated_k_per_km"],
              x["class"].replace("conditionally", "cond").replace("absolutely", "abs")
              .replace("_", " ")) for x in r["stability_layers"]]),
-        ("parcel", [L("LFC", H(r["lfc_msl_m"])), L("EL", H(r["el_msl_m"])),
+        ("parcel", [L("LFC", HM(r["lfc_msl_m"])), L("EL", HM(r["el_msl_m"])),
                     L("EL above top", "     no"), L("CAPE", "%7.0f J/kg" % r["cape_j_kg"]),
                     L("CIN", "%7.0f J/kg" % r["cin_j_kg"]),
                     L("lifted index", "%+7.1f K" % r["lifted_index_c"]),
-                    L("parcel 0C", H(r["parcel_freezing_level_msl_m"])),
+                    L("parcel 0C", HM(r["parcel_freezing_level_msl_m"])),
                     # CAPE and CIN integrate plain temperatures (stability.parcel_analysis).
                     "CAPE/CIN use air temps (not virtual)"]),
-        ("thermal", [L("excess", "   +0.0 K"), L("thermal top", H(r["thermal_top_msl_m"])),
-                     L("thermal base", H(r["cloud_base_msl_m"])),
+        ("thermal", [L("excess", "   +0.0 K"), L("thermal top", HM(r["thermal_top_msl_m"])),
+                     L("thermal base", HM(r["cloud_base_msl_m"])),
                      L("usable top", "   none in column"),
                      L("thermals", " none (stable at ground)"),
                      "- no dry thermals until the surface",
                      "  reaches %.1f C" % r["trigger_t_c"],
-                     L("CCL", H(r["ccl_msl_m"])), L("trigger temp", T(r["trigger_t_c"]))]),
+                     L("CCL", HM(r["ccl_msl_m"])), L("trigger temp", T(r["trigger_t_c"]))]),
     ])
     r2 = demo_report(2.0)
     run(s, [
         ("excess 2K", ["ok: excess 2 K"]),
-        ("therm", [L("excess", "   +2.0 K"), L("thermal top", H(r2["thermal_top_msl_m"])),
-                   L("thermal base", H(r2["thermal_cloud_base_msl_m"])),
+        ("therm", [L("excess", "   +2.0 K"), L("thermal top", HM(r2["thermal_top_msl_m"])),
+                   L("thermal base", HM(r2["thermal_cloud_base_msl_m"])),
                    # blue thermals: the usable top is the dry top, under their base
-                   L("usable top", H(r2["thermal_top_msl_m"])),
-                   L("thermals", " blue (dry, no cumulus)"), L("CCL", H(r2["ccl_msl_m"])),
+                   L("usable top", HM(r2["thermal_top_msl_m"])),
+                   L("thermals", " blue (dry, no cumulus)"), L("CCL", HM(r2["ccl_msl_m"])),
                    L("trigger temp", T(r2["trigger_t_c"]))]),
         # With an excess set, base shows the heated thermals' cloud base beside the
         # unheated one: the LCL of 29 degC air with dewpoint 13 degC.
-        ("base", [L("base AGL", H(r["cloud_base_agl_m"])),
-                  L("base MSL", H(r["cloud_base_msl_m"])), L("LCL temp", T(r["lcl_t_c"])),
+        ("base", [L("base", H(r["cloud_base_agl_m"]) + " AGL"),
+                  L("base", HM(r["cloud_base_msl_m"])), L("LCL temp", T(r["lcl_t_c"])),
                   L("LCL press", P(r["lcl_p_hpa"])), L("excess", "   +2.0 K"),
-                  L("thermal base", H(411.48 + cloud_base(29.0, 13.0, col.p_hpa)[0])),
+                  L("thermal base", HM(411.48 + cloud_base(29.0, 13.0, col.p_hpa)[0])),
                   L("Bolton LCL", H(bolton) + " AGL"), L("spread rule", H(1750.0) + " AGL")]),
     ])
 
@@ -454,13 +477,21 @@ def test_heights_and_isotherms_text():
     for line, zz in (("da 9500ft", z), ("at 3000ft agl", z_agl), ("at 700hPa", z700),
                      ("at 2895.6m msl", z)):
         got = s.feed(line)
-        assert got[:6] == [L("height", H(zz)), L("temp", T(col.t_at(zz))),
+        # An altimeter on QNH reads PA(p) - PA(QNH) (REFERENCES.md "Altimetry"), PA by
+        # the ISA troposphere (ICAO Doc 7488/3); ISA dev against 15 degC - 6.5 K/km at
+        # that PA.
+        pa = isa_pa(col.p_at(zz))
+        assert got[:9] == [L("true alt", HM(zz)),
+                           L("indicated", H(pa - isa_pa(1016.0)) + " IND"),
+                           L("press alt", PA(pa)),
+                           L("ISA dev", "%+7.1f K" % (col.t_at(zz) - 15.0 + 0.0065 * pa)),
+                           L("temp", T(col.t_at(zz))),
                            L("pressure", P(col.p_at(zz))),
                            L("vapour p", P(col.vapour_pressure_at(zz))),
                            L("density", "%7.3f kg/m3" % col.density_at(zz)),
-                           L("DA", H(col.density_altitude_at(zz)))], line
-        assert got[6].startswith("parcel temp") and len(got) == 7
-    run(s, [("iso -15C", [L("isotherm", T(-15.0)), L("lowest <=T", H(col.level(-15.0)))])])
+                           L("DA humid", H(col.density_altitude_at(zz)))], line
+        assert got[9].startswith("parcel temp") and len(got) == 10
+    run(s, [("iso -15C", [L("isotherm", T(-15.0)), L("lowest <=T", HM(col.level(-15.0)))])])
 
 
 def test_surface_inversion_gives_several_passes():
@@ -468,13 +499,13 @@ def test_surface_inversion_gives_several_passes():
     # twice above a 15 degC surface... and 15 degC itself is the surface.
     s = Session()
     run(s, [("temp 15 dew 5 elev 0 qnh 1013.25 elr -5@300m 8", [
-        "ok: temp 15 C, dew 5 C, elev 0 ft (0 m),",
-        "    QNH 1013.25 hPa, ELR -5@984ft 8 K/km"])])
+        "ok: temp 15 C, dew 5 C,", "    elev 0 ft (0 m) MSL, QNH 1013.25 hPa,",
+        "    ELR -5@984ft 8 K/km"])])
     # Warmest 15 + 0.005 * 300 = 16.5 degC at 300 m; 16 degC at 200 m and at
     # 300 + 0.5 / 8 * 1000 = 362.5 m (linear layers, exact). The lowest height at or
     # below 16 degC is the surface itself.
-    run(s, [("iso 16", [L("isotherm", T(16.0)), L("lowest <=T", H(0.0)), L("passes", H(200.0)),
-                        L("", H(362.5))])])
+    run(s, [("iso 16", [L("isotherm", T(16.0)), L("lowest <=T", HM(0.0)), L("passes", HM(200.0)),
+                        L("", HM(362.5))])])
     s.feed("out kv")
     run(s, [("iso 16", ["iso_t_c=16", "iso_level_msl_m=0", "iso_levels_msl_m=200,362.5"])])
 
@@ -484,23 +515,27 @@ def test_display_units():
     r = demo_report()
     run(s, [
         ("unit m F inhg", ["ok: units m F inHg"]),
-        ("da", [L("elevation", "%7d m %7d ft" % (411, 1350)),
+        ("da", [L("elevation", "%7d m %7d ft MSL" % (411, 1350)),
                 L("station p", "%7.2f inHg" % (r["station_pressure_hpa"] / 33.8639)),
                 L("QNH", "%7.2f inHg" % (1016.0 / 33.8639)),
-                L("press alt", "%7d m %7d ft" % (round(r["pressure_altitude_m"]),
-                                                  round(r["pressure_altitude_m"] / 0.3048))),
+                L("press alt", "%7d m %7d ft FL%d" % (
+                    round(r["pressure_altitude_m"]), round(r["pressure_altitude_m"] / 0.3048),
+                    round(r["pressure_altitude_m"] / 30.48))),
+                L("ISA dev", "%+7.1f K" % r["isa_deviation_c"]),
                 L("density", "%7.3f kg/m3" % r["air_density_kg_m3"]),
-                L("DA", "%7d m %7d ft" % (round(r["density_altitude_m"]),
-                                          round(r["density_altitude_m"] / 0.3048)))]),
+                L("DA dry", "%7d m %7d ft" % (round(r["density_altitude_dry_m"]),
+                                              round(r["density_altitude_dry_m"] / 0.3048))),
+                L("DA humid", "%7d m %7d ft" % (round(r["density_altitude_m"]),
+                                                round(r["density_altitude_m"] / 0.3048)))]),
         # Bare numbers now are in the display units: 80.6 F is 27 degC (exact).
         ("temp 80.6", ["ok: temp 80.6 F"]),
-        ("elev 411.48", ["ok: elev 411.48 m (1350 ft)"]),
+        ("elev 411.48", ["ok: elev 411.48 m (1350 ft) MSL"]),
         ("qnh 30.0", ["ok: QNH 30.0 inHg"]),
     ])
     # 30.00 inHg = 1015.917 hPa (REFERENCES.md, Units); 0 degC = 32 F.
     z0 = Column.from_qnh(27.0, 13.0, 30.0 * 33.8639, 411.48, DEMO_COLUMN[4]).level(0.0)
     run(s, [
-        ("iso 32", [L("isotherm", "   32.0 F"), L("lowest <=T", "%7d m %7d ft" % (
+        ("iso 32", [L("isotherm", "   32.0 F"), L("lowest <=T", "%7d m %7d ft MSL" % (
             round(z0), round(z0 / 0.3048)))]),
         ("unit ft c hpa", ["ok: units ft C hPa"]),
         ("unit km", ["error: unit: 'km' not accepted; accepted",
@@ -544,9 +579,10 @@ def test_report_text_has_everything_and_the_cautions():
     assert heads == ["-- surface", "-- cloud base", "-- freezing and icing",
                      "-- frost, fog, carb icing", "-- stability", "-- parcel", "-- thermals",
                      "-- cautions"]
-    for key, label in (("cloud_base_msl_m", "base MSL"), ("el_msl_m", "EL"),
-                       ("ccl_msl_m", "CCL"), ("density_altitude_m", "DA"),
-                       ("icing_band_top_msl_m", "icing to")):
+    for key, label in (("cloud_base_msl_m", "base"), ("el_msl_m", "EL"),
+                       ("ccl_msl_m", "CCL"), ("icing_band_top_msl_m", "icing to")):
+        assert L(label, HM(r[key])) in got
+    for key, label in (("density_altitude_m", "DA humid"), ("density_altitude_dry_m", "DA dry")):
         assert L(label, H(r[key])) in got
     body = " ".join(line.strip("! ") for line in got[got.index("-- cautions") + 1:])
     for caution in r["cautions"]:
@@ -564,7 +600,7 @@ def test_report_text_has_everything_and_the_cautions():
 
 def test_report_marks_defaults():
     s = Session()
-    run(s, [("temp 20 dew 10 elev 0", ["ok: temp 20 C, dew 10 C, elev 0 ft (0 m)"])])
+    run(s, [("temp 20 dew 10 elev 0", ["ok: temp 20 C, dew 10 C,", "    elev 0 ft (0 m) MSL"])])
     got = s.feed("report")
     assert got[:2] == ["assumed QNH 1013.25 hPa (standard; qnh not set)",
                        "assumed ELR 6.5 K/km (ISA; elr not set)"]
@@ -605,10 +641,10 @@ def test_balloon_text():
                        ["ok: envelope 2800 m3, weight 450 kg,", "    tmax 120 C"])])
     hot = balloon.hot_air_report(col, 2800.0, 450.0, 120.0)
     got = s.feed("balloon")
-    assert got[0] == L("height", H(411.48))
+    assert got[0] == L("height", HM(411.48))
     assert L("gross lift", "%7.1f kg %6.0f lb" % (hot["gross_lift_kg"],
                                                   hot["gross_lift_kg"] / 0.45359237)) in got
-    assert L("ceiling", H(hot["ceiling_msl_m"])) in got
+    assert L("ceiling", HM(hot["ceiling_msl_m"])) in got
     assert L("temp to float", T(hot["envelope_t_needed_c"])) in got
     assert any(line.startswith("- Working figures: mean envelope") for line in got)
     # Working-temperature figures first, then the absolute limit, each labelled.
@@ -616,13 +652,13 @@ def test_balloon_text():
     limit = got.index("-- absolute limit: never plan on it")
     assert work < got.index(L("working temp", T(100.0))) < limit
     assert limit < got.index(L("LIMIT temp", T(120.0)))
-    assert limit < got.index(L("LIMIT ceiling", H(hot["limit_ceiling_msl_m"])))
-    assert work < got.index(L("ceiling", H(hot["ceiling_msl_m"]))) < limit
+    assert limit < got.index(L("LIMIT ceiling", HM(hot["limit_ceiling_msl_m"])))
+    assert work < got.index(L("ceiling", HM(hot["ceiling_msl_m"]))) < limit
     run(s, [("gas h2 fill 6m3", ["ok: gas hydrogen, fill 6 m3"])])
     gas = balloon.gas_report(col, "hydrogen", 1.0, 6.0, 2800.0, 450.0, 411.48 + 609.6)
     got = s.feed("bal 2000ft agl")
     assert got[0] == "assumed gas purity 100 % (pure not set)"
-    assert L("height", H(411.48 + 609.6)) in got
+    assert L("height", HM(411.48 + 609.6)) in got
     assert L("free lift", "%7.1f kg %6.0f lb" % (gas["free_lift_kg"],
                                                  gas["free_lift_kg"] / 0.45359237)) in got
     assert any(line.startswith("! No lift-off") for line in got)
@@ -636,8 +672,9 @@ def test_queries_kv():
     col = demo_column()
     groups = {
         "obs": ("elevation_m", "t_c", "td_c", "rh_pct", "mixing_ratio_g_kg", "wet_bulb_c",
-                "station_pressure_hpa", "qnh_hpa", "pressure_altitude_m",
-                "air_density_kg_m3", "density_altitude_m", "top_msl_m"),
+                "station_pressure_hpa", "qnh_hpa", "pressure_altitude_m", "isa_deviation_c",
+                "air_density_kg_m3", "density_altitude_dry_m", "density_altitude_m",
+                "top_msl_m"),
         "base": ("cloud_base_agl_m", "cloud_base_msl_m", "lcl_t_c", "lcl_p_hpa",
                  "cloud_layers_msl_m"),
         "ice": ("freezing_level_msl_m", "freezing_levels_msl_m", "minus10_level_msl_m",
@@ -649,7 +686,8 @@ def test_queries_kv():
         "frost": ("t_c", "td_c", "frost_point_c", "rh_ice_pct", "fog_risk", "ice_fog_risk",
                   "carb_icing"),
         "da": ("elevation_m", "station_pressure_hpa", "qnh_hpa", "pressure_altitude_m",
-               "air_density_kg_m3", "density_altitude_m"),
+               "isa_deviation_c", "air_density_kg_m3", "density_altitude_dry_m",
+               "density_altitude_m"),
         "parcel": ("lfc_msl_m", "el_msl_m", "el_above_top", "cape_j_kg", "cin_j_kg",
                    "lifted_index_c", "parcel_freezing_level_msl_m"),
         "thermal": ("thermal_excess_c", "thermal_top_msl_m", "thermal_cloud_base_msl_m",
@@ -687,7 +725,11 @@ def test_queries_kv():
     got = s.feed("da 9500ft")
     assert got[0] == "# assumed ELR 6.5 K/km (ISA; elr not set)"
     col2 = Column.from_qnh(28.0, 12.0, 1016.0, 411.48, 6.5)
-    assert got[1:] == [KV("at_msl_m", z), KV("at_t_c", col2.t_at(z)),
+    pa = isa_pa(col2.p_at(z))  # ICAO Doc 7488/3 troposphere; altimeter on QNH 1016
+    assert got[1:] == [KV("at_msl_m", z), KV("at_indicated_m", pa - isa_pa(1016.0)),
+                       KV("at_pressure_altitude_m", pa),
+                       KV("at_isa_deviation_c", col2.t_at(z) - 15.0 + 0.0065 * pa),
+                       KV("at_t_c", col2.t_at(z)),
                        KV("at_p_hpa", col2.p_at(z)),
                        KV("at_vapour_pressure_hpa", col2.vapour_pressure_at(z)),
                        KV("at_air_density_kg_m3", col2.density_at(z)),
@@ -725,7 +767,7 @@ def test_isa_values_through_the_shell():
     # pressure altitude of the field is 0 and 0 degC lies at 15 / 6.5 km = 2307.7 m.
     s = Session()
     run(s, [("temp 15 dew 5 elev 0 qnh 1013.25 elr 6.5", [
-        "ok: temp 15 C, dew 5 C, elev 0 ft (0 m),", "    QNH 1013.25 hPa,",
+        "ok: temp 15 C, dew 5 C,", "    elev 0 ft (0 m) MSL, QNH 1013.25 hPa,",
         "    ELR 6.5 K/km (1.98 C/1000ft)"]), ("out kv", ["ok=out"])])
     vals = kvdict(s.feed("at 1000m"))
     assert abs(float(vals["at_t_c"]) - 8.5) < MK
@@ -824,7 +866,8 @@ def test_errors_name_the_problem_and_what_is_accepted():
         ("at 200m", ["error: at: 200 m is below the field (1350 ft)"]),
         ("at 1100hPa", ["error: at: 1100 hPa is not in the column (%.1f hPa at the"
                         " field, %.1f hPa at the top)" % (COL.p_hpa, COL.p_at(COL.top_m))]),
-        ("at 2000ft up", ["error: at: 'up' after the height; accepted agl or msl"]),
+        ("at 2000ft up", ["error: at: 'up' after the height; accepted agl, msl or ind"
+                          " (indicated on QNH)"]),
         ("out xml", ["error: out needs one of text, kv, json"]),
         ("help nothing", ["error: help takes one word of the list, e.g. help elr; help alone"
                           " lists them"]),
@@ -867,9 +910,9 @@ def test_bye_and_repl_stream():
     finally:
         sys.stdout = old
     lines = out.getvalue().splitlines()
-    assert lines[:1] == ["ok: temp 20 C, dew 10 C, elev 0 ft (0 m)"]
-    assert lines[1].startswith("error: line of 258 characters refused")
-    assert lines[3] == "assumed QNH 1013.25 hPa (standard; qnh not set)"
+    assert lines[:2] == ["ok: temp 20 C, dew 10 C,", "    elev 0 ft (0 m) MSL"]
+    assert lines[2].startswith("error: line of 258 characters refused")
+    assert lines[4] == "assumed QNH 1013.25 hPa (standard; qnh not set)"
     assert s2.done and s2.state["t_c"] == 20.0
 
 
@@ -900,7 +943,7 @@ def test_repl_reads_cr_lines():
                  prompt="")
     finally:
         sys.stdout = old
-    assert out.getvalue().splitlines() == ["ok: temp 20 C, dew 10 C", "ok: elev 0 ft (0 m)"]
+    assert out.getvalue().splitlines() == ["ok: temp 20 C, dew 10 C", "ok: elev 0 ft (0 m) MSL"]
     assert s.done and s.state["t_c"] == 20.0
 
 
@@ -1182,7 +1225,7 @@ def test_superheat_and_sunset_words():
                                                 gas["superheat_lift_kg"] / 0.45359237)) in got
     assert L("ballast @dusk", "%7.1f kg %6.0f lb" % (
         gas["ballast_superheat_lost_kg"], gas["ballast_superheat_lost_kg"] / 0.45359237)) in got
-    assert L("press height", H(gas["full_msl_m"])) in got
+    assert L("press height", HM(gas["full_msl_m"])) in got
     # The balloon word carries the superheat too.
     assert L("gas temp", T(27.0 + 12.0)) in s.feed("balloon")
     run(s, [("out kv", ["ok=out"])])
@@ -1226,10 +1269,10 @@ def test_ice_and_frost_words_in_a_freezing_rain_setup():
     col = Column.from_qnh(-25.0 / 9.0, -35.0 / 9.0, 1013.0, 91.44, [(500.0, -16.0), (None, 6.5)])
     r = col.report()
     got = s.feed("ice")
-    for want in (L("icing from", H(r["cloud_base_msl_m"])), L("icing to", "   unknown"),
+    for want in (L("icing from", HM(r["cloud_base_msl_m"])), L("icing to", "   unknown"),
                  L("icing basis", " air (cloud top unknown)"),
-                 L("warm layer", H(r["warm_layer_bottom_msl_m"])),
-                 L("warm to", H(r["warm_layer_top_msl_m"])),
+                 L("warm layer", HM(r["warm_layer_bottom_msl_m"])),
+                 L("warm to", HM(r["warm_layer_top_msl_m"])),
                  L("warm max", T(r["warm_layer_max_t_c"])),
                  L("precip type", " freezing rain")):
         assert want in got, want

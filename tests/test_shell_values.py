@@ -283,11 +283,40 @@ def test_frost():
     assert v["fog_risk"] == 1.0 and v["ice_fog_risk"] == 0.0
 
 
+def test_levels_in_the_standard_atmosphere():
+    # In ISA air (15 degC at MSL, 6.5 K/km, QNH 1013.25) an altimeter on QNH reads the
+    # true height and the flight level is the height in hundreds of feet (ICAO Doc
+    # 7488/3; REFERENCES.md "Altimetry"); the freezing level is 15 / 6.5 km.
+    s = session(ISA)
+    got = s.feed("levels")
+    vals = dict(x.split("=", 1) for x in got if "=" in x and not x.startswith("warnings"))
+    rows = dict((k, [float(x) for x in v.split(",")]) for k, v in vals.items())
+    assert abs(rows["freezing_level_msl_m"][0] - 15.0 / 0.0065) < 0.5
+    assert abs(rows["top_msl_m"][0] - 6000.0) < 1e-6
+    for k, (z, ind, fl) in rows.items():
+        assert abs(ind - z) < 0.5, k
+        assert abs(fl - z / FT / 100.0) < 0.02, k
+    assert "warnings=" in got
+
+
+def test_cold_by_the_pans_ops_formula():
+    # -15 degC at an MSL field on QNH 1013.25: 30 K below ISA. ICAO PANS-OPS (Doc 8168
+    # Vol. I; REFERENCES.md "Altimetry", formula from memory there): correction
+    # (-dT/L0) ln(1 + L0 h / (T0 + L0 h_ad)), L0 = -0.0065 K/m, h_ad = 0: 31.3 m at 300 m.
+    s = session("temp -15 dew -20 elev 0 qnh 1013.25 elr 6.5 top 6000m")
+    v = kv(s, "cold 300m")
+    assert abs(v["isa_deviation_c"] + 30.0) < 0.01
+    want = (30.0 / -0.0065) * math.log(1.0 - 0.0065 * 300.0 / 288.15)
+    assert abs(v["cold_correction_icao_m"] - want) < 0.01
+    # The column's own, with the ISA lapse rate as the formula assumes: within 1 %.
+    assert abs(v["cold_correction_column_m"] - want) < 0.01 * want
+
+
 # Query words with a session above checked against an outside value (issue: at least
 # one per word). A new query word fails the test below until it has one here.
 CHECKED_WORDS = {"obs", "da", "base", "ice", "frost", "iso", "at", "stab", "thermal", "parcel",
                  "report",
-                 "show", "balloon", "chart", "svg", "loads", "sunset"}
+                 "show", "balloon", "chart", "svg", "loads", "sunset", "levels", "cold"}
 
 
 def test_every_query_word_has_an_outside_check():

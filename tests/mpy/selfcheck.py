@@ -373,6 +373,8 @@ def session_lines():
                       "base", "report"))
     lines.extend((
         "unit m", "obs", "ice", "stab", "parcel", "thermal", "at 2000m", "iso -10",
+        "at FL85", "levels", "cold", "heights ind", "ice", "at 3000m", "heights msl",
+        "temp -25C dew -28C", "cold 400m", "levels", "report", "temp 27C dew 13C",
         "excess 2C", "thermal", "show",
         "env 2800m3 wt 450kg tmax 120C", "balloon",
         "gas helium pure 98% fill 12m3 env 40m3 wt 5kg", "balloon", "gas none",

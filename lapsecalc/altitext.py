@@ -1,0 +1,201 @@
+"""The altimeter words' work (levels, cold) and their text: the report's altimeter
+section and the cold-air warning; loaded only by the lines that show them."""
+# Sources: none; labels and units only (the numbers come from lapsecalc.indicated and
+#   lapsecalc.altimetry). Every line fits a 40-column screen.
+from lapsecalc import units
+from lapsecalc.output import f_dt, ack
+from lapsecalc.typed import value, number, split_number, shown, no_args
+
+# The text layout (lapsecalc.layout) is imported by the functions that use its labels:
+# the cold word in kv mode needs none of it.
+
+
+def _h_number(s, z_m):
+    # A height as a whole number in the display unit.
+    return round(units.m_to_ft(z_m) if s.disp["h"] == "ft" else z_m)
+
+
+def _label(k):
+    # A key's text label: lapsecalc.layout's, or the hazard keys' (lapsecalc.hazardtext).
+    from lapsecalc.layout import LABELS
+    lk = LABELS.get(k)
+    if lk is None:
+        try:
+            from lapsecalc.hazardtext import LABELS as HAZARD_LABELS
+            lk = HAZARD_LABELS.get(k)
+        except ImportError:  # a board has no hazards yet
+            pass
+    return (lk or (k,))[0]
+
+
+def levels_text(s, keys, vals, warnings):
+    """The levels word: each level true MSL, indicated on QNH and its flight level in
+    the display unit, lowest first; then the cold-air warnings."""
+    out = ["%-13s%7s %7s %6s" % ("level, " + s.disp["h"], "MSL", "IND", "FL")]
+    for k in keys:
+        z, ind, fl = vals[k]
+        out.append("%-13s%7d %7d %6s" % (_label(k)[:12], _h_number(s, z),
+                                          _h_number(s, ind), "FL%d" % round(fl)))
+    return out + cold_warning_lines(s, warnings)
+
+
+# Names in the warnings for keys whose label reads oddly there.
+_WHERE = {"at_msl_m": "this height", "cloud_base_msl_m": "cloud base"}
+
+
+def cold_warning_text(s, warnings):
+    """The warning sentences for altimetry.cold_warnings entries: at the lowest level
+    that is 10 K or more colder than ISA and at the one with the largest error."""
+    if not warnings:
+        return []
+    picks = [warnings[0]]
+    worst = warnings[0]
+    for w in warnings:
+        if w[3] > worst[3]:
+            worst = w
+    if worst is not warnings[0]:
+        picks.append(worst)
+    u = s.disp["h"]
+    return ["true altitude is below indicated by %d %s at %s, %d %s MSL (%.0f K colder than"
+            " ISA)" % (_h_number(s, diff), u, _WHERE.get(k) or _label(k),
+                       _h_number(s, z), u, -dev) for k, z, dev, diff in picks]
+
+
+def cold_warning_lines(s, warnings):
+    """The warning sentences as text lines, marked "!"."""
+    from lapsecalc.layout import wrap
+    return wrap(cold_warning_text(s, warnings), "!")
+
+
+# The height above the field the report's cold-temperature line is for, by unit.
+_REPORT_COLD = {"ft": 1000.0 * units.M_PER_FT, "m": 300.0}
+
+
+def altimeter_lines(s, rep):
+    """The report's altimeter section: the cold-temperature correction when the field
+    is colder than ISA, and the cold-air warnings; [] when there is nothing to say."""
+    col = s.column()
+    out = []
+    h = _REPORT_COLD[s.disp["h"]]
+    if rep.get("isa_deviation_c", 0.0) < 0.0 and col.elev_m + h <= min(col.top_m, 11000.0):
+        from lapsecalc.altimetry import cold_temperature_correction, column_cold_correction
+        out.append("%-13s%+7d %s at %d %s AGL" % (
+            "cold corr", _h_number(s, cold_temperature_correction(h, col.t_c, col.elev_m)),
+            s.disp["h"], _h_number(s, h), s.disp["h"]))
+        out.append("%-13s%+7d %s (its own ELR)" % (
+            "  column", _h_number(s, column_cold_correction(col, h)), s.disp["h"]))
+    if "indicated_altitude_m" in rep:
+        from lapsecalc.altimetry import cold_warnings
+        out.extend(cold_warning_lines(s, cold_warnings(col, rep)))
+    return out
+
+
+def cold_text(s, vals):
+    """The cold word: the correction to add to indicated heights above the field, by
+    the PANS-OPS formula and by the column itself."""
+    u = s.disp["h"]
+    dev = vals["isa_deviation_c"]
+    out = ["cold-temperature correction",
+           "%-13s%s" % ("field ISA dev", f_dt(s, dev))]
+    if dev >= 0.0:
+        return out + ["not colder than ISA: no correction", "(PANS-OPS corrects cold air)"]
+    out.append("%-13s%8s %8s" % ("above field", "PANS-OPS", "column"))
+    for h, a, b in zip(vals["cold_height_agl_m"], vals["cold_correction_icao_m"],
+                       vals["cold_correction_column_m"]):
+        out.append("%7d %s AGL %+6d %s %+6d %s" % (_h_number(s, h), u, _h_number(s, a), u,
+                                                  _h_number(s, b), u))
+    return out + ["add to indicated (QNH) heights"]
+
+
+def altimeter_word(s, w, args):
+    """The levels or cold word (w) of session s: (keys, values, text lines or None)."""
+    if w == "levels":
+        no_args(w, args)
+        return levels_word(s, s.column(w), s.report(w))
+    return cold_word(s, w, s.column(w), args)
+
+
+def levels_word(s, col, rep):
+    """The levels word: (keys, values, text lines). Every single height of report rep
+    as [true MSL, indicated on QNH, flight level], lowest first; the warnings."""
+    from lapsecalc.altimetry import flight_level, cold_warnings
+    ind = rep["indicated_altitude_m"]
+    vals = {}
+    keys = []
+    for z, k in sorted((rep[k], k) for k in ind if ind[k] is not None):
+        vals[k] = [z, ind[k], flight_level(col.p_at(z))]
+        keys.append(k)
+    warn = cold_warnings(col, rep)
+    if s.mode != "text":
+        vals["warnings"] = cold_warning_text(s, warn)
+        return keys + ["warnings"], vals, None
+    return keys, vals, levels_text(s, keys, vals, warn)
+
+
+# Heights above the field the cold word shows when asked for none, in the display unit.
+_COLD = {"ft": (500.0, 1000.0, 1500.0, 2000.0, 3000.0, 5000.0),
+         "m": (150.0, 300.0, 500.0, 1000.0, 1500.0)}
+COLD_KEYS = ("isa_deviation_c", "cold_height_agl_m", "cold_correction_icao_m",
+             "cold_correction_column_m")
+
+
+def cold_word(s, w, col, args):
+    """The cold word: (keys, values, text lines) of the cold-temperature correction
+    (PANS-OPS formula and the column's own) for a few heights above the field, or for
+    the one in args (cold 1200ft)."""
+    from lapsecalc.altimetry import (cold_temperature_correction, column_cold_correction,
+                                     isa_deviation_at, TROPOPAUSE_M)
+    room = min(col.top_m, TROPOPAUSE_M) - col.elev_m
+    if len(args) > 1:
+        raise ValueError("cold takes one height above the field, e.g. cold 1500ft; alone"
+                         " it gives a few")
+    if args:
+        hs = [value(args[0], "h", s.disp["h"], 0.0, room)]
+    else:
+        u = s.disp["h"]
+        hs = [h * units.M_PER_FT if u == "ft" else h for h in _COLD[u]]
+        hs = [h for h in hs if h <= room]
+    vals = {"isa_deviation_c": isa_deviation_at(col, col.elev_m), "cold_height_agl_m": hs,
+            "cold_correction_icao_m": [cold_temperature_correction(h, col.t_c, col.elev_m)
+                                       for h in hs],
+            "cold_correction_column_m": [column_cold_correction(col, h) for h in hs]}
+    return COLD_KEYS, vals, cold_text(s, vals) if s.mode == "text" else None
+
+
+def flight_level_token(tok):
+    """The flight level (hundreds of feet of pressure altitude) a token "FL85" or
+    "fl180" names, or None when tok does not start with FL."""
+    if tok[:2].lower() != "fl":
+        return None
+    sp = split_number(tok[2:])
+    if sp is None or sp[1] or tok[2:3] in "+-":
+        raise ValueError("'%s' is not a flight level; accepted FL and a number, e.g. FL85,"
+                         " FL180" % shown(tok))
+    return float(sp[0])
+
+
+# heights WORD -> how levels are shown: true (geopotential) MSL or indicated on QNH.
+_HEIGHTS = {"msl": "msl", "true": "msl", "ind": "ind", "qnh": "ind"}
+
+
+def heights_word(s, w, args):
+    """The heights word: levels shown true (msl) or indicated on QNH (ind)."""
+    mode = _HEIGHTS.get(args[0].lower()) if len(args) == 1 else None
+    if mode is None:
+        raise ValueError("heights needs msl (true heights) or ind (indicated on QNH)")
+    disp = dict(s.disp)
+    disp["z"] = mode
+    s.disp = disp
+    return ack(s, "heights " + ("MSL (true)" if mode == "msl" else "IND (on QNH)"), ["heights"])
+
+
+def height_aloft(s, w, args, col):
+    """The height, m MSL, of a flight level ("FL85") or of an indicated height on QNH
+    ("5000ft ind", or a bare height after "heights ind") in column col."""
+    from lapsecalc.altimetry import z_at_flight_level, true_altitude_of
+    fl = flight_level_token(args[0])
+    if fl is not None:
+        if len(args) > 1:
+            raise ValueError("%s: nothing may follow a flight level, e.g. %s FL85" % (w, w))
+        return z_at_flight_level(col, fl)
+    return true_altitude_of(col, number(args[0], "h", s.disp["h"]))

@@ -9,6 +9,7 @@ package(
     "lapsecalc",
     files=(
         "aloft.py",
+        "aloftwords.py",
         "altimetry.py",
         "altitext.py",
         "balloon.py",

@@ -5,6 +5,7 @@ from lapsecalc import units
 from lapsecalc.groups import GROUPS
 from lapsecalc.output import f_h, f_t, f_dt, f_p, wrap as wrap_text
 from lapsecalc.state import dewpoint_of, STANDARD_QNH_HPA, ISA_LAPSE_K_PER_KM, DEFAULT_TOP_M
+from lapsecalc.state import DEFAULT_TROP_M
 
 # A new result key: its label and kind here (LABELS), its place in lapsecalc.groups.
 # Report key -> (label, kind) for text mode. Kinds: z a level, shown true MSL or, after
@@ -332,6 +333,13 @@ def show_text(s):
     put("top" if top is not None else "top (default)",
         f_h(s, DEFAULT_TOP_M if top is None else top, False, " MSL"))
     put("excess", f_dt(s, st.get("excess_c", 0.0)))
+    if "aloft" in st or "trop_m" in st:
+        from lapsecalc.aloftwords import point_text
+        for i, pt in enumerate(st.get("aloft", ())):
+            put("aloft" if i == 0 else "", point_text(s, pt))
+        trop = st.get("trop_m", DEFAULT_TROP_M)
+        put("trop" if "trop_m" in st else "trop (default)",
+            "   none" if trop is None else f_h(s, trop))
     for key, label, kind in (("env_m3", "env", "m3"), ("wt_kg", "wt", "kg"),
                              ("fill_m3", "fill", "m3"), ("tmax_c", "tmax", "t"),
                              ("tenv_c", "tenv", "t"), ("margin_k", "margin", "dt"),

@@ -15,7 +15,7 @@ from lapsecalc.limits import check_t
 from lapsecalc.typed import number, value, shown, said, unit_kind, no_args
 from lapsecalc.groups import GROUPS, report_keys
 from lapsecalc.output import f_h, f_h1, f_p, kv_value, kv_lines, machine, ack
-from lapsecalc.state import assumed, STANDARD_QNH_HPA, ISA_LAPSE_K_PER_KM, DEFAULT_TOP_M
+from lapsecalc.state import assumed, STANDARD_QNH_HPA, ISA_LAPSE_K_PER_KM, DEFAULT_TOP_M, DEFAULT_TROP_M
 
 
 def emit(s, keys, values, balloon=False, word=None, rest=True):
@@ -322,10 +322,15 @@ def _c_show(s, w, args):
             "gas_volume_m3": st.get("fill_m3"), "max_envelope_t_c": st.get("tmax_c"),
             "envelope_t_c": st.get("tenv_c"), "margin_k": st.get("margin_k"),
             "gas": st.get("gas"), "purity": st.get("purity"),
-            "superheat_k": st.get("superheat_k")}
+            "superheat_k": st.get("superheat_k"), "aloft_points": None,
+            "tropopause_msl_m": st.get("trop_m")}
+    if "aloft" in st:
+        from lapsecalc.aloftwords import point_kv
+        vals["aloft_points"] = ";".join(point_kv(pt) for pt in st["aloft"])
     defaults = []
     for key, value in (("qnh_hpa", STANDARD_QNH_HPA), ("elr_k_per_km", ISA_LAPSE_K_PER_KM),
                        ("top_msl_m", DEFAULT_TOP_M), ("thermal_excess_c", 0.0),
+                       ("tropopause_msl_m", None if "trop_m" in st else DEFAULT_TROP_M),
                        ("purity", 1.0 if "gas" in st else None)):
         if vals[key] is None and value is not None and not (
                 key == "qnh_hpa" and pk == "stn"):
@@ -337,7 +342,7 @@ def _c_show(s, w, args):
     keys = ("t_c", "td_c", "rh_pct", "elevation_m", "qnh_hpa", "station_pressure_hpa",
             "elr_k_per_km", "top_msl_m", "thermal_excess_c", "envelope_m3", "weight_kg",
             "gas_volume_m3", "max_envelope_t_c", "envelope_t_c", "margin_k", "gas", "purity",
-            "superheat_k", "defaults", "units", "out")
+            "superheat_k", "aloft_points", "tropopause_msl_m", "defaults", "units", "out")
     if s.mode == "json":
         return [s.json.dumps(machine("", vals))]
     return kv_lines(vals, keys)

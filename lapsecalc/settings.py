@@ -14,6 +14,7 @@ from lapsecalc.limits import QNH_MIN_HPA, QNH_MAX_HPA, P_MIN_HPA, P_MAX_HPA
 from lapsecalc.column import TOP_MAX_M
 from lapsecalc.typed import number, shown, value, said, unit_of, digits, in_unit
 from lapsecalc.output import f_h1, f_t, f_dt, f_p, f_lapse
+from lapsecalc.state import fl_pressure_hpa  # noqa: F401 (settings.fl_pressure_hpa)
 
 try:
     from micropython import const
@@ -47,11 +48,6 @@ def parse_level(tok):
                      " 914m, 2.5km), a flight level (FL180) or a pressure (700hPa)" % shown(tok))
 
 
-def fl_pressure_hpa(fl):
-    """The pressure, hPa, of flight level fl: the ICAO standard atmosphere's pressure at
-    fl hundred feet (ICAO Doc 7488/3)."""
-    from lapsecalc.standard import isa
-    return isa(fl * 30.48)[1]
 
 
 def _sig(x):
@@ -276,6 +272,16 @@ def _s_superheat(s, new, args):
     return "superheat " + echo(s, args[0], "dt", "k", new["superheat_k"])
 
 
+def _s_aloft(s, new, args):
+    from lapsecalc.aloftwords import set_aloft
+    return set_aloft(s, new, args, parse_level)
+
+
+def _s_trop(s, new, args):
+    from lapsecalc.aloftwords import set_trop
+    return set_trop(s, new, args, echo)
+
+
 def whole(s, new):
     """Check what one setting alone cannot (ValueError in the user's words and display
     units): a dewpoint above the temperature, a station pressure without a QNH in
@@ -298,6 +304,15 @@ def whole(s, new):
     if top is not None and elev is not None and top < elev + 100.0:
         raise ValueError("top %s is less than 100 m (330 ft) above the field (%s)"
                          % (f_h1(s, top), f_h1(s, elev)))
+    if "aloft" in new or new.get("trop_m") is not None:
+        p_stn = None
+        if press is not None and press[0] == "stn":
+            p_stn = press[1]
+        elif elev is not None:
+            from lapsecalc.standard import station_pressure
+            p_stn = station_pressure(press[1] if press is not None else 1013.25, elev)
+        from lapsecalc.aloftwords import check
+        check(s, new, p_stn)
     tmax, tenv = new.get("tmax_c"), new.get("tenv_c")
     if tmax is not None and tenv is not None and tenv > tmax:
         raise ValueError("working temp tenv %s is above the maximum tmax %s; allowed up to"
@@ -321,4 +336,5 @@ SETTINGS = {
     "tenv": (_s_tballoon("tenv_c", "tenv"), ONE, "tenv 95C"),
     "gas": (_s_gas, ONE, "gas helium"), "pure": (_s_pure, ONE, "pure 98%"),
     "margin": (_s_margin, ONE, "margin 20K"), "superheat": (_s_superheat, ONE, "superheat 12K"),
+    "aloft": (_s_aloft, REST, "aloft 6000ft 9C/2C"), "trop": (_s_trop, ONE, "trop 36000ft"),
 }

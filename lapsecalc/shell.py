@@ -34,7 +34,7 @@ PROMPT = "lc> "
 # (measured: bench/mpy_budget.py). A new module that only some lines need goes here.
 WORD_MODULES = ("helptext", "chart", "balloon", "loadtable", "balloontext", "metar", "demo",
                 "layout", "parcel", "stability", "hazards", "hazardtext", "aloft",
-                "altimetry", "altitext", "indicated")
+                "altimetry", "altitext", "indicated", "aloftwords")
 # The words whose report carries the altimetry keys (isa_deviation_c,
 # density_altitude_dry_m, indicated_altitude_m: Column.report(altimetry=True)).
 ALTIMETRY_WORDS = ("report", "obs", "da", "levels")
@@ -214,7 +214,7 @@ class Session:
         """Check the whole new state, then replace the old one (nothing changes before)."""
         same_air = True
         for k in AIR_KEYS:
-            if new.get(k) != self.state.get(k):
+            if new.get(k) != self.state.get(k) or (k in new) != (k in self.state):
                 same_air = False
         col = self._col
         if not same_air:

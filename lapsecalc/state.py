@@ -6,7 +6,8 @@ and the Column it describes (runs on MicroPython)."""
 # or "stn", hPa), lapse (K/km, or layers [(top_agl_m or None, k_per_km), ...]), top_m,
 # excess_c; balloon: env_m3, wt_kg, fill_m3, tmax_c, tenv_c (the working, mean
 # envelope temperature), margin_k (tmax less the default working temperature), gas,
-# purity (0.5..1), superheat_k (the gas over the air).
+# purity (0.5..1), superheat_k (the gas over the air); aloft (points, lapsecalc.aloftwords),
+# trop_m (tropopause m MSL or None: off).
 # The setting words (lapsecalc.settings) write them into a copy; the shell commits it.
 from lapsecalc.limits import check_dew
 from lapsecalc.column import Column
@@ -14,15 +15,17 @@ from lapsecalc.column import Column
 ISA_LAPSE_K_PER_KM = 6.5  # ICAO standard atmosphere below 11 km (common practice)
 STANDARD_QNH_HPA = 1013.25  # ICAO standard sea-level pressure (common practice)
 DEFAULT_TOP_M = 16000.0
+DEFAULT_TROP_M = 11000.0  # ICAO standard atmosphere tropopause (common practice)
 
 # clear WORD -> state keys it forgets
 CLEAR = {"temp": ("t_c",), "dew": ("hum",), "rh": ("hum",), "elev": ("elev_m",),
          "qnh": ("press",), "stn": ("press",), "elr": ("lapse",), "top": ("top_m",),
          "excess": ("excess_c",), "env": ("env_m3",), "wt": ("wt_kg",), "fill": ("fill_m3",),
          "tmax": ("tmax_c",), "tenv": ("tenv_c",), "gas": ("gas",), "pure": ("purity",),
-         "margin": ("margin_k",), "superheat": ("superheat_k",)}
+         "margin": ("margin_k",), "superheat": ("superheat_k",),
+         "aloft": ("aloft",), "trop": ("trop_m",)}
 # State keys the air column depends on (others leave the cached report alone).
-AIR_KEYS = ("t_c", "hum", "elev_m", "press", "lapse", "top_m", "excess_c")
+AIR_KEYS = ("t_c", "hum", "elev_m", "press", "lapse", "top_m", "excess_c", "aloft", "trop_m")
 
 
 def dewpoint_of(st):
@@ -32,6 +35,25 @@ def dewpoint_of(st):
         return check_dew(st["t_c"], v)[1]
     from lapsecalc.moisture import dewpoint
     return dewpoint(st["t_c"], v)
+
+
+def fl_pressure_hpa(fl):
+    """The pressure, hPa, of flight level fl: the ICAO standard atmosphere's pressure at
+    fl hundred feet (ICAO Doc 7488/3)."""
+    from lapsecalc.standard import isa
+    return isa(fl * 30.48)[1]
+
+
+def aloft_points(pts):
+    """The state's points aloft (kind, level, t_c, td_c; lapsecalc.aloftwords) as
+    lapsecalc.column.Column takes them."""
+    out = []
+    for kind, level, t, td in pts:
+        if kind == "z":
+            out.append((level, t, td))
+        else:
+            out.append((fl_pressure_hpa(level) if kind == "fl" else level, t, td, "hPa"))
+    return out
 
 
 def missing(st):
@@ -46,11 +68,15 @@ def build_column(st):
     kind, p = st.get("press", ("qnh", STANDARD_QNH_HPA))
     lapse = st.get("lapse", ISA_LAPSE_K_PER_KM)
     top = st.get("top_m", DEFAULT_TOP_M)
+    pts = None
+    if "aloft" in st:
+        pts = aloft_points(st["aloft"])
+    trop = st["trop_m"] if "trop_m" in st else DEFAULT_TROP_M
     if kind == "qnh":
-        return Column.from_qnh(st["t_c"], td, p, st["elev_m"], lapse, top)
+        return Column.from_qnh(st["t_c"], td, p, st["elev_m"], lapse, top, pts, trop)
     from lapsecalc.standard import qnh
     qnh(p, st["elev_m"])  # the report gives QNH: refuse a pressure without one
-    return Column(st["t_c"], td, p, st["elev_m"], lapse, top)
+    return Column(st["t_c"], td, p, st["elev_m"], lapse, top, pts, trop)
 
 
 def assumed(st, balloon=False):

@@ -139,6 +139,7 @@ INTERPRETER_LAYERS = (
     ("settings", "queries", "commands"),
     ("altitext",),
     ("layout", "chart", "metar", "helptext", "loadtable", "balloontext"),
+    ("aloftwords",),
     ("balloon", "groups", "output", "state", "typed", "hazardtext"),
     ("altimetry",),  # library extras over the core: altimetry.py over indicated.py,
     ("indicated",),  # which column.report() tries under "except ImportError"

@@ -712,7 +712,8 @@ def test_queries_kv():
                   "station_pressure_hpa=", "elr_k_per_km=250:9.5;2400:7.5;:6.5",
                   "top_msl_m=16000", "thermal_excess_c=0", "envelope_m3=", "weight_kg=",
                   "gas_volume_m3=", "max_envelope_t_c=", "envelope_t_c=", "margin_k=", "gas=",
-                  "purity=", "superheat_k=", "defaults=top_msl_m,thermal_excess_c",
+                  "purity=", "superheat_k=", "aloft_points=", "tropopause_msl_m=11000",
+                  "defaults=top_msl_m,thermal_excess_c,tropopause_msl_m",
                   "units=ft,c,hpa", "out=kv"]),
         ("temp 28 dew 12", ["ok=temp,dew"]),
         ("clear elr", ["ok=clear"]),
@@ -871,8 +872,9 @@ def test_errors_name_the_problem_and_what_is_accepted():
         ("out xml", ["error: out needs one of text, kv, json"]),
         ("help nothing", ["error: help takes one word of the list, e.g. help elr; help alone"
                           " lists them"]),
-        ("clear moon", ["error: clear: 'moon' is not a setting; accepted dew elev elr env excess"
-                        " fill gas margin pure qnh rh stn superheat temp tenv tmax top wt"]),
+        ("clear moon", ["error: clear: 'moon' is not a setting; accepted aloft dew elev elr env"
+                        " excess fill gas margin pure qnh rh stn superheat temp tenv tmax top"
+                        " trop wt"]),
         ("gas neon", ["error: gas 'neon' not accepted; accepted helium (he), hydrogen"
                       " (h2), none (hot air)"]),
         ("x" * (MAX_LINE + 1), ["error: line of 257 characters refused; accepted at most 256"]),
@@ -1288,3 +1290,112 @@ def test_ice_and_frost_words_in_a_freezing_rain_setup():
     h = " ".join(s.feed("help ice"))
     assert "air's" in h and "parcel" in h and "lower 0C level" in h
     assert all(len(line) <= 40 for line in s.feed("help ice") + s.feed("help frost"))
+
+
+# ---- points aloft and the tropopause (aloft, trop) --------------------------------
+
+def _aloft_session():
+    s = session("kv")
+    assert s.feed("temp 27C dew 13C elev 1350ft") == ["ok=temp,dew,elev"]
+    return s
+
+
+def test_aloft_points_merge_replace_and_build_the_column():
+    s = _aloft_session()
+    # Two points, then one a line as a pilot reads them in a climb; FL180 is the ISA
+    # pressure of 18000 ft (settings.fl_pressure_hpa), 700hPa a pressure point.
+    assert s.feed("aloft 6000ft 9C/2C 3000ft 15C") == ["ok=aloft"]
+    assert s.feed("aloft FL180 -14C/-30C") == ["ok=aloft"]
+    assert s.feed("aloft 700hPa 2C") == ["ok=aloft"]
+    # The same level again replaces the old point (6000 ft: 9C/2C -> 8C, no dewpoint).
+    assert s.feed("aloft 6000 ft 8C") == ["ok=aloft"]
+    from lapsecalc.settings import fl_pressure_hpa
+    want = [(3000 * 0.3048, 15.0, None), (6000 * 0.3048, 8.0, None),
+            (700.0, 2.0, None, "hPa"), (fl_pressure_hpa(180), -14.0, -30.0, "hPa")]
+    assert s.state["aloft"] == (("z", 3000 * 0.3048, 15.0, None), ("z", 6000 * 0.3048, 8.0, None),
+                                ("p", 700.0, 2.0, None), ("fl", 180, -14.0, -30.0))
+    col = Column.from_qnh(27.0, 13.0, 1016.0, 1350 * 0.3048, [(250.0, 9.5), (2400.0, 7.5),
+                                                              (None, 6.5)], aloft=want)
+    got = kvdict(s.feed("at 6000ft"))
+    assert float(got["at_t_c"]) == pytest.approx(8.0, abs=MK)
+    assert float(got["at_p_hpa"]) == pytest.approx(col.p_at(6000 * 0.3048), abs=HPA)
+    # Halfway between 3000 ft and 6000 ft the temperature is linear: 11.5 C.
+    assert float(kvdict(s.feed("at 4500ft"))["at_t_c"]) == pytest.approx(11.5, abs=MK)
+    assert float(kvdict(s.feed("at 700hPa"))["at_t_c"]) == pytest.approx(2.0, abs=MK)
+    shown = kvdict(s.feed("show"))
+    assert shown["aloft_points"] == "z914.4:15:;z1828.8:8:;p700:2:;fl180:-14:-30"
+    assert shown["tropopause_msl_m"] == "11000" and "tropopause_msl_m" in shown["defaults"]
+    s.feed("out json")
+    js = json.loads(s.feed("show")[0])
+    assert js["aloft_points"].startswith("z914.4:15:;") and js["tropopause_msl_m"] == 11000.0
+    s.feed("out text")
+    text = s.feed("show")
+    i = text.index("aloft        3000 ft 15.0 C")
+    assert text[i + 1:i + 4] == ["             6000 ft 8.0 C", "             700.0 hPa 2.0 C",
+                                 "             FL180 -14.0 C/-30.0 C"]
+    assert "trop (default)  36089 ft  11000 m" in text
+    assert s.feed("clear aloft") == ["ok: cleared aloft"]
+    assert "aloft" not in s.state
+    assert not any(line.startswith("aloft") for line in s.feed("show"))
+
+
+def test_aloft_and_trop_refusals_change_nothing():
+    s = _aloft_session()
+    assert s.feed("aloft 6000ft 9C/2C FL180 -14C") == ["ok=aloft"]
+    assert s.feed("trop 36000ft") == ["ok=trop"]
+    before = s.snapshot(), kv_report(s)
+    for line, words in (
+            ("aloft 1000ft 20C", "aloft 1000 ft is not above the field (elev 1350 ft)"),
+            ("aloft 1350ft 20C", "not above the field"),
+            ("aloft 60000ft -50C", "above the column top"),
+            ("aloft 5000ft 5C/9C", "aloft 5000ft: dew 9 C is above temp 5 C"),
+            ("aloft 5000ft nanC", "'nanC' is not a number"),
+            ("aloft 5000ft", "takes pairs LEVEL TEMP[/DEW]"),
+            ("aloft 5000 9C", "'5000' is not a level"),
+            ("aloft 5000ft 99C", "99 C is outside -90..60 C"),
+            ("aloft 990hPa 20C", "aloft 990.0 hPa is not above the field"),
+            ("aloft 1200hPa 20C", "1200 hPa is outside 1..1100 hPa"),
+            ("aloft FL600 -56C", "above the column top"),
+            ("aloft 8000ft 5C 8000ft 4C/9C", "dew 9 C is above temp 4 C"),
+            ("aloft 8000ft 5C/1C/0C", "write TEMP or TEMP/DEW"),
+            ("trop 1000ft", "trop 1000 ft is less than 100 m (330 ft) above the field"),
+            ("trop 200000ft", "is outside"),
+            ("trop high", "'high' is not a number"),
+            ("elev 7000ft", "aloft 6000 ft is not above the field (elev 7000 ft)")):
+        got = " ".join(x.strip() for x in s.feed(line))
+        assert got.startswith("error=") and words in got, (line, got)
+        assert (s.snapshot(), kv_report(s)) == before, line
+
+
+def test_trop_sets_and_turns_off_the_isothermal_part():
+    # ICAO Doc 7488/3 (REFERENCES.md): ISA is isothermal at -56.5 C from 11 to 20 km;
+    # 15000 m 120.445 hPa.
+    s = session("kv")
+    assert s.feed("elev 0m temp 15C dew 5C qnh 1013.25 elr 6.5 top 20km") == [
+        "ok=elev,temp,dew,qnh,elr,top"]
+    at15 = kvdict(s.feed("at 15km"))
+    assert float(at15["at_t_c"]) == pytest.approx(-56.5, abs=MK)
+    assert float(at15["at_p_hpa"]) == pytest.approx(120.445, rel=1e-4)
+    assert s.feed("trop none") == ["ok=trop"]
+    at15 = kvdict(s.feed("at 15km"))
+    assert float(at15["at_t_c"]) == pytest.approx(15.0 - 6.5 * 15.0, abs=MK)
+    assert float(at15["at_p_hpa"]) < 120.0
+    # A lower tropopause: isothermal from 9 km (15 - 6.5 * 9 = -43.5 C).
+    assert s.feed("trop 9km") == ["ok=trop"]
+    assert float(kvdict(s.feed("at 12km"))["at_t_c"]) == pytest.approx(-43.5, abs=MK)
+    assert kvdict(s.feed("show"))["tropopause_msl_m"] == "9000"
+    assert s.feed("clear trop") == ["ok=clear"]
+    assert float(kvdict(s.feed("at 12km"))["at_t_c"]) == pytest.approx(-56.5, abs=MK)
+
+
+def test_isa_temperatures_as_points_give_the_isa_pressures():
+    # ICAO Doc 7488/3 (REFERENCES.md): ISA temperatures at 1, 2, 5 and 11 km are 8.5,
+    # 2.0, -17.5, -56.5 C; pressures there 898.75, 794.95, 540.20, 226.32 hPa; 700 hPa
+    # lies at 3012.2 m. The ELR is set wrong (3 K/km) so only the points can give these.
+    s = session("kv")
+    s.feed("elev 0m temp 15C dew 5C qnh 1013.25 elr 3")
+    assert s.feed("aloft 1km 8.5C 2km 2C 5km -17.5C 8km -37C 11km -56.5C") == ["ok=aloft"]
+    for h, p in (("1km", 898.75), ("2km", 794.95), ("5km", 540.20), ("11km", 226.32)):
+        got = kvdict(s.feed("at " + h))
+        assert float(got["at_p_hpa"]) == pytest.approx(p, rel=1e-4), h
+    assert float(kvdict(s.feed("at 700hPa"))["at_msl_m"]) == pytest.approx(3012.2, abs=1.0)

@@ -15,7 +15,7 @@ _PLOT_W = WIDTH - 13
 _MARKS_PER_ROW = 3
 # Right-margin letters: report key -> letter, in the order they are written.
 MARKS = (("cloud_base_msl_m", "B"), ("freezing_level_msl_m", "F"), ("lfc_msl_m", "L"),
-         ("el_msl_m", "E"), ("thermal_top_msl_m", "T"))
+         ("el_msl_m", "E"), ("thermal_top_msl_m", "T"), ("tropopause_msl_m", "P"))
 _TOP_KEYS = ("cloud_base_msl_m", "freezing_level_msl_m", "minus20_level_msl_m", "lfc_msl_m",
              "el_msl_m", "icing_band_top_msl_m", "thermal_top_msl_m", "ccl_msl_m")
 
@@ -82,7 +82,9 @@ def text(col, rep, levels, h_unit="ft", t_unit="c", top_m=None, rows=ROWS):
     of one row). Row r (0 at the top) spans the heights lo + (rows-1-r)*dz ..
     lo + (rows-r)*dz with lo the field and dz = (hi-lo)/rows. The bottom row is
     labelled with the field, the top row with the chart's top (top_m when given: a
-    zoom), every fourth row between with its middle height."""
+    zoom), every fourth row between with its middle height. Points aloft
+    (col.aloft_m) are "*" on the environment in their row, the tropopause the letter P;
+    a third legend line names them when the chart shows either."""
     lo = col.elev_m
     hi = top_of(col, rep, top_m)
     dz = (hi - lo) / rows
@@ -102,6 +104,7 @@ def text(col, rep, levels, h_unit="ft", t_unit="c", top_m=None, rows=ROWS):
     base_row = row_of(rep.get("cloud_base_msl_m"))
     x0 = x(0.0 if t_unit == "c" else 32.0) if t_lo < (0.0 if t_unit == "c" else 32.0) < t_hi \
         else None
+    points = [z for z in (col.aloft_m or ()) if row_of(z) is not None]
     marks = {}
     for key, letter in MARKS:
         r = row_of(rep.get(key))
@@ -127,6 +130,9 @@ def text(col, rep, levels, h_unit="ft", t_unit="c", top_m=None, rows=ROWS):
                     cells[i] = ch
                 elif ch == "o" and (i == a or b == 0):
                     cells[i] = "X"
+        for z in points:
+            if row_of(z) == r:
+                cells[x(c_to_f(col.t_at(z)) if t_unit == "f" else col.t_at(z))] = "*"
         # Labelled: the field (bottom row), the top of the chart (top row) and the
         # middle of every fourth row between.
         label = _label(_h(lo, h_unit)) if b == 0 else _label(_h(hi, h_unit)) if (
@@ -145,6 +151,8 @@ def text(col, rep, levels, h_unit="ft", t_unit="c", top_m=None, rows=ROWS):
     out.append("".join(ticks).rstrip())
     out.append("#env o parcel X both .0C -base :icing")
     out.append("B base F 0C L LFC E EL T thermal top")
+    if points or row_of(rep.get("tropopause_msl_m")) is not None:
+        out.append("* point aloft P tropopause")
     return out
 
 
@@ -159,7 +167,8 @@ def _esc(s):
 def svg(col, rep, levels, h_unit="ft", t_unit="c", top_m=None):
     """The profile as an SVG document (a string): polylines "environment" and
     "parcel", an "icing" band rectangle, lines for the 0-degree isotherm and for each
-    marked level (ids cloud-base, freezing-level, lfc, el, thermal-top), axes and
+    marked level (ids cloud-base, freezing-level, lfc, el, thermal-top, tropopause),
+    a dot (class aloft-point) on the environment at each point aloft, axes and
     labels in the display units."""
     w, h = 360, 480
     left, right, top, bottom = 56, 16, 34, 64
@@ -210,7 +219,13 @@ def svg(col, rep, levels, h_unit="ft", t_unit="c", top_m=None):
                ' stroke-dasharray="6 3"/>' % pts(par))
     names = {"cloud_base_msl_m": ("cloud-base", "cloud base"),
              "freezing_level_msl_m": ("freezing-level", "0 deg"), "lfc_msl_m": ("lfc", "LFC"),
-             "el_msl_m": ("el", "EL"), "thermal_top_msl_m": ("thermal-top", "thermal top")}
+             "el_msl_m": ("el", "EL"), "thermal_top_msl_m": ("thermal-top", "thermal top"),
+             "tropopause_msl_m": ("tropopause", "tropopause")}
+    for z in col.aloft_m or ():
+        if lo <= z <= hi:
+            t = col.t_at(z)
+            out.append('<circle class="aloft-point" cx="%.1f" cy="%.1f" r="3" fill="black"/>'
+                       % (px(c_to_f(t) if t_unit == "f" else t), py(z)))
     shown = [(py(rep[key]), key) for key, _ in MARKS
              if rep.get(key) is not None and lo <= rep[key] <= hi]
     shown.sort()

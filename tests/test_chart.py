@@ -40,7 +40,9 @@ def test_width_and_height():
         for h_unit, t_unit in (("ft", "c"), ("m", "f")):
             lines = _draw(col, h_unit=h_unit, t_unit=t_unit)[2]
             assert all(len(line) <= 40 for line in lines), lines
-            assert len(lines) == 1 + chart.ROWS + 4
+            # A third legend line when a point aloft or the tropopause is on the chart.
+            third = lines[-1] == "* point aloft P tropopause"
+            assert len(lines) == 1 + chart.ROWS + 4 + third
             for row in lines[1:1 + chart.ROWS]:
                 # 5 label + "|" + 27 plot + "|" + icing column + 5 letters = 40.
                 assert row.count("|") == 2 and len(row.split("|")[1]) == 27
@@ -100,7 +102,7 @@ def test_icing_band_in_the_margin_only():
     for r in got:
         assert ":" not in _plot(rows[r])
         assert "#" in _plot(rows[r]) or "X" in _plot(rows[r])
-    assert ":icing" in lines[-2]
+    assert ":icing" in lines[1 + chart.ROWS + 2]
 
 
 def test_svg_parses_with_expected_elements():
@@ -211,3 +213,28 @@ def test_svg_labels_do_not_overlap():
                 for b in boxes[i + 1:]:
                     apart = a[2] <= b[0] or b[2] <= a[0] or a[3] <= b[1] or b[3] <= a[1]
                     assert apart, (a[4], b[4])
+
+
+def test_points_aloft_and_tropopause_are_marked():
+    # ISA temperatures as points (ICAO Doc 7488/3: 8.5 C at 1000 m, -4.5 C at 3000 m),
+    # a tropopause at 5000 m. Chart 0..6000 m in 16 rows of 375 m: 1000 m is band 2
+    # (row 13), 3000 m band 8 (row 7), 5000 m band 13 (row 2).
+    col = Column.from_qnh(15.0, 5.0, 1013.25, 0.0, 6.5, 16000.0,
+                          aloft=[(3000.0, -4.5, None), (1000.0, 8.5, None)], tropopause_m=5000.0)
+    rep, levels, lines = _draw(col, h_unit="m", top_m=6000.0)
+    rows = lines[1:1 + chart.ROWS]
+    assert [r for r in range(chart.ROWS) if "*" in _plot(rows[r])] == [7, 13]
+    t_lo, t_hi = chart._frame(col, levels, 0.0, 6000.0, "c", 2 * chart.ROWS)[3:5]
+    for r, t in ((13, 8.5), (7, -4.5)):
+        assert _plot(rows[r]).index("*") == int(round((t - t_lo) / (t_hi - t_lo) * 26))
+    assert [r for r in range(chart.ROWS) if "P" in _margin(rows[r])] == [2]
+    assert lines[-1] == "* point aloft P tropopause" and len(lines) == 1 + chart.ROWS + 5
+    # Without points and with the tropopause above the chart: no third legend line.
+    assert len(_draw(_isa_column(), h_unit="m", top_m=6000.0)[2]) == 1 + chart.ROWS + 4
+    root = ET.fromstring(chart.svg(col, rep, levels, "m", "c", top_m=6000.0))
+    dots = [e for e in root.iter(SVG + "circle") if e.get("class") == "aloft-point"]
+    # y = 34 + (6000 - z) / 6000 * 382 (the plot box of the SVG test above).
+    assert sorted(float(e.get("cy")) for e in dots) == [
+        round(34.0 + 3000.0 / 6000.0 * 382.0, 1), round(34.0 + 5000.0 / 6000.0 * 382.0, 1)]
+    trop = [e for e in root.iter(SVG + "line") if e.get("id") == "tropopause"]
+    assert len(trop) == 1 and abs(float(trop[0].get("y1")) - (34.0 + 382.0 / 6.0)) < PX_TOL

@@ -52,11 +52,25 @@ def lambert_w_minus1(x):
         wp1 = w + 1.0
         if wp1 == 0.0:
             return w
-        step = f / (ew * wp1 - (w + 2.0) * f / (2.0 * wp1))
+        den = ew * wp1 - (w + 2.0) * f / (2.0 * wp1)
+        if den == 0.0:
+            return _lambert_log_form(w, log(-x))
+        step = f / den
         w -= step
         if fabs(step) <= _LAMBERT_TOL * fabs(w):
             return w
     raise ValueError("lambert_w_minus1 did not converge for x=%r" % x)
+
+
+def _lambert_log_form(w, ln_mx):
+    # W_-1 where exp(w) underflows (x within ~1e-300 of 0): Newton steps on the log
+    # form w + ln(-w) = ln(-x), at most 12, to 1e-6 relative (float32 reaches it).
+    for _ in range(_LAMBERT_CAP):
+        step = (w + log(-w) - ln_mx) / (1.0 + 1.0 / w)
+        w -= step
+        if fabs(step) <= _LAMBERT_TOL * fabs(w):
+            return w
+    raise ValueError("lambert_w_minus1 did not converge for ln(-x)=%r" % ln_mx)
 
 
 def _romps_pvstar(t_k):

@@ -149,3 +149,12 @@ def test_bolton_height_and_pressure():
     r = r_g / 1000.0
     tv = 0.5 * (t_k + t_l_ref) * (1.0 + r / (287.05287 / 461.5)) / (1.0 + r)
     assert abs(z - 287.05287 * tv / 9.80665 * math.log(p / p_ref)) < 1e-6
+
+
+def test_lambert_w_near_zero_where_exp_underflows():
+    # W e^W = x in log form, w + ln(-w) = ln(-x), which holds where exp(w) underflows
+    # (identity of the definition); x down to the smallest subnormal float.
+    for x in (-5e-324, -1e-310, -1e-300, -1e-200):
+        w = lambert_w_minus1(x)
+        assert w < -400.0
+        assert abs(w + math.log(-w) - math.log(-x)) < 1e-9 * abs(math.log(-x))

@@ -70,7 +70,7 @@ SESSIONS = (
 
 
 def expected(lines):
-    """CPython's transcript: the prompt and line, then Session().feed's lines, with the
+    """CPython's session output: the prompt and line, then Session().feed's lines, with the
     board's modules only (boardset.hide_later)."""
     undo = boardset.hide_later()
     try:

@@ -292,7 +292,7 @@ def test_help_knows_the_new_words(word):
     assert any(word in x for x in s.feed("help"))
 
 
-def test_readme_cold_day_transcript_is_what_the_interpreter_says():
+def test_readme_cold_day_session_is_what_the_interpreter_says():
     # The README's invented cold day: indicated and true side by side, as the
     # interpreter answers today (lines after "lc> " are its output).
     import os

@@ -3,7 +3,8 @@ wet-bulb freezing level, frost and fog at the field, carburettor icing, what the
 can be used, the cautions."""
 # Sources:
 #   Icing band: airframe icing is most likely in cloud between 0 and -20 degC (common
-#     practice; REFERENCES.md "Lapse rates").
+#     practice; REFERENCES.md "Lapse rates"); with dewpoints aloft, cloud where the
+#     dewpoint depression is at most 3 K (common practice; lapsecalc.aloft).
 #   Precipitation type: Bourgouin, P. (2000), "A method to determine precipitation
 #     types", Weather and Forecasting 15, 583-592: the melting (positive) area of a
 #     warm layer and the refreezing (negative) area of the cold layer beneath, each
@@ -174,6 +175,12 @@ def icing_band(col, levels, lcl_msl_m, cloud_top_msl_m, parcel_z0_msl_m):
     """The in-cloud layer at 0 to -20 degC where airframe icing is most likely
     (common practice), conservative: (bottom_msl_m, top_msl_m or None, basis), or None.
 
+    With dewpoints aloft (col.dews): basis "layers", the cloud layers
+    (lapsecalc.aloft.cloud_layers, spread at most 3 K) where the air is at 0 to
+    -20 degC (icing_layers), from the lowest to the highest of them; above the highest
+    dewpoint given the humidity is unknown, so when the air there reaches 0..-20 degC
+    the band runs on from there (or from the layers below) with its top unknown (None);
+    a convective cloud (an LFC) widens it as below.
     Convective cloud (cloud_top_msl_m given: an LFC exists; the top is the EL or the
     column top): the cloud mixes the rising parcel's air with the air around it, so the
     band runs from the lower of the two 0 degC levels (the air's and the parcel's,
@@ -188,18 +195,84 @@ def icing_band(col, levels, lcl_msl_m, cloud_top_msl_m, parcel_z0_msl_m):
                        col.level(0.0), col.level(ICING_COLDEST_C))
 
 
-def _icing_band(col, levels, lcl_msl_m, cloud_top_msl_m, parcel_z0_msl_m, z0a, z20a):
-    # icing_band with the air's 0 and -20 degC levels (col.level) given.
-    if lcl_msl_m is None or z0a is None or (z20a is not None and lcl_msl_m >= z20a):
+def _icing_air(col, a, b):
+    # [[bottom, top], ...] of [a, b] where the air is at 0 to -20 degC, lowest first:
+    # cut at the 0 and -20 degC crossings (linear layers: one side between two cuts).
+    marks = [a, b]
+    for t in (0.0, ICING_COLDEST_C):
+        for z in col.crossings(t):
+            if a < z < b:
+                marks.append(z)
+    marks.sort()
+    out = []
+    for i in range(len(marks) - 1):
+        lo, hi = marks[i], marks[i + 1]
+        if hi - lo < 0.01:
+            continue
+        t = col.t_at(0.5 * (lo + hi))
+        if ICING_COLDEST_C <= t <= 0.0:
+            if out and lo - out[-1][1] < 0.01:
+                out[-1][1] = hi
+            else:
+                out.append([lo, hi])
+    return out
+
+
+def icing_layers(col, clouds=None):
+    """[[bottom_m, top_m], ...] MSL, lowest first: the parts of the cloud layers from
+    dewpoints aloft (clouds, lapsecalc.aloft.cloud_layers; found when not given) where
+    the air is at 0 to -20 degC (common practice); None without dewpoints aloft."""
+    if clouds is None:
+        if col.dews is None:
+            return None
+        from lapsecalc.aloft import cloud_layers
+        clouds = cloud_layers(col)
+    out = []
+    for a, b in clouds:
+        out.extend(_icing_air(col, a, b))
+    return out
+
+
+def _layers_band(col, pieces, convective):
+    # The band from icing_layers pieces, the air above the highest dewpoint and the
+    # convective band (or None): (bottom, top or None, "layers") or None.
+    bottom = top = None
+    if pieces:
+        bottom, top = pieces[0][0], pieces[-1][1]
+    if convective is not None:
+        bottom = _lower(bottom, convective[0])
+        if top is None or top < convective[1]:
+            top = convective[1]
+    z_dew = col.dews[-1][0]
+    above = _icing_air(col, z_dew, col.top_m) if z_dew < col.top_m else []
+    if above:
+        # Humidity not given there: cloud can exist, top unknown.
+        bottom, top = _lower(bottom, above[0][0]), None
+    if bottom is None:
         return None
-    if cloud_top_msl_m is not None:
+    return bottom, top, "layers"
+
+
+def _icing_band(col, levels, lcl_msl_m, cloud_top_msl_m, parcel_z0_msl_m, z0a, z20a,
+                pieces=None):
+    # icing_band with the air's 0 and -20 degC levels (col.level) given; pieces:
+    # icing_layers(col), when at hand.
+    convective = None
+    if lcl_msl_m is not None and z0a is not None and (z20a is None or lcl_msl_m < z20a) \
+            and cloud_top_msl_m is not None:
         z20p = parcel.level(col, levels, ICING_COLDEST_C, lcl_msl_m)
         bottom = max(lcl_msl_m, _lower(z0a, parcel_z0_msl_m))
         top = _higher(z20a, z20p)
         if top is None or top > cloud_top_msl_m:
             top = cloud_top_msl_m
         if bottom < top:
-            return bottom, top, "parcel"
+            convective = (bottom, top, "parcel")
+    if col.dews is not None:
+        return _layers_band(col, icing_layers(col) if pieces is None else pieces, convective)
+    if convective is not None:
+        return convective
+    if lcl_msl_m is None or z0a is None or (z20a is not None and lcl_msl_m >= z20a):
+        return None
     bottom = max(lcl_msl_m, z0a)
     if bottom >= col.top_m:
         return None
@@ -316,18 +389,24 @@ def precip_type(col, warm=None, seg=None):
 def _wb_excess(col, z):
     # ASHRAE eq. 33 at a wet bulb of 0 degC minus the air's mixing ratio at z: negative
     # while the wet bulb there is above 0 degC (the balance grows with the wet bulb).
-    # The air's vapour as Column.vapour_pressure_at (surface mixing ratio, capped at
-    # saturation), computed here with one layer lookup (a board allocates per float).
+    # The air's vapour as Column.vapour_pressure_at: with dewpoints aloft from them
+    # (lapsecalc.aloft), else from the surface mixing ratio, capped at saturation,
+    # computed here with one layer lookup (a board allocates per float).
     for z0, z1, t0, grad, p0 in col.layers:
         if z <= z1:
             break
     t = t0 + grad * (z - z0) - T0_K
     p = layer_pressure(p0, t0, grad, z - z0)
-    r = col.r_kg_kg
-    e = r * p / (EPS + r)
-    es = _es_water(t)
-    w = EPS * (es if e > es else e) / (p - (es if e > es else e))
-    return (2501.0 * EPS * _AE_A / (p - _AE_A) - 1.006 * t) / (2501.0 + 1.86 * t) - w
+    if col.dews is None:
+        r = col.r_kg_kg
+        e = r * p / (EPS + r)
+        es = _es_water(t)
+        if e > es:
+            e = es
+    else:
+        e = col.vapour_pressure_at(z)
+    return (2501.0 * EPS * _AE_A / (p - _AE_A) - 1.006 * t) / (2501.0 + 1.86 * t) \
+        - EPS * e / (p - e)
 
 
 def wet_bulb_zero(col):
@@ -335,17 +414,19 @@ def wet_bulb_zero(col):
     0 degC (the snow level: falling snow melts little above it); the elevation when it
     is at or below 0 degC at the surface; None when it stays above 0 degC.
 
-    The air's humidity is the column's (Column.vapour_pressure_at). The wet bulb
-    reaches 0 degC at or below the air's 0 degC level, so the search runs from the
-    surface to that level (or the column top): the sign is sampled at the layer
-    boundaries (inside one linear layer the wet bulb changes monotonically), then
-    Illinois (regula falsi) steps, at most 40, to 0.5 m (stability._illinois)."""
+    The air's humidity is the column's (Column.vapour_pressure_at: the dewpoints aloft
+    where given, else the surface mixing ratio). The wet bulb is never above the air
+    temperature, so it reaches 0 degC at or below the air's 0 degC level and the
+    search runs from the surface to that level (or the column top): the sign is
+    sampled at the layer boundaries and the heights of the dewpoints aloft (between
+    them temperature and dewpoint are linear and the wet bulb changes monotonically),
+    then Illinois (regula falsi) steps, at most 40, to 0.5 m (stability._illinois)."""
     return _wet_bulb_zero(col, col.level(0.0))
 
 
 def _wet_bulb_zero(col, z_frz):
     # wet_bulb_zero with the air's 0 degC level z_frz (None: not in the column) given.
-    if z_frz is not None:
+    if z_frz is not None and col.dews is None:
         r = col.r_kg_kg
         if r * col.p_at(z_frz) / (EPS + r) >= _AE_A:
             # Saturated at 0 degC there: below it the dewpoint of the same mixing ratio
@@ -356,8 +437,13 @@ def _wet_bulb_zero(col, z_frz):
     fa = _wb_excess(col, a)
     if fa >= 0.0:
         return a
-    for layer in col.layers:
-        b = layer[1] if layer[1] < z_end else z_end
+    marks = [layer[1] for layer in col.layers]
+    if col.dews is not None:
+        marks = sorted(marks + [z for z, _ in col.dews])
+    for m in marks:
+        if m <= a:
+            continue
+        b = m if m < z_end else z_end
         fb = _wb_excess(col, b)
         if fb >= 0.0:
             return _illinois(lambda z: -_wb_excess(col, z), a, -fa, b, -fb,
@@ -409,7 +495,9 @@ def cautions(r):
     if b is not None:
         t = r["icing_band_top_msl_m"]
         out.append("Icing likely in cloud from %s MSL %s." % (
-            _h(b), "to %s" % _h(t) if t is not None else "up (cloud tops unknown)"))
+            _h(b), "to %s" % _h(t) if t is not None else
+            "up (no dewpoints given above)" if r["icing_band_basis"] == "layers" else
+            "up (cloud tops unknown)"))
     if r.get("warm_layer_bottom_msl_m") is not None:
         out.append("Warm layer (max %+.1f degC) %s to %s MSL over freezing air %d m deep:"
                    " freezing rain or ice pellets possible, here %s." % (
@@ -442,8 +530,11 @@ def add_to_report(col, levels, r):
     cloud_top = None
     if r["lfc_msl_m"] is not None:
         cloud_top = col.top_m if r["el_above_top"] else r["el_msl_m"]
+    clouds = r.get("cloud_layers_msl_m")
+    pieces = None if clouds is None else icing_layers(col, clouds)
     band = _icing_band(col, levels, lcl, cloud_top, r["parcel_freezing_level_msl_m"],
-                       r["freezing_level_msl_m"], r["minus20_level_msl_m"])
+                       r["freezing_level_msl_m"], r["minus20_level_msl_m"], pieces)
+    r["icing_layers_msl_m"] = pieces or None
     r["icing_band_bottom_msl_m"] = None if band is None else band[0]
     r["icing_band_top_msl_m"] = None if band is None else band[1]
     r["icing_band_basis"] = None if band is None else band[2]

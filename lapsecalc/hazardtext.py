@@ -8,6 +8,7 @@ LABELS = {
     "icing_band_bottom_msl_m": ("icing from", "z"),
     "icing_band_top_msl_m": ("icing to", "ztop"),
     "icing_band_basis": ("icing basis", "s"),
+    "icing_layers_msl_m": ("icing layer", "zz"),
     "warm_layer_bottom_msl_m": ("warm layer", "z"),
     "warm_layer_top_msl_m": ("warm to", "z"),
     "warm_layer_max_t_c": ("warm max", "t"),
@@ -28,12 +29,13 @@ LABELS = {
 # Keys that show no line at all when they are None (a hazard not present).
 QUIET_WHEN_NONE = ("warm_layer_bottom_msl_m", "warm_layer_top_msl_m", "warm_layer_max_t_c",
                    "cold_layer_below_depth_m", "capped_cloud_top_msl_m", "frost_point_c",
-                   "rh_ice_pct", "icing_band_basis")
+                   "rh_ice_pct", "icing_band_basis", "icing_layers_msl_m")
 
 WORDS = {
     # icing band basis (lapsecalc.hazards.icing_band)
     "parcel": "parcel and air",
     "air": "air (cloud top unknown)",
+    "layers": "cloud layers",
     # precipitation type (Bourgouin's method)
     "glaze": "freezing rain",
     "pellets": "ice pellets",

@@ -9,8 +9,8 @@ from lapsecalc.state import DEFAULT_TROP_M
 
 # A new result key: its label and kind here (LABELS), its place in lapsecalc.groups.
 # Report key -> (label, kind) for text mode. Kinds: z a level, shown true MSL or, after
-# "heights ind", indicated on QNH (IND) (ztop: the icing band's top, "unknown" when its
-# basis is air); zt always true MSL; a height AGL; i indicated on QNH; pa pressure
+# "heights ind", indicated on QNH (IND) (ztop: the icing band's top, "unknown" when a
+# band has none); zt always true MSL; a height AGL; i indicated on QNH; pa pressure
 # altitude (with its flight level); alt another altitude (density); zl list of levels,
 # t temperature, dt temperature difference, p pressure, ph pressure always in hPa
 # (aloft, vapour), rho density, pct, gkg, jkg, b yes/no, s word, until the dry-thermal
@@ -164,7 +164,7 @@ def text_lines(s, key, v, label_kind=None, rep=None):
         return [] if v is None else wrap(
             ["no dry thermals until the surface reaches %s" % f_t(s, v, True)], "-")
     if kind == "ztop":
-        if v is None and rep is not None and rep.get("icing_band_basis") == "air":
+        if v is None and rep is not None and rep.get("icing_band_basis") is not None:
             return ["%-13s%s" % (label, "   unknown")]
         kind = "z"
     if kind == "hide" or (key == "warnings" and rep is not None and "levels_above_top" in rep):

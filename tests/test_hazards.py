@@ -271,6 +271,171 @@ def test_icing_band_never_empty_when_cloud_can_reach_the_band(t, spread, inv, la
     assert z20 is None or b < z20
 
 
+# ---- icing band from dewpoints aloft (cloud layers) ----
+
+def _interp(nodes, z):
+    # Linear interpolation in height over [(z, value), ...] (z increasing), by hand.
+    for (z0, v0), (z1, v1) in zip(nodes, nodes[1:]):
+        if z0 <= z <= z1:
+            return v0 + (v1 - v0) * (z - z0) / (z1 - z0)
+    raise AssertionError(z)
+
+
+def _icing_cloud_heights(sfc, points, dz=2.0):
+    # Heights, up to the highest dewpoint given, where the spread is at most 3 K (cloud
+    # likely, common practice) and the air is at 0 to -20 degC (icing, common
+    # practice); temperature and dewpoint linear in height between the points (the
+    # Column's definition of points aloft), computed here by hand.
+    elev, t, td = sfc
+    ts = [(elev, t)] + [(z, tz) for z, tz, _ in points]
+    ds = [(elev, td)] + [(z, d) for z, _, d in points if d is not None]
+    out = []
+    for i in range(int((ds[-1][0] - elev) / dz) + 1):
+        z = elev + i * dz
+        tz = _interp(ts, z)
+        if -20.0 <= tz <= 0.0 and tz - min(_interp(ds, z), tz) <= 3.0:
+            out.append(z)
+    return out
+
+
+# An invented morning: a moist layer 1500-2500 m over a moist field, dry above.
+MOIST_POINTS = [(1500.0, 2.0, 1.0), (2500.0, -5.0, -6.5), (4000.0, -15.0, -30.0),
+                (6000.0, -30.0, -45.0)]
+
+
+def test_band_from_cloud_layers():
+    col = Column(8.0, 6.0, 1000.0, 100.0, 6.5, 12000.0, aloft=MOIST_POINTS)
+    r = col.report()
+    # By hand (linear between points): 0 degC at 1500 + 2/7 km; spread 3 K between
+    # 2500 m (1.5 K) and 4000 m (15 K) at 2500 + 1.5/13.5 * 1500 m; -20 degC at
+    # 4000 + 5/15 * 2000 m, below the highest dewpoint (6000 m): the top is known.
+    z0, z_dry = 1500.0 + 2.0 / 7.0 * 1000.0, 2500.0 + 1.5 / 13.5 * 1500.0
+    assert r["icing_band_basis"] == "layers" and r["lfc_msl_m"] is None
+    assert r["icing_band_bottom_msl_m"] == pytest.approx(z0, abs=1e-6)
+    assert r["icing_band_top_msl_m"] == pytest.approx(z_dry, abs=1e-6)
+    assert r["icing_layers_msl_m"] == [pytest.approx([z0, z_dry], abs=1e-6)]
+    # The same by sampling every 2 m.
+    zs = _icing_cloud_heights((100.0, 8.0, 6.0), MOIST_POINTS)
+    assert abs(zs[0] - z0) < 2.0 and abs(zs[-1] - z_dry) < 2.0
+    assert any("Icing likely in cloud from 1786 m (5859 ft) MSL to 2667 m" in c
+               for c in r["cautions"])
+    # Without the dewpoints aloft the old rule holds: from the air's 0 degC level, top
+    # unknown (basis air).
+    plain = Column(8.0, 6.0, 1000.0, 100.0, 6.5, 12000.0,
+                   aloft=[(z, t, None) for z, t, _ in MOIST_POINTS]).report()
+    assert plain["icing_band_basis"] == "air" and plain["icing_band_top_msl_m"] is None
+    assert plain["icing_layers_msl_m"] is None
+
+
+def test_band_top_unknown_above_the_highest_dewpoint():
+    # Dewpoints only to 4000 m, below the -20 degC level: cloud can exist above, so
+    # the band runs on with its top unknown; the layers below are still listed.
+    pts = MOIST_POINTS[:3]
+    r = Column(8.0, 6.0, 1000.0, 100.0, 6.5, 12000.0, aloft=pts).report()
+    assert r["icing_band_basis"] == "layers" and r["icing_band_top_msl_m"] is None
+    assert r["icing_band_bottom_msl_m"] == pytest.approx(1500.0 + 2.0 / 7.0 * 1000.0)
+    assert len(r["icing_layers_msl_m"]) == 1
+    assert any("up (no dewpoints given above)" in c for c in r["cautions"])
+    # Dry everywhere given, and dewpoints above the -20 degC level: no icing cloud.
+    dry = [(1500.0, 2.0, -10.0), (6000.0, -30.0, -45.0)]
+    r = Column(8.0, -2.0, 1000.0, 100.0, 6.5, 12000.0, aloft=dry).report()
+    assert r["cloud_layers_msl_m"] == [] and r["lfc_msl_m"] is None
+    assert r["icing_band_bottom_msl_m"] is None and r["icing_band_basis"] is None
+    assert r["icing_layers_msl_m"] is None
+    # Dry up to 3000 m, nothing given above while the air reaches 0..-20 degC there:
+    # the band starts at the highest dewpoint, top unknown.
+    r = Column(8.0, -2.0, 1000.0, 100.0, 6.5, 12000.0, aloft=[(3000.0, -5.0, -20.0)]).report()
+    assert r["icing_band_bottom_msl_m"] == pytest.approx(3000.0)
+    assert r["icing_band_top_msl_m"] is None and r["icing_band_basis"] == "layers"
+
+
+def test_band_from_layers_keeps_the_convective_cloud():
+    # A hot moist field with dewpoints aloft: the cumulus (an LFC) widens the band
+    # (conservative): it reaches at least the convective band's top.
+    col = Column(32.0, 22.0, 1000.0, 100.0, 7.5, 14000.0,
+                 aloft=[(3000.0, 9.5, 0.0), (12000.0, -60.0, -75.0)])
+    r = col.report()
+    assert r["lfc_msl_m"] is not None and r["icing_band_basis"] == "layers"
+    bare = Column(32.0, 22.0, 1000.0, 100.0, 7.5, 14000.0,
+                  aloft=[(3000.0, 9.5, None), (12000.0, -60.0, None)]).report()
+    assert bare["icing_band_basis"] == "parcel"
+    assert r["icing_band_bottom_msl_m"] <= bare["icing_band_bottom_msl_m"] + 1e-6
+    assert r["icing_band_top_msl_m"] >= bare["icing_band_top_msl_m"] - 1e-6
+
+
+@given(st.floats(-10.0, 30.0), st.floats(0.0, 15.0),
+       st.lists(st.tuples(st.floats(300.0, 9000.0), st.floats(2.0, 9.0),
+                          st.floats(0.0, 12.0)), min_size=1, max_size=4))
+def test_band_never_empty_when_a_cloud_layer_is_at_0_to_minus20(t, spread, steps):
+    # Points aloft cooling 2-9 K/km, each with a spread of 0-12 K: wherever the spread
+    # is at most 3 K and the air at 0 to -20 degC (sampled by hand every 2 m), the band
+    # exists and covers that height.
+    pts, z, tz = [], 0.0, t
+    for dz, rate, sp in steps:
+        z, tz = z + dz, tz - rate * dz / 1000.0
+        if tz - sp < -89.0 or z > 15000.0:
+            break
+        pts.append((z, tz, tz - sp))
+    assume(pts)
+    r = Column(t, t - spread, 1000.0, 0.0, 6.5, 16000.0, aloft=pts).report()
+    zs = _icing_cloud_heights((0.0, t, t - spread), pts)
+    assert r["icing_band_basis"] in (None, "layers")
+    if zs:
+        b, top = r["icing_band_bottom_msl_m"], r["icing_band_top_msl_m"]
+        assert b is not None and b <= zs[0] + 1e-6
+        assert top is None or top >= zs[-1] - 1e-6
+        for a, c in r["icing_layers_msl_m"]:
+            assert b - 1e-6 <= a < c and (top is None or c <= top + 1e-6)
+
+
+def test_ice_word_shows_the_cloud_layer_basis():
+    from lapsecalc.shell import Session
+    s = Session()
+    for line in ("unit m C hPa", "elev 100m", "temp 8C dew 6C", "stn 1000hPa",
+                 "aloft 1500m 2C/1C 2500m -5C/-6.5C 4000m -15C/-30C 6000m -30C/-45C"):
+        s.feed(line)
+    got = s.feed("ice")
+    assert "icing basis   cloud layers" in got
+    assert "icing layer  1786 m-2667 m MSL" in got or \
+        any(line.startswith("icing layer  1786") for line in got)
+    assert any(line.startswith("icing to") and "2667" in line for line in got)
+    s.feed("clear aloft")
+    s.feed("aloft 1500m 2C/1C 2500m -5C/-6.5C 4000m -15C/-30C")
+    got = s.feed("ice")
+    assert any(line.startswith("icing to") and "unknown" in line for line in got)
+    h = " ".join(s.feed("help ice"))
+    assert "dewpoints aloft" in h and "cloud" in h and "layers" in h
+
+
+# ---- wet-bulb zero with humidity aloft ----
+
+def test_wet_bulb_zero_uses_the_dewpoints_aloft():
+    # A dry field under a moist layer: with the dewpoints aloft the wet bulb stays
+    # near the air temperature up there, so it reaches 0 degC close to the air's
+    # 0 degC level, far above where the surface humidity would put it.
+    pts = [(1000.0, 4.0, 3.0), (2000.0, -2.0, -3.0), (5000.0, -20.0, -25.0)]
+    col = Column(10.0, -5.0, 1000.0, 0.0, 6.5, 10000.0, aloft=pts)
+    dry = Column(10.0, -5.0, 1000.0, 0.0, 6.5, 10000.0,
+                 aloft=[(z, t, None) for z, t, _ in pts])
+    z = wet_bulb_zero(col)
+    assert z > wet_bulb_zero(dry) + 300.0
+    assert z < col.level(0.0) == pytest.approx(1000.0 + 4.0 / 6.0 * 1000.0)
+
+    def wb(zz):
+        # The wet bulb (ASHRAE Fundamentals ch. 1 eq. 33, moisture.wet_bulb) of the air
+        # at zz, its dewpoint linear in height between the points (by hand).
+        td = _interp([(0.0, -5.0)] + [(a, d) for a, _, d in pts], zz)
+        return wet_bulb(col.t_at(zz), min(td, col.t_at(zz)), col.p_at(zz))
+
+    assert abs(wb(z)) < 0.02
+    assert wb(z - 20.0) > 0.0 > wb(z + 20.0)
+    assert col.report()["wet_bulb_zero_msl_m"] == z
+    # Saturated at the air's 0 degC level: the wet bulb is 0 there; below it the dry
+    # field still gives a wet bulb under 0 degC at the ground.
+    sat = Column(3.0, -12.0, 1000.0, 0.0, 6.5, 9000.0, aloft=[(1000.0, -3.0, -3.0)])
+    assert wet_bulb_zero(sat) == 0.0 and wb.__name__ == "wb"
+
+
 # ---- thermals ----
 
 @given(st.floats(-10.0, 40.0), st.floats(0.0, 20.0), st.floats(0.0, 10.0),

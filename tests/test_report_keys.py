@@ -416,6 +416,21 @@ def test_warnings_and_cloud_layers(main):
     assert abs(b - (2000.0 + 2000.0 / 9.0)) < 1e-6
 
 
+@covers("icing_layers_msl_m")
+def test_icing_layers(main):
+    _, r, _ = main
+    # No dewpoints aloft: no cloud layers, so no icing layers (None).
+    assert r["icing_layers_msl_m"] is None
+    # Dewpoints aloft (invented), a flat 2 degC from the field to 1500 m, spread 1 K.
+    _, _, p, elev, _, _, excess = MAIN
+    col = Column(2.0, 1.0, p, elev, 6.5, aloft=[(1500.0, 2.0, 1.0), (3500.0, -6.0, -12.0)])
+    # Spread linear 1 K (1500 m) -> 6 K (3500 m): 3 K (cloud likely, common practice)
+    # at 1500 + 2000 * 2/5 m; the air 0 degC at 1500 + 2000 * 2/8 m (icing in cloud at
+    # 0..-20 degC, common practice).
+    (a, b), = col.report(excess)["icing_layers_msl_m"]
+    assert abs(a - 2000.0) < 1e-6 and abs(b - 2300.0) < 1e-6
+
+
 @covers("cautions")
 def test_cautions(main):
     _, r, _ = main

@@ -681,6 +681,7 @@ def test_queries_kv():
                 "minus10_levels_msl_m", "minus20_level_msl_m", "minus20_levels_msl_m",
                 "warm_layer_aloft", "parcel_freezing_level_msl_m",
                 "icing_band_bottom_msl_m", "icing_band_top_msl_m", "icing_band_basis",
+                "icing_layers_msl_m",
                 "warm_layer_bottom_msl_m", "warm_layer_top_msl_m", "warm_layer_max_t_c",
                 "cold_layer_below_depth_m", "precip_type", "wet_bulb_zero_msl_m"),
         "frost": ("t_c", "td_c", "frost_point_c", "rh_ice_pct", "fog_risk", "ice_fog_risk",

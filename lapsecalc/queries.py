@@ -24,6 +24,7 @@ def emit(s, keys, values, balloon=False, word=None, rest=True):
     its keys not in keys too, unless rest is False."""
     if balloon and rest:
         keys = list(keys) + sorted(k for k in values if k not in keys)
+    s.release()  # the numbers are there: a board lets go of the physics first
     notes = assumed(s.state, balloon)
     if s.mode == "kv":
         return ["# assumed " + n for n in notes] + kv_lines(values, keys)
@@ -37,8 +38,7 @@ def emit(s, keys, values, balloon=False, word=None, rest=True):
         if s.drop_word_modules:
             # On a board: the line is one string of a few KiB that grows as it is
             # written; collecting first leaves it the largest free run of the heap.
-            import gc
-            gc.collect()
+            s.collect()
         return [s.json.dumps(obj)]
     from lapsecalc.layout import text_lines, text_keys, warning_lines
     if word is not None:
@@ -65,10 +65,11 @@ def _c_group(s, w, args):
     if w == "base" and s.state.get("excess_c"):
         # The heated thermals' cloud base beside the unheated one.
         keys = keys + ("thermal_excess_c", "thermal_cloud_base_msl_m")
-    out = emit(s, keys, s.report(w), False, None if keys is not GROUPS[w] else w)
+    more = []
     if w == "base" and s.mode == "text":
         for method, label in (("bolton", "Bolton LCL"), ("spread", "spread rule")):
-            out.append("%-13s%s AGL" % (label, f_h(s, s.column().cloud_base(method)[0])))
+            more.append("%-13s%s AGL" % (label, f_h(s, s.column().cloud_base(method)[0])))
+    out = emit(s, keys, s.report(w), False, None if keys is not GROUPS[w] else w) + more
     if w == "parcel" and s.mode == "text":
         from lapsecalc.layout import PARCEL_NOTE
         out.append(PARCEL_NOTE)
@@ -80,9 +81,11 @@ def _c_report(s, w, args):
     rep = s.report(w)
     if s.mode != "text":
         return emit(s, report_keys(rep), rep)
+    extra = _altimeter_section(s, rep)
+    s.release()
     from lapsecalc.layout import report_text
     return ["assumed " + n for n in assumed(s.state)] + report_text(
-        s, rep, report_keys(rep), _altimeter_section(s, rep))
+        s, rep, report_keys(rep), extra)
 
 
 def _altimeter_section(s, rep):

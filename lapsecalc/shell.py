@@ -8,15 +8,14 @@
 #
 # Layers, top down: this module (Session: dispatch and state) -> the word modules:
 # lapsecalc.settings (SETTINGS, several a line, all-or-nothing), lapsecalc.queries
-# (QUERIES, one a line), lapsecalc.commands (COMMANDS: clear unit out help bye) ->
+# (QUERIES, one a line), lapsecalc.commands (COMMANDS: clear unit out help bye; it and
+# settings are imported by the line that uses them) ->
 # lapsecalc.layout (text lines, loaded by text output) -> lapsecalc.groups (result
 # keys), lapsecalc.output (display units, acks, kv values), lapsecalc.state (state
 # keys, defaults, the Column), lapsecalc.typed (numbers, units, aliases) -> the library.
 from lapsecalc.typed import ALIASES, AMBIGUOUS, shown, starts_number, nearest, is_unit, join_words
 from lapsecalc.state import AIR_KEYS, missing, build_column, dewpoint_of, settle
-from lapsecalc.settings import SETTINGS, ONE, NUMBERS, whole
 from lapsecalc.queries import QUERIES
-from lapsecalc.commands import COMMANDS
 
 try:
     from micropython import const
@@ -27,20 +26,31 @@ except ImportError:
 _MAX_LINE = const(256)
 MAX_LINE = _MAX_LINE
 PROMPT = "lc> "
-# Modules loaded only for a line's work (help, chart, svg, balloon, metar, demo; the
-# text layout; the parcel, stability, hazards and points-aloft code of a report; the
-# altimeter's numbers and text): on a board a Session forgets them after the line, so
-# the heap between lines holds only the dispatch layer and the session's state
-# (measured: bench/mpy_budget.py). A new module that only some lines need goes here.
-WORD_MODULES = ("helptext", "chart", "balloon", "loadtable", "balloontext", "metar", "demo",
-                "layout", "parcel", "stability", "hazards", "hazardtext", "aloft",
-                "altimetry", "altitext", "indicated", "aloftwords")
+# Modules loaded only for a line's work (the setting and session words, help, chart,
+# svg, balloon, metar, demo; the text layout; the parcel, stability, hazards and
+# points-aloft code of a report; the altimeter's numbers and text): on a board a
+# Session forgets them after the line, so the heap between lines holds only the
+# dispatch layer and the session's state (measured: bench/mpy_budget.py). A new module
+# that only some lines need goes here. PHYSICS_MODULES: a board Session keeps no
+# Column between lines and lets go of it and of these once a line's numbers are
+# computed (Session.release), before the text layout loads.
+PHYSICS_MODULES = ("parcel", "stability", "hazards", "aloft", "altimetry", "indicated",
+                   "balloon", "adiabats")
+WORD_MODULES = PHYSICS_MODULES + (
+    "settings", "commands", "helptext", "chart", "loadtable", "balloontext", "metar", "demo",
+    "layout", "hazardtext", "altitext", "aloftwords")
 # The words whose report carries the altimetry keys (isa_deviation_c,
 # density_altitude_dry_m, indicated_altitude_m: Column.report(altimetry=True)).
 ALTIMETRY_WORDS = ("report", "obs", "da", "levels")
+# The setting words (lapsecalc.settings.SETTINGS) and the session words
+# (lapsecalc.commands.COMMANDS), in their tables' order: their modules load only for a
+# line that uses them (a board drops them after it).
+SETTING_WORDS = ("temp", "dew", "rh", "elev", "qnh", "stn", "elr", "top", "excess", "metar",
+                 "env", "wt", "fill", "tmax", "tenv", "gas", "pure", "margin", "superheat",
+                 "aloft", "trop")
+COMMAND_WORDS = ("clear", "unit", "heights", "out", "help", "bye")
 # Every word but the settings: the queries, then the session words.
-_WORDS = dict(QUERIES)
-_WORDS.update(COMMANDS)
+_WORDS = tuple(QUERIES) + COMMAND_WORDS
 
 
 def split_line(line):
@@ -62,7 +72,7 @@ def _unknown(word, settings_only=False, number_next=False):
         return "'%s' is a unit: write it after its number, e.g. elev 6500 ft" % shown(word)
     if word.lower() in AMBIGUOUS:
         return AMBIGUOUS[word.lower()]
-    known = list(SETTINGS)
+    known = list(SETTING_WORDS)
     if not settings_only:
         known += list(_TAKE_NUMBER) if number_next else list(_WORDS)
     for a in ALIASES:
@@ -146,6 +156,7 @@ class Session:
                 # A collection here frees the line's garbage and the dropped modules
                 # before the next line allocates among them: less fragmentation (the
                 # hard heap limit of the full-word session fell from 186 to 172 KiB).
+                self._col = self._levels = None
                 drop_modules(WORD_MODULES)
             if self.collect_after_line:
                 import gc
@@ -169,16 +180,20 @@ class Session:
             return []
         w = words[0].lower()
         w = ALIASES.get(w, w)
-        if w in SETTINGS:
+        if w in SETTING_WORDS:
             return self._settings(words)
-        if w in _WORDS:
-            return _WORDS[w](self, w, words[1:])
+        if w in QUERIES:
+            return QUERIES[w](self, w, words[1:])
+        if w in COMMAND_WORDS:
+            from lapsecalc.commands import COMMANDS
+            return COMMANDS[w](self, w, words[1:])
         if starts_number(w):
             raise ValueError("a line starts with a word, e.g. temp 27C (help lists them)")
         raise ValueError(_unknown(words[0], False, len(words) > 1 and starts_number(words[1])))
 
     def _settings(self, words):
         from lapsecalc.output import ack
+        from lapsecalc.settings import SETTINGS, ONE, NUMBERS, whole
         new = dict(self.state)
         said = []
         set_words = []
@@ -186,7 +201,7 @@ class Session:
         while i < len(words):
             w = words[i].lower()
             w = ALIASES.get(w, w)
-            if w not in SETTINGS:
+            if w not in SETTING_WORDS:
                 if w in _WORDS:
                     raise ValueError("'%s' cannot share a line with settings; give it its"
                                      " own line" % w)
@@ -232,11 +247,33 @@ class Session:
         return sorted(self.state.items()), sorted(self.disp.items()), self.mode, self.done
 
     def column(self, word="this"):
-        """The current Column; ValueError naming the settings still missing."""
+        """The current Column; ValueError naming the settings still missing. (A board
+        Session builds it again after release().)"""
         if self._col is None:
-            raise ValueError("%s needs %s: set first, e.g. temp 27C dew 13C elev 1350ft"
-                             % (word, ", ".join(missing(self.state))))
+            if missing(self.state):
+                raise ValueError("%s needs %s: set first, e.g. temp 27C dew 13C elev 1350ft"
+                                 % (word, ", ".join(missing(self.state))))
+            self._col = build_column(self.state)
+            self.collect()
         return self._col
+
+    def collect(self):
+        """On a board: collect the heap between the stages of a line (the garbage of
+        one stage is freed before the next loads its code). A heap count puts its own
+        in its place (tests/mpy/run.mjs --session, tests/mpy/board_session.py: the heap
+        just before each collection is a peak)."""
+        if self.drop_word_modules:
+            import gc
+            gc.collect()
+
+    def release(self):
+        """On a board: let go of the Column, the parcel path and the physics code once
+        a line's numbers are computed, so that the text layout loads into the heap they
+        held (the report stays). Nothing on CPython."""
+        if self.drop_word_modules:
+            self._col = self._levels = None
+            drop_modules(PHYSICS_MODULES)
+            self.collect()
 
     def report(self, word="report"):
         """The current Column.report() (computed once per state)."""
@@ -246,9 +283,18 @@ class Session:
             # The altimetry keys only for the words that show them: a board's session
             # heap has little room for them (bench/mpy_budget.py).
             self._rep = None
+            if self.drop_word_modules:
+                # The report's code loaded, and its loading's garbage freed, before the
+                # report allocates.
+                from lapsecalc import stability, parcel  # noqa: F401
+                if alt:
+                    from lapsecalc import indicated  # noqa: F401
+                stability = parcel = indicated = None
+                self.collect()
             self._rep = col.report(self.state.get("excess_c", 0.0), alt)
             self._rep_alt = alt
             # On a board the report kept is packed low in the heap (state.settle).
+            self.collect()
             settle(self._rep)
         return self._rep
 

@@ -10,7 +10,6 @@ and the Column it describes (runs on MicroPython)."""
 # trop_m (tropopause m MSL or None: off).
 # The setting words (lapsecalc.settings) write them into a copy; the shell commits it.
 from lapsecalc.limits import check_dew
-from lapsecalc.column import Column
 
 ISA_LAPSE_K_PER_KM = 6.5  # ICAO standard atmosphere below 11 km (common practice)
 STANDARD_QNH_HPA = 1013.25  # ICAO standard sea-level pressure (common practice)
@@ -64,6 +63,7 @@ def missing(st):
 
 def build_column(st):
     """The Column of a complete state dict (ValueError when the state is not valid)."""
+    from lapsecalc.column import Column
     td = dewpoint_of(st)
     kind, p = st.get("press", ("qnh", STANDARD_QNH_HPA))
     lapse = st.get("lapse", ISA_LAPSE_K_PER_KM)
@@ -93,15 +93,13 @@ def assumed(st, balloon=False):
 
 def settle(rep):
     """On MicroPython, move the numbers of a result kept for the session (a report)
-    out of the heap the computation left full of holes: after a collection each float
-    is boxed afresh, so it lands in the lowest free space, and its old place joins a
+    out of the heap the computation left full of holes: after a collection (the
+    caller's) each float is boxed afresh, so it lands in the lowest free space, and its old place joins a
     larger hole (a board's heap is never compacted; a long JSON line needs one piece
     of a few KB). Nothing on CPython."""
     import sys
     if sys.implementation.name != "micropython":
         return
-    import gc
-    gc.collect()
     for k in rep:
         v = rep[k]
         if isinstance(v, float):

@@ -89,6 +89,15 @@ def _top_level_imports(module):
     return out
 
 
+def test_the_shell_knows_the_words_of_its_lazy_tables():
+    # shell names the setting and session words itself (their modules load only for a
+    # line that uses them); the names, in order, are those of the tables.
+    from lapsecalc import commands
+    assert shell.SETTING_WORDS == tuple(settings.SETTINGS)
+    assert shell.COMMAND_WORDS == tuple(commands.COMMANDS)
+    assert "settings" in shell.WORD_MODULES and "commands" in shell.WORD_MODULES
+
+
 def test_word_modules_are_loaded_only_by_their_words():
     # A dropped module that a resident one imports at its top would stay loaded anyway.
     resident, todo = set(), ["shell"]
@@ -104,7 +113,8 @@ def test_word_modules_are_loaded_only_by_their_words():
 
 LINES = ("help", "help elr", "elev 1350ft", "temp 27C dew 13C", "chart", "help",
          "env 2800m3 wt 450kg tmax 120C", "balloon", "metar XXXX 021250Z 27/13 Q1016",
-         "chart")
+         "chart", "report", "base", "at 5000ft", "heights ind", "report", "stn 967.4hPa",
+         "report", "out kv", "report", "out json", "base", "out text")
 
 
 @pytest.fixture
@@ -133,6 +143,8 @@ def test_a_board_session_drops_word_modules_after_their_line(restore_word_module
         for m in shell.WORD_MODULES:
             assert "lapsecalc." + m not in sys.modules, (line, m)
             assert m not in lapsecalc.__dict__, (line, m)
+        # No Column (nor its parcel path) kept between lines: built again when asked.
+        assert drop._col is None and drop._levels is None, line
     # An error line drops them too.
     assert drop.feed("help nosuchword")[0].startswith("error:")
     assert "lapsecalc.helptext" not in sys.modules

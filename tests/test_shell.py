@@ -1116,7 +1116,7 @@ def test_help_states_the_limits_of_parcel_and_balloon():
 def test_every_word_has_help_and_fits_the_screen():
     from lapsecalc import shell
     s = Session()
-    for word in list(shell.SETTINGS) + list(shell._WORDS):
+    for word in list(shell.SETTING_WORDS) + list(shell._WORDS):
         out = s.feed("help " + word)
         assert out and not out[0].startswith("error"), word
         assert all(len(line) <= 40 for line in out), word

@@ -8,7 +8,8 @@ line that failed: an output line starting "error:" (a MemoryError inside a word 
 back as "error: cannot compute that (MemoryError ...)"; errors in kv and json
 mode too), or, on a line marked "#!error", anything but an ordinary error. With "account" it also measures,
 per line, the heap held before it (after collections) and what the line allocates
-with the collector off, and prints the largest sum (the heap the session needs when
+with the collector off (a collection inside the line, Session.collect(), ends a
+stage: the heap just before it counts as the line's peak), and prints the largest sum (the heap the session needs when
 a collection runs between lines; on the Unix port, whose collector works inside a
 run). PKG_PARENT is the folder holding lapsecalc/ (default: the current one);
 SESSION_FILE defaults to board_session.txt beside this script. tests/mpy/run.mjs
@@ -52,8 +53,17 @@ def main(args):
     base = held()
     from lapsecalc.shell import Session
     s = Session()
+    peak = [0]
     if account:
         s.collect_after_line = False  # collected below, between lines
+
+        def collect():
+            # A collection inside a line ends a stage: the heap just before it is a peak.
+            m = gc.mem_alloc()
+            if m > peak[0]:
+                peak[0] = m
+            gc.collect()
+        s.collect = collect
         print("import_heap_bytes=%d" % (held() - base))
     worst = worst_line = n = bad = 0
     while True:
@@ -66,8 +76,9 @@ def main(args):
             h = held() - base
             gc.disable()
             a0 = gc.mem_alloc()
+            peak[0] = 0
             out = s.feed(line)
-            a = gc.mem_alloc() - a0
+            a = max(gc.mem_alloc(), peak[0]) - a0
             gc.enable()
             if h + a > worst:
                 worst, worst_line = h + a, n

@@ -16,7 +16,10 @@
 // --session FILE (with --mem) feeds each line of FILE (tests/mpy/board_session.txt)
 // to one lapsecalc.shell.Session, each line in its own call with collections before
 // it, and prints per line the heap held before it and what it allocates with the
-// collector off; session_need_bytes is the largest sum (lines checked by
+// collector off (a collection inside the line, Session.collect(), ends a stage: the
+// heap just before it counts as the line's peak; this VM defers a collection asked for
+// inside a call to the call's end, as it cannot scan its WebAssembly locals, so here a
+// line is one stage); session_need_bytes is the largest sum (lines checked by
 // tests/mpy/board_session.py's line_failed; session_failed counts the failures).
 import { existsSync, readFileSync, readdirSync } from "node:fs";
 import { basename, dirname, resolve } from "node:path";
@@ -90,7 +93,7 @@ import sys, gc
 # Pre-create every result global so that setting one later does not grow
 # the __main__ dict in the middle of a measurement.
 _lc_rc = _lc_name = _lc_m0 = _lc_m1 = _lc_a0 = _lc_a1 = _lc_b = _lc_ms = _lc_ns = _lc_snip = 0
-_lc_s = _lc_o = _lc_h = _lc_why = _lc_lf = 0
+_lc_s = _lc_o = _lc_h = _lc_why = _lc_lf = _lc_pk = 0
 def _lc_run(path, folder):
     global _lc_rc
     _lc_rc = 0
@@ -267,14 +270,25 @@ function sessionMode(opt, call, get, settle) {
   const lines = readFileSync(opt.session, "utf8").split("\n");
   if (lines.length && lines[lines.length - 1] === "") lines.pop();
   call("from lapsecalc.shell import Session\n_lc_s = Session()\n_lc_s.collect_after_line = False");
+  // A collection inside a line (Session.collect) records the heap just before it.
+  call(`def _lc_collect():
+    global _lc_pk
+    m = gc.mem_alloc()
+    if m > _lc_pk:
+        _lc_pk = m
+    gc.collect()
+_lc_s.collect = _lc_collect`);
   let worst = 0, worstLine = 0, failed = 0;
   lines.forEach((line, i) => {
     settle();
     call("_lc_h = gc.mem_alloc() - _lc_m0");
     call(`gc.disable()
 _lc_a0 = gc.mem_alloc()
+_lc_pk = 0
 _lc_o = _lc_s.feed(${pyStr(line)})
 _lc_a1 = gc.mem_alloc()
+if _lc_pk > _lc_a1:
+    _lc_a1 = _lc_pk
 gc.enable()
 _lc_why = _lc_lf(${pyStr(line)}, _lc_o)
 _lc_o = 0`);

@@ -16,6 +16,35 @@ from lapsecalc.condensation import cloud_base
 TOP_MAX_M = 32000.0
 # Heights closer than this are one level (crossings found in two layers), m.
 _SAME_LEVEL_M = 0.01
+def report_keys():
+    """The keys report() sets, in its order: its own, then those of
+    stability.report_keys() (lapsecalc.hazards and lapsecalc.indicated add theirs
+    after these). report() makes its dict from them with room for all at the start: a
+    dict that grows needs a new, larger table in one piece, and late in report() a
+    board's heap (never compacted) has no such piece left. A list made afresh: a
+    constant tuple in a .mpy file would hold a second string object in the heap for
+    each name longer than 10 characters (each module holds its own)."""
+    from lapsecalc import stability
+    return ["elevation_m", "top_msl_m", "t_c", "td_c", "rh_pct", "mixing_ratio_g_kg",
+            "wet_bulb_c", "station_pressure_hpa", "qnh_hpa", "pressure_altitude_m",
+            "air_density_kg_m3", "density_altitude_m", "cloud_base_agl_m", "cloud_base_msl_m",
+            "lcl_t_c", "lcl_p_hpa", "warm_layer_aloft", "parcel_freezing_level_msl_m",
+            "freezing_level_msl_m", "freezing_levels_msl_m", "minus10_level_msl_m",
+            "minus10_levels_msl_m", "minus20_level_msl_m", "minus20_levels_msl_m",
+            "tropopause_msl_m"] + stability.report_keys()
+
+
+def _collect():
+    # On a board (MicroPython): collect the garbage of building the column before
+    # report() loads its modules and makes its dict, so that they land in one piece
+    # low in the heap, not among the holes (the core report's hard heap limit on the
+    # Unix port fell from 77 to 69 KiB with this alone). Not while the collector is
+    # off (an allocation count is running) and not on CPython (no gain, and slow).
+    import sys
+    if sys.implementation.name == "micropython":
+        import gc
+        if gc.isenabled():
+            gc.collect()
 
 
 def _layer_tops(lapse, elev_m, top_m):
@@ -254,38 +283,44 @@ class Column:
         altimetry: add the keys of lapsecalc.indicated (indicated_altitude_m,
         isa_deviation_c, density_altitude_dry_m) when that module is installed; they cost
         a board about 4 KB of heap."""
+        _collect()
+        # Every module first, while the heap is not yet cut up by the parcel path: a
+        # load (or a failed one: its message is a new interned string) may need a
+        # large piece of it.
         from lapsecalc import stability, parcel
+        try:
+            from lapsecalc import hazards
+        except (ImportError, AttributeError):  # a board: the hazards module is not there
+            hazards = None
         altimetry_keys = None
         if altimetry:
-            # Loaded first, while the heap is not yet cut up by the parcel path.
             try:
                 from lapsecalc.indicated import add_to_report as altimetry_keys
             except ImportError:
                 pass
+        r = dict.fromkeys(report_keys())
         lcl_agl, lcl_t, lcl_p = self.cloud_base()
         lcl_msl = self.elev_m + lcl_agl
         path = parcel.path(self, lcl_msl)
         rho = self.density_at(self.elev_m)
-        r = {
-            "elevation_m": self.elev_m,
-            "top_msl_m": self.top_m,
-            "t_c": self.t_c,
-            "td_c": self.td_c,
-            "rh_pct": relative_humidity(self.t_c, self.td_c),
-            "mixing_ratio_g_kg": 1000.0 * self.r_kg_kg,
-            "wet_bulb_c": wet_bulb(self.t_c, self.td_c, self.p_hpa),
-            "station_pressure_hpa": self.p_hpa,
-            "qnh_hpa": self.qnh_hpa,
-            "pressure_altitude_m": pressure_altitude(self.p_hpa),
-            "air_density_kg_m3": rho,
-            "density_altitude_m": isa_height_of_density(rho),
-            "cloud_base_agl_m": lcl_agl,
-            "cloud_base_msl_m": lcl_msl if lcl_msl <= self.top_m else None,
-            "lcl_t_c": lcl_t,
-            "lcl_p_hpa": lcl_p,
-            "warm_layer_aloft": warm_layer_aloft(self),
-            "parcel_freezing_level_msl_m": parcel.level(self, path, 0.0, lcl_msl),
-        }
+        r["elevation_m"] = self.elev_m
+        r["top_msl_m"] = self.top_m
+        r["t_c"] = self.t_c
+        r["td_c"] = self.td_c
+        r["rh_pct"] = relative_humidity(self.t_c, self.td_c)
+        r["mixing_ratio_g_kg"] = 1000.0 * self.r_kg_kg
+        r["wet_bulb_c"] = wet_bulb(self.t_c, self.td_c, self.p_hpa)
+        r["station_pressure_hpa"] = self.p_hpa
+        r["qnh_hpa"] = self.qnh_hpa
+        r["pressure_altitude_m"] = pressure_altitude(self.p_hpa)
+        r["air_density_kg_m3"] = rho
+        r["density_altitude_m"] = isa_height_of_density(rho)
+        r["cloud_base_agl_m"] = lcl_agl
+        r["cloud_base_msl_m"] = lcl_msl if lcl_msl <= self.top_m else None
+        r["lcl_t_c"] = lcl_t
+        r["lcl_p_hpa"] = lcl_p
+        r["warm_layer_aloft"] = warm_layer_aloft(self)
+        r["parcel_freezing_level_msl_m"] = parcel.level(self, path, 0.0, lcl_msl)
         for name, t in (("freezing", 0.0), ("minus10", -10.0), ("minus20", -20.0)):
             zs = self.crossings(t)
             r[name + "_level_msl_m"] = self.level(t, zs)
@@ -298,9 +333,7 @@ class Column:
             from lapsecalc.aloft import cloud_layers
             r["cloud_layers_msl_m"] = cloud_layers(self)
         stability.add_warnings(self, r)
-        try:
-            from lapsecalc import hazards
-        except (ImportError, AttributeError):  # a board: the hazards module is not there
+        if hazards is None:
             r["cautions"] = stability.CAUTIONS
         else:
             hazards.add_to_report(self, path, r)

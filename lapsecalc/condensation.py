@@ -9,19 +9,6 @@ from lapsecalc.constants import G0, R_DRY, EPS, KAPPA, T0_K, DRY_LAPSE_K_PER_KM
 from lapsecalc.moisture import _es_water
 from lapsecalc.limits import check_p, check_dew, finite
 
-# Romps (2017) constants, SI units; they differ slightly from ours (g 9.81, Ra 287.04)
-# and are kept as the paper gives them so that the paper's numbers are reproduced.
-_TTRIP = 273.16
-_PTRIP = 611.65
-_E0V = 2.3740e6
-_GR = 9.81
-_RA = 287.04
-_RV = 461.0
-_CVA = 719.0
-_CVV = 1418.0
-_CVL = 4119.0
-_CPA = _CVA + _RA
-_CPV = _CVV + _RV
 _LAMBERT_CAP = 12
 _LAMBERT_TOL = 1e-6
 SPREAD_M_PER_C = 125.0
@@ -73,36 +60,44 @@ def _lambert_log_form(w, ln_mx):
     raise ValueError("lambert_w_minus1 did not converge for ln(-x)=%r" % ln_mx)
 
 
-def _romps_pvstar(t_k):
-    # Romps (2017) eq. 4: saturation vapour pressure over liquid, Pa.
-    return _PTRIP * pow(t_k / _TTRIP, (_CPV - _CVL) / _RV) * \
-        exp((_E0V - (_CVV - _CVL) * _TTRIP) / _RV * (1.0 / _TTRIP - 1.0 / t_k))
-
-
 def _romps(t_c, td_c, p_hpa):
+    # Romps (2017) eqs. 4 and 22a-c. The paper's constants, SI units, are kept as it
+    # gives them so that its numbers are reproduced (its g 9.81 and Ra 287.04 differ
+    # slightly from ours): the triple point (K, Pa), E0v (J/kg), the gas constants and
+    # the heat capacities at constant volume (J/kg/K). Locals, not module names: a
+    # board then holds no name for them.
+    ttrip = 273.16
+    ptrip = 611.65
+    e0v = 2.3740e6
+    ra = 287.04
+    rv = 461.0
+    cvv = 1418.0
+    cvl = 4119.0
+    cpa = 719.0 + ra                                    # cva + Ra
+    cpv = cvv + rv
+    # Eq. 4, saturation vapour pressure over liquid, Pa:
+    #   ptrip (T / ttrip)^ea exp(eb (1 / ttrip - 1 / T)).
+    ea = (cpv - cvl) / rv
+    eb = (e0v - (cvv - cvl) * ttrip) / rv
     t = t_c + T0_K
-    rh = _romps_pvstar(td_c + T0_K) / _romps_pvstar(t)
+    td = td_c + T0_K
+    pv_t = ptrip * pow(t / ttrip, ea) * exp(eb * (1.0 / ttrip - 1.0 / t))
+    rh = ptrip * pow(td / ttrip, ea) * exp(eb * (1.0 / ttrip - 1.0 / td)) / pv_t
     if rh > 1.0:
         rh = 1.0
     p = 100.0 * p_hpa
-    pv = rh * _romps_pvstar(t)
-    qv = _RA * pv / (_RV * p + (_RA - _RV) * pv)
-    rm = (1.0 - qv) * _RA + qv * _RV
-    cpm = (1.0 - qv) * _CPA + qv * _CPV
-    a = cpm / rm + (_CVL - _CPV) / _RV
-    b = -(_E0V - (_CVV - _CVL) * _TTRIP) / (_RV * t)
+    pv = rh * pv_t
+    qv = ra * pv / (rv * p + (ra - rv) * pv)
+    rm = (1.0 - qv) * ra + qv * rv
+    cpm = (1.0 - qv) * cpa + qv * cpv
+    a = cpm / rm + (cvl - cpv) / rv
+    b = -eb / t
     c = b / a
     w = lambert_w_minus1(pow(rh, 1.0 / a) * c * exp(c))
     t_lcl = c / w * t                                   # eq. 22b
-    z = cpm * t / _GR * (1.0 - b / (a * w))              # eq. 22a
+    z = cpm * t / 9.81 * (1.0 - b / (a * w))            # eq. 22a (the paper's g)
     p_lcl = p_hpa * pow(t_lcl / t, cpm / rm)             # eq. 22c
     return z, t_lcl - T0_K, p_lcl
-
-
-# Bolton (1980) eq. 7's Poisson exponent for moist air: 0.2854 (1 - 0.28e-3 r), r in
-# g/kg; written here for r in kg/kg.
-_BOLTON_KAPPA = 0.2854
-_BOLTON_KAPPA_R = 0.28
 
 
 def _bolton(t_c, td_c, p_hpa):
@@ -114,7 +109,9 @@ def _bolton(t_c, td_c, p_hpa):
     t_lcl = 1.0 / (1.0 / (td - 56.0) + log(t / td) / 800.0) + 56.0   # eq. 15
     e = _es_water(td_c)
     r = EPS * e / (p_hpa - e)
-    kappa = _BOLTON_KAPPA * (1.0 - _BOLTON_KAPPA_R * r)
+    # Eq. 7's Poisson exponent for moist air, 0.2854 (1 - 0.28e-3 r) with r in g/kg;
+    # here r is in kg/kg.
+    kappa = 0.2854 * (1.0 - 0.28 * r)
     p_lcl = p_hpa * pow(t_lcl / t, 1.0 / kappa)                       # Poisson
     tv_mean = 0.5 * (t + t_lcl) * (1.0 + r / EPS) / (1.0 + r)
     return R_DRY * tv_mean / G0 * log(p_hpa / p_lcl), t_lcl - T0_K, p_lcl

@@ -25,6 +25,5 @@ T0_K = 273.15
 # ICAO standard atmosphere at mean sea level (ICAO Doc 7488/3).
 ISA_T0_K = 288.15
 ISA_P0_HPA = 1013.25
-ISA_RHO0_KG_M3 = 1.2250
 # ISA troposphere lapse rate, K per m (6.5 K/km).
 ISA_LAPSE_K_PER_M = 0.0065

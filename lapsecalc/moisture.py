@@ -12,7 +12,6 @@ from lapsecalc.limits import check, check_t, check_p, check_dew
 _AE_A = 6.1094
 _AE_B = 17.625
 _AE_C = 243.04
-_AE_WATER = (_AE_A, _AE_B, _AE_C)
 _AE_ICE = (6.1121, 22.587, 273.86)
 _WET_BULB_CAP = 40
 _WET_BULB_TOL_K = 0.005
@@ -36,16 +35,14 @@ def saturation_vapour_pressure(t_c, ice=False):
             raise ValueError("t_c=%s is above 0 degC with ice=True; allowed -90..0 degC over ice"
                              % t_c)
         a, b, c = _AE_ICE
-    else:
-        a, b, c = _AE_WATER
-    return a * exp(b * t_c / (t_c + c))
+        return a * exp(b * t_c / (t_c + c))
+    return _es_water(t_c)
 
 
 def _dewpoint_from_e(e_hpa):
     # Inverse of eq. 21: the temperature, degC, whose saturation pressure is e_hpa.
-    a, b, c = _AE_WATER
-    g = log(e_hpa / a)
-    return c * g / (b - g)
+    g = log(e_hpa / _AE_A)
+    return _AE_C * g / (_AE_B - g)
 
 
 def dewpoint(t_c, rh_pct):

@@ -236,6 +236,16 @@ def _illinois(f, a, fa, b, fb, what="the convective condensation level"):
     raise ValueError("%s did not converge" % what)
 
 
+def report_keys():
+    """The keys add_to_report, then add_warnings set, in their order (a list made
+    afresh: see column.report_keys)."""
+    return ["stability", "stability_layers", "lapse_0_3km_k_per_km", "lapse_0_3km_class",
+            "lapse_700_500_k_per_km", "lapse_700_500_class", "lfc_msl_m", "el_msl_m",
+            "el_above_top", "cape_j_kg", "cin_j_kg", "lifted_index_c", "thermal_excess_c",
+            "thermal_top_msl_m", "thermal_kind", "ccl_msl_m", "trigger_t_c",
+            "cloud_layers_msl_m", "levels_above_top", "warnings", "cautions"]
+
+
 def add_to_report(col, levels, r, excess_c=0.0):
     """Add the stability, parcel and thermal keys to report dict r (lapsecalc.hazards
     adds the thermals' cloud base, usable top and capped decks)."""

@@ -201,3 +201,25 @@ def test_parcel_path_levels_include_boundaries():
     zs = [lv[0] for lv in levels]
     assert zs[0] == 0.0 and zs[-1] == 9000.0 and 800.0 in zs and z_l in zs
     assert all(b - a <= parcel.MAX_STEP_M + 1e-9 for a, b in zip(zs, zs[1:]))
+
+
+@pytest.mark.parametrize("args", [
+    (27.0, 13.0, 1016.0, 411.48, [(250.0, 9.5), (2400.0, 7.5), (None, 6.5)]),
+    (22.0, 12.0, 1005.0, 150.0, 6.5),
+    (35.0, 24.0, 1008.0, 20.0, [(1000.0, 9.0), (3000.0, 7.0), (None, 6.0)], 32000.0),
+    (-5.0, -7.0, 1020.0, 50.0, [(400.0, -12.0), (None, 6.5)], 8000.0),
+])
+def test_report_keys_are_the_keys_report_sets_first(args):
+    # report() makes its dict from report_keys() (room for every key at the start, for
+    # a board's heap): each key once, every one set by the core, the hazard and
+    # altimetry keys after them (CPython keeps the insertion order).
+    from lapsecalc.column import report_keys
+    keys = report_keys()
+    assert len(set(keys)) == len(keys) == 46
+    r = Column.from_qnh(*args).report(2.0)
+    assert list(r)[:len(keys)] == keys
+    extra = set(r) - set(keys)
+    altimetry = {"indicated_altitude_m", "isa_deviation_c", "density_altitude_dry_m"}
+    assert altimetry < extra  # and the hazard keys (lapsecalc.hazards) on CPython
+    r = Column.from_qnh(*args).report(0.0, altimetry=False)
+    assert "indicated_altitude_m" not in r

@@ -25,6 +25,7 @@ package(
         "metar.py",
         "output.py",
         "queries.py",
+        "retell.py",
         "settings.py",
         "shell.py",
         "state.py",

@@ -144,13 +144,15 @@ def cold_word(s, w, col, args):
     (PANS-OPS formula and the column's own) for a few heights above the field, or for
     the one in args (cold 1200ft)."""
     from lapsecalc.altimetry import (cold_temperature_correction, column_cold_correction,
-                                     isa_deviation_at, TROPOPAUSE_M)
-    room = min(col.top_m, TROPOPAUSE_M) - col.elev_m
+                                     isa_deviation_at, indicated_altitude_at, TROPOPAUSE_M)
+    # Up to the tropopause and to the column top, true and as indicated (in warm air
+    # the top reads lower than it is; the column's correction needs the reading there).
+    room = min(col.top_m, TROPOPAUSE_M, indicated_altitude_at(col, col.top_m)) - col.elev_m
     if len(args) > 1:
         raise ValueError("cold takes one height above the field, e.g. cold 1500ft; alone"
                          " it gives a few")
     if args:
-        hs = [value(args[0], "h", s.disp["h"], 0.0, room)]
+        hs = [value(args[0], "h", s.disp["h"], 0.0, room, w)]
     else:
         u = s.disp["h"]
         hs = [h * units.M_PER_FT if u == "ft" else h for h in _COLD[u]]

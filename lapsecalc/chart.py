@@ -51,8 +51,11 @@ def _frame(col, levels, lo, hi, t_unit, n):
     zs = [lo + (hi - lo) * i / n for i in range(n + 1)]
     env = [conv(col.t_at(z)) for z in zs]
     par = [conv(parcel_t(levels, z)) for z in zs]
-    t_lo = 5.0 * floor((min(env + par) - 1.0) / 5.0)
-    t_hi = 5.0 * ceil((max(env + par) + 1.0) / 5.0)
+    # The points aloft shown are corners of the environment between the heights
+    # sampled: the range holds them too.
+    pts = [conv(col.t_at(z)) for z in (col.aloft_m or ()) if lo <= z <= hi]
+    t_lo = 5.0 * floor((min(env + par + pts) - 1.0) / 5.0)
+    t_hi = 5.0 * ceil((max(env + par + pts) + 1.0) / 5.0)
     return zs, env, par, t_lo, t_hi
 
 

@@ -11,10 +11,10 @@ MicroPython)."""
 # that use them. A new query word: its function here and its entry in QUERIES; the
 # keys it shows in lapsecalc.groups, their text labels in lapsecalc.layout, its help in
 # lapsecalc.helptext.
-from lapsecalc.limits import check_t
+from lapsecalc.limits import T_MIN_C, T_MAX_C
 from lapsecalc.typed import number, value, shown, said, unit_kind, no_args
 from lapsecalc.groups import GROUPS, report_keys
-from lapsecalc.output import f_h, f_h1, f_p, kv_value, kv_lines, machine, ack
+from lapsecalc.output import f_h, f_h1, f_p, f_t, kv_value, kv_lines, machine, ack
 from lapsecalc.state import assumed, STANDARD_QNH_HPA, ISA_LAPSE_K_PER_KM, DEFAULT_TOP_M, DEFAULT_TROP_M
 
 
@@ -181,7 +181,7 @@ def _c_iso(s, w, args):
     if len(args) != 1:
         raise ValueError("iso needs one temperature, e.g. iso -15C")
     col = s.column(w)
-    t = check_t("iso", number(args[0], "t", s.disp["t"]))
+    t = value(args[0], "t", s.disp["t"], T_MIN_C, T_MAX_C, w)
     return emit(s, GROUPS["iso"], {"iso_t_c": t, "iso_level_msl_m": col.level(t),
                                   "iso_levels_msl_m": col.crossings(t)})
 
@@ -195,6 +195,19 @@ def _balloon_needs(s, w, gas):
         raise ValueError("%s (%s) needs %s: set first, e.g. %s" % (
             w, "gas " + gas if gas else "hot air", ", ".join(miss),
             "gas helium env 10m3 fill 6m3 wt 4kg" if gas else "env 2800m3 wt 450kg tmax 120C"))
+    if gas and st["fill_m3"] > st["env_m3"]:
+        raise ValueError("%s: fill %g m3 is more than env %g m3; the gas fills at most the"
+                         " envelope" % (w, st["fill_m3"], st["env_m3"]))
+
+
+def _hot_needs(s, w, col, z, t_work):
+    # A working envelope temperature below the air at z lifts nothing: said in the
+    # display unit, with the words that set it.
+    t_air = col.t_at(z)
+    if t_work < t_air:
+        raise ValueError("%s: the working envelope temp %s is below the air (%s at %s);"
+                         " set tenv, tmax or margin higher" % (
+                             w, f_t(s, t_work, True), f_t(s, t_air, True), f_h1(s, z)))
 
 
 def _gas_report(s, w, args, gas):
@@ -215,6 +228,8 @@ def _c_balloon(s, w, args):
     col = s.column(w)
     z = _height(s, w, args, col)
     from lapsecalc import balloon
+    _hot_needs(s, w, col, z, balloon.working_envelope_t(
+        st["tmax_c"], st.get("tenv_c"), st.get("margin_k", balloon.DEFAULT_MARGIN_K)))
     r = balloon.hot_air_report(col, st["env_m3"], st["wt_kg"], st["tmax_c"], st.get("tenv_c"),
                                z, st.get("margin_k", balloon.DEFAULT_MARGIN_K))
     return emit(s, GROUPS["hot"], r, True)
@@ -245,7 +260,7 @@ def _c_loads(s, w, args):
         raise ValueError("loads takes at most an empty weight, e.g. loads 420kg")
     empty = None
     if args:
-        empty = value(args[0], "w", "kg", 1.0, 20000.0)
+        empty = value(args[0], "w", "kg", 1.0, 20000.0, w)
     col = s.column(w)
     from lapsecalc.balloon import working_envelope_t, DEFAULT_MARGIN_K
     from lapsecalc.loadtable import load_table, load_table_text

@@ -231,9 +231,9 @@ def _s_amount(key, kind, lo, hi, unit, name):
     return setter
 
 
-def _s_tballoon(key, name):
+def _s_tballoon(key, name, lo):
     def setter(s, new, args):
-        new[key] = value(args[0], "t", s.disp["t"], -90.0, 150.0)
+        new[key] = value(args[0], "t", s.disp["t"], lo, _ENVELOPE_T_MAX_C)
         return "%s %s" % (name, echo(s, args[0], "t", s.disp["t"], new[key]))
     return setter
 
@@ -255,10 +255,14 @@ def _s_pure(s, new, args):
     return "purity " + said(args[0], "%")
 
 
-# As lapsecalc.balloon.MARGIN_MAX_K and SUPERHEAT_MAX_K (not imported here: the balloon
-# module loads only for the balloon words).
+# As lapsecalc.balloon.MARGIN_MAX_K, SUPERHEAT_MAX_K, MAX_ENVELOPE_T_MIN_C (the least
+# maximum envelope temperature a maker may state) and ENVELOPE_T_MAX_C (not imported
+# here: the balloon module loads only for the balloon words; tests/test_settings_limits.py
+# holds them equal).
 _MARGIN_MAX_K = 60.0
 _SUPERHEAT_MAX_K = 50.0
+_TMAX_MIN_C = 50.0
+_ENVELOPE_T_MAX_C = 150.0
 
 
 def _s_margin(s, new, args):
@@ -332,8 +336,8 @@ SETTINGS = {
     "env": (_s_amount("env_m3", "v", 0.1, 2.0e6, "m3", "envelope"), ONE, "env 2800m3"),
     "wt": (_s_amount("wt_kg", "w", 0.01, 20000.0, "kg", "weight"), ONE, "wt 450kg"),
     "fill": (_s_amount("fill_m3", "v", 0.1, 1.0e5, "m3", "fill"), ONE, "fill 12m3"),
-    "tmax": (_s_tballoon("tmax_c", "tmax"), ONE, "tmax 120C"),
-    "tenv": (_s_tballoon("tenv_c", "tenv"), ONE, "tenv 95C"),
+    "tmax": (_s_tballoon("tmax_c", "tmax", _TMAX_MIN_C), ONE, "tmax 120C"),
+    "tenv": (_s_tballoon("tenv_c", "tenv", T_MIN_C), ONE, "tenv 95C"),
     "gas": (_s_gas, ONE, "gas helium"), "pure": (_s_pure, ONE, "pure 98%"),
     "margin": (_s_margin, ONE, "margin 20K"), "superheat": (_s_superheat, ONE, "superheat 12K"),
     "aloft": (_s_aloft, REST, "aloft 6000ft 9C/2C"), "trop": (_s_trop, ONE, "trop 36000ft"),

@@ -38,7 +38,7 @@ PHYSICS_MODULES = ("parcel", "stability", "hazards", "aloft", "altimetry", "indi
                    "balloon", "adiabats")
 WORD_MODULES = PHYSICS_MODULES + (
     "settings", "commands", "helptext", "chart", "loadtable", "balloontext", "metar", "demo",
-    "layout", "hazardtext", "altitext", "aloftwords")
+    "layout", "hazardtext", "altitext", "aloftwords", "retell")
 # The words whose report carries the altimetry keys (isa_deviation_c,
 # density_altitude_dry_m, indicated_altitude_m: Column.report(altimetry=True)).
 ALTIMETRY_WORDS = ("report", "obs", "da", "levels")
@@ -95,6 +95,21 @@ def _is_kv(line):
     return True
 
 
+def _retold(s, st, e, line=None):
+    # The refusal e in session s's words: one in the library's wording (argument
+    # names, SI) is retold by lapsecalc.retell, loaded only then, after the query word
+    # of line that met it; st is the state the line was checked in.
+    text = str(e)
+    if "=" in text or "_" in text or "degC" in text or "aloft point" in text:
+        from lapsecalc.retell import retell
+        text = retell(s, st, text)
+        w = split_line(line)[:1] if isinstance(line, str) else None
+        w = ALIASES.get(w[0].lower(), w[0].lower()) if w else ""
+        if w in QUERIES and text[:len(w)] != w:
+            text = w + ": " + text
+    return text
+
+
 def drop_modules(names):
     """Forget the lapsecalc submodules names: the next import loads them afresh, and
     until then they hold no heap."""
@@ -147,7 +162,7 @@ class Session:
         try:
             out = self._dispatch(line)
         except ValueError as e:
-            return say(self, "error", shown(str(e), 300))
+            return say(self, "error", shown(_retold(self, self.state, e, line), 300))
         except Exception as e:  # a corner the library did not foresee: still one line
             return say(self, "error", "cannot compute that (%s: %s); nothing changed"
                        % (type(e).__name__, shown(str(e), 200)))
@@ -221,8 +236,12 @@ class Session:
             except ValueError as e:
                 raise ValueError("%s %s" % (w, e))
             i = j
-        whole(self, new)
-        self.commit(new)
+        try:
+            whole(self, new)
+            self.commit(new)
+        except ValueError as e:
+            # What only the library finds (the new state's column) in the user's terms.
+            raise ValueError(_retold(self, new, e))
         return ack(self, said, set_words)
 
     def commit(self, new):

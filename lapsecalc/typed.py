@@ -84,6 +84,9 @@ def number(tok, kind, bare):
     x = float(sp[0])
     if not isfinite(x):
         raise ValueError("'%s' is not a finite number" % shown(tok))
+    if abs(x) > 1e30:
+        # No quantity here comes near; converting it would leave the library's range.
+        raise ValueError("'%s' is too large a number; accepted up to 1e30" % shown(tok))
     u = sp[1] or bare
     entry = _UNITS.get(u)
     if entry is None or entry[0] != want:
@@ -128,15 +131,16 @@ def in_unit(x, u, kind="t"):
     return ("0" if text == "-0" else text) + " " + _WRITTEN.get(u, u)
 
 
-def value(tok, kind, bare, lo, hi):
+def value(tok, kind, bare, lo, hi, word=""):
     """The typed number tok (number()) within lo..hi (the library's unit), else a
-    ValueError in the user's unit and words: "99 C is outside -90..60 C"."""
+    ValueError in the user's unit and words: "99 C is outside -90..60 C" (after
+    "word: " when a query word is given)."""
     x = number(tok, kind, bare)
     if not lo <= x <= hi:
         u = unit_of(tok, bare)
         lo_t, hi_t = in_unit(lo, u, kind), in_unit(hi, u, kind)
-        raise ValueError("%s is outside %s..%s" % (said(tok, bare), lo_t[:lo_t.find(" ")],
-                                                   hi_t))
+        raise ValueError("%s%s is outside %s..%s" % (word and word + ": ", said(tok, bare),
+                                                     lo_t[:lo_t.find(" ")], hi_t))
     return x
 
 

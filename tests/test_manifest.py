@@ -138,7 +138,7 @@ INTERPRETER_LAYERS = (
     ("shell",),
     ("settings", "queries", "commands"),
     ("altitext",),
-    ("layout", "chart", "metar", "helptext", "loadtable", "balloontext"),
+    ("layout", "chart", "metar", "helptext", "loadtable", "balloontext", "retell"),
     ("aloftwords",),
     ("balloon", "groups", "output", "state", "typed", "hazardtext"),
     ("altimetry",),  # library extras over the core: altimetry.py over indicated.py,

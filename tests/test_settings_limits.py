@@ -37,8 +37,9 @@ EDGES = [
      ["20000.1kg", "0.0099kg"]),
     ("fill", [("100000m3", "gas_volume_m3", 1.0e5), ("0.1m3", "gas_volume_m3", 0.1)],
      ["100001m3", "0.099m3"]),
-    ("tmax", [("150C", "max_envelope_t_c", 150.0), ("-90C", "max_envelope_t_c", -90.0)],
-     ["150.1C", "-90.1C"]),
+    # tmax: the maker's maximum, 50..150 C (balloon.MAX_ENVELOPE_T_MIN_C/_MAX_C)
+    ("tmax", [("150C", "max_envelope_t_c", 150.0), ("50C", "max_envelope_t_c", 50.0)],
+     ["150.1C", "49.9C", "-90C"]),
     ("tenv", [("150C", "envelope_t_c", 150.0), ("-90C", "envelope_t_c", -90.0)],
      ["150.1C", "-90.1C"]),
     ("pure", [("100%", "purity", 1.0), ("50%", "purity", 0.5)], ["100.1%", "49.9%", "0%"]),
@@ -119,3 +120,12 @@ def test_unit_hints_at_their_edges():
                       ("33.1", False)):
         assert ("for inches write %sinHg" % tok in _text(s, "qnh " + tok)) is hint, tok
     assert "check" in _text(s, "rh 1%") and "check" not in _text(s, "rh 1.005%")
+
+
+def test_setting_ranges_are_the_balloon_modules():
+    # settings keeps copies of the balloon module's limits (it must not import it).
+    from lapsecalc import balloon, settings
+    assert settings._TMAX_MIN_C == balloon.MAX_ENVELOPE_T_MIN_C
+    assert settings._ENVELOPE_T_MAX_C == balloon.ENVELOPE_T_MAX_C == balloon.MAX_ENVELOPE_T_MAX_C
+    assert settings._MARGIN_MAX_K == balloon.MARGIN_MAX_K
+    assert settings._SUPERHEAT_MAX_K == balloon.SUPERHEAT_MAX_K

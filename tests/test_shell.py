@@ -1206,7 +1206,7 @@ def test_loads_text_fits_and_matches_the_library():
     assert kv["payload_kg"] == "" and kv["temps_c"] == "-10,0,10,20,30,40"
     run_unwrapped(s, [("out text", ["ok: out text"]), ("loads 1kg 2kg", [
         "error: loads takes at most an empty weight, e.g. loads 420kg"]),
-        ("loads 0kg", ["error: 0 kg is outside 1..20000 kg"])])
+        ("loads 0kg", ["error: loads: 0 kg is outside 1..20000 kg"])])
     run_unwrapped(s, [("gas he", ["ok: gas helium"]), ("loads", [
         "error: loads is for a hot-air balloon (gas none); a gas balloon: balloon"])])
 

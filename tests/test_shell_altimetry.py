@@ -127,9 +127,10 @@ def test_flight_level_and_indicated_input_refused_cleanly():
             ("at FLx", "error: 'FLx' is not a flight level"),
             ("at FL-5", "error: 'FL-5' is not a flight level"),
             ("at FL85 agl", "error: at: nothing may follow a flight level"),
-            ("at FL10", "error: fl=10 "),
-            ("at FL400", "error: fl=400 "),
-            ("at 1000ft ind", "error: indicated_m=304.8 is outside the allowed range 750"),
+            # FL10 is 977 hPa (ICAO Doc 7488/3 pressure at 1000 ft), not in this column
+            ("at FL10", "error: at: FL10 (977 hPa) is outside the column; allowed FL"),
+            ("at FL400", "error: at: FL400 (188 hPa) is outside the column; allowed FL"),
+            ("at 1000ft ind", "error: at: the indicated height 1000 ft is outside 2461.."),
             ("at 3000ft up", "error: at: 'up' after the height; accepted agl, msl or ind")):
         got = one(s.feed(line))
         assert len(got) == 1 and got[0].startswith(want), (line, got)

@@ -161,6 +161,10 @@ def text(col, rep, levels, h_unit="ft", t_unit="c", top_m=None, rows=ROWS):
 
 # Height of a line of SVG text (font-size 11) with a little air, px.
 _LINE_PX = 13
+# The paints of the curves and the icing band, used by the legend's samples too.
+_ENV_PAINT = 'fill="none" stroke="black" stroke-width="2"'
+_PARCEL_PAINT = 'fill="none" stroke="#c33" stroke-width="2" stroke-dasharray="6 3"'
+_ICING_PAINT = 'fill="#9cd" fill-opacity="0.35"'
 
 
 def _esc(s):
@@ -196,8 +200,8 @@ def svg(col, rep, levels, h_unit="ft", t_unit="c", top_m=None):
     ib, it = icing_span(rep)
     if ib is not None and it is not None:
         y1, y0 = py(min(it, hi)), py(max(ib, lo))
-        out.append('<rect id="icing" x="%d" y="%.1f" width="%d" height="%.1f" fill="#9cd"'
-                   ' fill-opacity="0.35"/>' % (left, y1, pw, max(y0 - y1, 0.0)))
+        out.append('<rect id="icing" x="%d" y="%.1f" width="%d" height="%.1f" %s/>'
+                   % (left, y1, pw, max(y0 - y1, 0.0), _ICING_PAINT))
     freeze = 0.0 if t_unit == "c" else 32.0
     if t_lo < freeze < t_hi:
         out.append('<line id="isotherm-0" x1="%.1f" y1="%d" x2="%.1f" y2="%d" stroke="#36c"'
@@ -216,10 +220,8 @@ def svg(col, rep, levels, h_unit="ft", t_unit="c", top_m=None):
     out.append('<text x="%d" y="%d">%s MSL</text>' % (4, top - 10, h_unit))
     out.append('<text x="%d" y="%d" text-anchor="middle">temperature %s</text>'
                % (left + pw // 2, top + ph + 30, t_unit.upper()))
-    out.append('<polyline id="environment" points="%s" fill="none" stroke="black"'
-               ' stroke-width="2"/>' % pts(env))
-    out.append('<polyline id="parcel" points="%s" fill="none" stroke="#c33" stroke-width="2"'
-               ' stroke-dasharray="6 3"/>' % pts(par))
+    out.append('<polyline id="environment" points="%s" %s/>' % (pts(env), _ENV_PAINT))
+    out.append('<polyline id="parcel" points="%s" %s/>' % (pts(par), _PARCEL_PAINT))
     names = {"cloud_base_msl_m": ("cloud-base", "cloud base"),
              "freezing_level_msl_m": ("freezing-level", "0 deg"), "lfc_msl_m": ("lfc", "LFC"),
              "el_msl_m": ("el", "EL"), "thermal_top_msl_m": ("thermal-top", "thermal top"),
@@ -242,8 +244,16 @@ def svg(col, rep, levels, h_unit="ft", t_unit="c", top_m=None):
         above = ty
         out.append('<text x="%d" y="%.1f" text-anchor="end" fill="#444">%s %d %s</text>'
                    % (left + pw - 2, ty, _esc(name), round(_h(rep[key], h_unit)), h_unit))
-    out.append('<text x="%d" y="%d">black: environment (ELR); red dashed: surface parcel;'
-               '</text>' % (4, h - 18))
-    out.append('<text x="%d" y="%d">blue band: icing (0 to -20 C in cloud)</text>' % (4, h - 5))
+    # The legend shows a sample of each paint beside its name and names no colour: a
+    # page that recolours the chart (the offline page's night mode inverts it)
+    # recolours the samples alike, so legend and curves always agree.
+    for x, y, paint, name in ((4, h - 18, _ENV_PAINT, "environment (ELR)"),
+                              (150, h - 18, _PARCEL_PAINT, "surface parcel")):
+        out.append('<line class="legend" x1="%d" y1="%d" x2="%d" y2="%d" %s/>'
+                   % (x, y - 4, x + 22, y - 4, paint))
+        out.append('<text x="%d" y="%d">%s</text>' % (x + 26, y, name))
+    out.append('<rect class="legend" x="4" y="%d" width="22" height="10" %s/>'
+               % (h - 14, _ICING_PAINT))
+    out.append('<text x="30" y="%d">icing band (0 to -20 C in cloud)</text>' % (h - 5))
     out.append("</svg>")
     return "\n".join(out) + "\n"

@@ -238,3 +238,29 @@ def test_points_aloft_and_tropopause_are_marked():
         round(34.0 + 3000.0 / 6000.0 * 382.0, 1), round(34.0 + 5000.0 / 6000.0 * 382.0, 1)]
     trop = [e for e in root.iter(SVG + "line") if e.get("id") == "tropopause"]
     assert len(trop) == 1 and abs(float(trop[0].get("y1")) - (34.0 + 382.0 / 6.0)) < PX_TOL
+
+
+COLOUR_WORDS = ("black", "white", "red", "blue", "green", "grey", "gray", "yellow",
+                "orange", "cyan", "dark", "light")
+
+
+def test_svg_legend_shows_samples_and_names_no_colour():
+    # The legend shows each paint beside its name instead of naming colours, so any
+    # recolouring of the whole chart (the page's night mode inverts it) keeps legend
+    # and curves alike.
+    col = _isa_column(t=30.0, td=22.0, lapse=8.0)
+    rep = col.report()
+    levels = parcel.path(col, col.elev_m + rep["cloud_base_agl_m"])
+    root = ET.fromstring(chart.svg(col, rep, levels, "ft", "c"))
+    words = " ".join((t.text or "") for t in root.iter(SVG + "text")).lower().split()
+    assert not [w for w in words if w.strip(";:,()") in COLOUR_WORDS], words
+    paint = ("fill", "stroke", "stroke-width", "stroke-dasharray", "fill-opacity")
+    curves = {e.get("id"): e for e in root.iter(SVG + "polyline")}
+    samples = [e for e in root.iter() if e.get("class") == "legend"]
+    icing = [e for e in root.iter(SVG + "rect") if e.get("id") == "icing"][0]
+    assert len(samples) == 3
+    for sample, shown in zip(samples, (curves["environment"], curves["parcel"], icing)):
+        assert [sample.get(a) for a in paint] == [shown.get(a) for a in paint]
+    texts = [t.text for t in root.iter(SVG + "text")]
+    assert "environment (ELR)" in texts and "surface parcel" in texts
+    assert "icing band (0 to -20 C in cloud)" in texts

@@ -451,4 +451,15 @@ def test_layout_and_screenshots(tab, width, height):
     t.type_line("chart")
     t.driver.execute_script("document.getElementById('chart').scrollIntoView()")
     t.driver.save_screenshot(os.path.join(SHOTS, "page-%d-night-chart.png" % width))
+    # Night mode recolours the whole chart with one filter; the legend shows samples
+    # of the paints inside it, so they change with the curves, and names no colour
+    # (a colour word would be wrong under the filter).
+    f = t.driver.execute_script("""
+        const svg = document.querySelector('#chart svg');
+        return {filter: getComputedStyle(svg).filter,
+                samples: svg.querySelectorAll('.legend').length,
+                words: Array.from(svg.querySelectorAll('text'), (x) => x.textContent)};""")
+    assert "invert" in f["filter"] and f["samples"] == 3, f
+    words = " ".join(f["words"]).lower().replace(";", " ").replace(":", " ").split()
+    assert not set(words) & {"black", "red", "blue", "white", "grey", "gray"}, words
     assert t.network() == [t.url]

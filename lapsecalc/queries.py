@@ -13,22 +13,27 @@ MicroPython)."""
 # lapsecalc.helptext.
 from lapsecalc.limits import T_MIN_C, T_MAX_C
 from lapsecalc.typed import number, value, shown, said, unit_kind, no_args
-from lapsecalc.groups import GROUPS, report_keys
-from lapsecalc.output import f_h, f_h1, f_p, f_t, kv_value, kv_lines, machine, ack
 from lapsecalc.state import assumed, STANDARD_QNH_HPA, ISA_LAPSE_K_PER_KM, DEFAULT_TOP_M, DEFAULT_TROP_M
 
 
-def emit(s, keys, values, balloon=False, word=None, rest=True):
+def emit(s, keys, values, balloon=False, word=None, rest=True, plus=()):
     """Lines of the result keys of values in session s's mode, after the notes of the
-    defaults in use. A balloon report (text labels from lapsecalc.balloontext) shows
-    its keys not in keys too, unless rest is False."""
+    defaults in use. keys: the keys, or the name of their group (lapsecalc.groups),
+    then with plus after them. A balloon report (text labels from
+    lapsecalc.balloontext) shows its keys not in keys too, unless rest is False.
+    word: the query word whose text keys (layout.text_keys) the text mode shows."""
+    s.release()  # the numbers are there: a board lets go of the physics first
+    if isinstance(keys, str):
+        from lapsecalc.groups import GROUPS
+        keys = GROUPS[keys] + plus
     if balloon and rest:
         keys = list(keys) + sorted(k for k in values if k not in keys)
-    s.release()  # the numbers are there: a board lets go of the physics first
     notes = assumed(s.state, balloon)
     if s.mode == "kv":
+        from lapsecalc.output import kv_lines
         return ["# assumed " + n for n in notes] + kv_lines(values, keys)
     if s.mode == "json":
+        from lapsecalc.output import machine
         obj = {}
         for k in keys:
             if k in values:
@@ -61,15 +66,16 @@ def emit(s, keys, values, balloon=False, word=None, rest=True):
 
 def _c_group(s, w, args):
     no_args(w, args)
-    keys = GROUPS[w]
+    plus = ()
     if w == "base" and s.state.get("excess_c"):
         # The heated thermals' cloud base beside the unheated one.
-        keys = keys + ("thermal_excess_c", "thermal_cloud_base_msl_m")
+        plus = ("thermal_excess_c", "thermal_cloud_base_msl_m")
     more = []
     if w == "base" and s.mode == "text":
+        from lapsecalc.output import f_h
         for method, label in (("bolton", "Bolton LCL"), ("spread", "spread rule")):
             more.append("%-13s%s AGL" % (label, f_h(s, s.column().cloud_base(method)[0])))
-    out = emit(s, keys, s.report(w), False, None if keys is not GROUPS[w] else w) + more
+    out = emit(s, w, s.report(w), False, None if plus else w, True, plus) + more
     if w == "parcel" and s.mode == "text":
         from lapsecalc.layout import PARCEL_NOTE
         out.append(PARCEL_NOTE)
@@ -80,9 +86,12 @@ def _c_report(s, w, args):
     no_args(w, args)
     rep = s.report(w)
     if s.mode != "text":
+        s.release()
+        from lapsecalc.groups import report_keys
         return emit(s, report_keys(rep), rep)
     extra = _altimeter_section(s, rep)
     s.release()
+    from lapsecalc.groups import report_keys
     from lapsecalc.layout import report_text
     return ["assumed " + n for n in assumed(s.state)] + report_text(
         s, rep, report_keys(rep), extra)
@@ -120,6 +129,7 @@ def _height(s, w, args, col):
         p = number(args[0], "p", "hpa")
         p_top = col.p_at(col.top_m)
         if not p_top <= p <= col.p_hpa:
+            from lapsecalc.output import f_p
             raise ValueError("%s: %s is not in the column (%s at the field, %s at the top)"
                              % (w, said(args[0], "hpa"), f_p(s, col.p_hpa, True),
                                 f_p(s, p_top, True)))
@@ -132,6 +142,7 @@ def _height(s, w, args, col):
         z += col.elev_m
     typed = said(args[0], s.disp["h"]) + (" AGL" if where == "agl" else "")
     # A millimetre of rounding at either end is the end itself.
+    from lapsecalc.output import f_h1
     if z < col.elev_m - 0.001:
         raise ValueError("%s: %s is below the field (%s)" % (w, typed, f_h1(s, col.elev_m)))
     if z > col.top_m + 0.001:
@@ -157,7 +168,8 @@ def _c_at(s, w, args):
     ind, pa, dev = altimeter_view(col, z, p)
     vals["at_indicated_m"], vals["at_pressure_altitude_m"], vals["at_isa_deviation_c"] = \
         ind, pa, dev
-    out = emit(s, GROUPS["at"], vals)
+    col = None  # let go of before the text is laid out
+    out = emit(s, "at", vals)
     if s.mode == "text" and dev <= -COLD_WARNING_K and ind > z:
         from lapsecalc.altitext import cold_warning_lines
         out.extend(cold_warning_lines(s, [("at_msl_m", z, dev, ind - z)]))
@@ -182,8 +194,9 @@ def _c_iso(s, w, args):
         raise ValueError("iso needs one temperature, e.g. iso -15C")
     col = s.column(w)
     t = value(args[0], "t", s.disp["t"], T_MIN_C, T_MAX_C, w)
-    return emit(s, GROUPS["iso"], {"iso_t_c": t, "iso_level_msl_m": col.level(t),
-                                  "iso_levels_msl_m": col.crossings(t)})
+    vals = {"iso_t_c": t, "iso_level_msl_m": col.level(t), "iso_levels_msl_m": col.crossings(t)}
+    col = None  # let go of before the text is laid out
+    return emit(s, "iso", vals)
 
 
 def _balloon_needs(s, w, gas):
@@ -205,6 +218,7 @@ def _hot_needs(s, w, col, z, t_work):
     # display unit, with the words that set it.
     t_air = col.t_at(z)
     if t_work < t_air:
+        from lapsecalc.output import f_t, f_h1
         raise ValueError("%s: the working envelope temp %s is below the air (%s at %s);"
                          " set tenv, tmax or margin higher" % (
                              w, f_t(s, t_work, True), f_t(s, t_air, True), f_h1(s, z)))
@@ -224,15 +238,22 @@ def _c_balloon(s, w, args):
     gas = st.get("gas")
     _balloon_needs(s, w, gas)
     if gas:
-        return emit(s, GROUPS["gas"], _gas_report(s, w, args, gas), True)
+        return emit(s, "gas", _gas_report(s, w, args, gas), True)
+    return emit(s, "hot", _hot_report(s, w, args), True)
+
+
+def _hot_report(s, w, args):
+    # (Its own function: the column and the balloon code are let go of before the text
+    # is laid out.)
+    st = s.state
     col = s.column(w)
     z = _height(s, w, args, col)
     from lapsecalc import balloon
     _hot_needs(s, w, col, z, balloon.working_envelope_t(
         st["tmax_c"], st.get("tenv_c"), st.get("margin_k", balloon.DEFAULT_MARGIN_K)))
-    r = balloon.hot_air_report(col, st["env_m3"], st["wt_kg"], st["tmax_c"], st.get("tenv_c"),
-                               z, st.get("margin_k", balloon.DEFAULT_MARGIN_K))
-    return emit(s, GROUPS["hot"], r, True)
+    return balloon.hot_air_report(col, st["env_m3"], st["wt_kg"], st["tmax_c"],
+                                  st.get("tenv_c"), z,
+                                  st.get("margin_k", balloon.DEFAULT_MARGIN_K))
 
 
 def _c_sunset(s, w, args):
@@ -242,7 +263,7 @@ def _c_sunset(s, w, args):
                          " and superheat first")
     _balloon_needs(s, w, gas)
     r = _gas_report(s, w, args, gas)
-    out = emit(s, GROUPS["sunset"], r, True, None, False)
+    out = emit(s, "sunset", r, True, None, False)
     if s.mode == "text" and "superheat_k" not in s.state:
         out.append("superheat not set: 0 K (superheat 12K)")
     return out
@@ -286,6 +307,7 @@ def _c_chart(s, w, args):
     if args:
         top = _height(s, w, args, col)
         if top < col.elev_m + 30.0:
+            from lapsecalc.output import f_h1
             raise ValueError("chart: the top must be at least 100 ft (30 m) above the"
                              " field (%s)" % f_h1(s, col.elev_m))
     from lapsecalc.chart import text
@@ -299,7 +321,10 @@ def _c_svg(s, w, args):
         raise ValueError("svg writes a file: only the CPython command line does"
                          " (lapsecalc --svg FILE)")
     line = s.svg_writer(args[0], chart_svg(s))
-    return [line] if s.mode == "text" else ack(s, line, ["svg"])
+    if s.mode == "text":
+        return [line]
+    from lapsecalc.output import ack
+    return ack(s, line, ["svg"])
 
 
 def chart_svg(s):
@@ -314,6 +339,8 @@ def kv_report(s):
         rep = s.report()
     except ValueError as e:
         return ["error: " + shown(str(e), 300)]
+    from lapsecalc.groups import report_keys
+    from lapsecalc.output import kv_lines
     return kv_lines(rep, report_keys(rep))
 
 
@@ -325,6 +352,7 @@ def _c_show(s, w, args):
         return show_text(s)
     # The values in force, defaults included and named in "defaults"; a setting with
     # no default and not set is empty (None).
+    from lapsecalc.output import kv_value, kv_lines, machine
     kind, hum = st.get("hum", ("td", None))
     pk, p = st.get("press", ("qnh", None))
     lapse = st.get("lapse")

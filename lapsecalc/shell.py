@@ -37,8 +37,8 @@ PROMPT = "lc> "
 PHYSICS_MODULES = ("parcel", "stability", "hazards", "aloft", "altimetry", "indicated",
                    "balloon", "adiabats")
 WORD_MODULES = PHYSICS_MODULES + (
-    "settings", "commands", "helptext", "chart", "loadtable", "balloontext", "metar", "demo",
-    "layout", "hazardtext", "altitext", "aloftwords", "retell")
+    "settings", "commands", "output", "groups", "helptext", "chart", "loadtable",
+    "balloontext", "metar", "demo", "layout", "hazardtext", "altitext", "aloftwords", "retell")
 # The words whose report carries the altimetry keys (isa_deviation_c,
 # density_altitude_dry_m, indicated_altitude_m: Column.report(altimetry=True)).
 ALTIMETRY_WORDS = ("report", "obs", "da", "levels")
@@ -157,15 +157,14 @@ class Session:
         """Run one line; return its output lines (no newlines in them). In text mode
         an error is "error: ..." wrapped to 40 columns; in kv mode every line is
         key=value or starts "#"; in json mode every line is one JSON object."""
-        from lapsecalc.output import say
         self.checks = []
         try:
             out = self._dispatch(line)
         except ValueError as e:
-            return say(self, "error", shown(_retold(self, self.state, e, line), 300))
+            return self._say("error", shown(_retold(self, self.state, e, line), 300))
         except Exception as e:  # a corner the library did not foresee: still one line
-            return say(self, "error", "cannot compute that (%s: %s); nothing changed"
-                       % (type(e).__name__, shown(str(e), 200)))
+            return self._say("error", "cannot compute that (%s: %s); nothing changed"
+                             % (type(e).__name__, shown(str(e), 200)))
         finally:
             if self.drop_word_modules:
                 # A collection here frees the line's garbage and the dropped modules
@@ -177,12 +176,21 @@ class Session:
                 import gc
                 gc.collect()
         for c in self.checks:
-            out.extend(say(self, "check", c))
+            out.extend(self._say("check", c))
         if self.mode == "json":
             out = [x if x[:1] == "{" else self.json.dumps({"text": x}) for x in out]
         elif self.mode == "kv":
             out = [x if x[:1] == "#" or _is_kv(x) else "# " + x for x in out]
         return out
+
+    def _say(self, key, text):
+        # output.say (loaded for the line that says something; a board drops it after).
+        from lapsecalc.output import say
+        try:
+            return say(self, key, text)
+        finally:
+            if self.drop_word_modules:
+                drop_modules(("output",))
 
     def _dispatch(self, line):
         if not isinstance(line, str):

@@ -58,8 +58,8 @@ DEFAULT_TESTS = {
     "parcel": ["test_parcel.py", "test_report_keys.py", "test_stability.py", "test_column.py"],
     "stability": ["test_stability.py", "test_parcel.py", "test_report_keys.py",
                   "test_column_edges.py", "test_column.py"],
-    "balloon": ["test_balloon_limits.py", "test_balloon.py", "test_balloon_full.py",
-                "test_shell_values.py"],
+    "balloon": ["test_balloon_edges.py", "test_balloon_limits.py", "test_balloon.py",
+                "test_balloon_full.py", "test_shell_values.py"],
     "settings": ["test_settings_limits.py", "test_shell.py", "test_shell_values.py",
                  "test_metar.py"],
     "typed": ["test_typed.py", "test_settings_limits.py", "test_shell.py", "test_units.py"],
@@ -68,6 +68,10 @@ DEFAULT_TESTS = {
     "altimetry": ["test_altimetry.py", "test_column.py", "test_shell.py"],
     "altitext": ["test_shell_altimetry.py", "test_shell_values.py", "test_shell.py"],
     "hazards": ["test_hazards.py", "test_stability.py", "test_column.py", "test_shell.py"],
+    "loadtable": ["test_loadtable.py", "test_balloon.py", "test_shell_values.py"],
+    "aloft": ["test_aloft.py", "test_report_keys.py", "test_column.py"],
+    "aloftwords": ["test_aloft.py", "test_shell_values.py", "test_shell.py"],
+    "balloontext": ["test_shell_values.py", "test_shell.py"],
 }
 COPY = ("lapsecalc", "tests", "bench", "README.md", "DEVELOPERS.md", "pyproject.toml")
 

@@ -209,7 +209,9 @@ def first_drop(col, f, z_from_m):
             if z_next > z_layer_top:
                 z_next = z_layer_top
             f_next = f(z_next)
-            if f_next < 0.0:
+            if not f_next >= 0.0:
+                if not isfinite(f_next):
+                    raise ValueError("first_drop: f(%g m) is not finite" % z_next)
                 return _narrow(f, z, z_next, fz, f_next)
             z, fz = z_next, f_next
     return None

@@ -9,6 +9,7 @@ its 40-column text for the interpreter's loads word."""
 # Assumption: through the day the field temperature changes, the dewpoint stays (the
 #   air mass's moisture changes slowly; common practice), capped at the temperature;
 #   the field pressure and the ELR stay as observed and assumed.
+from math import floor
 from lapsecalc import units
 from lapsecalc.limits import check
 from lapsecalc.column import Column
@@ -25,12 +26,11 @@ TABLE_DEPTH_M = 3000.0
 TABLE_MAX = 40
 
 
-def field_column(col, t_c):
-    """The column col with the field temperature t_c degC (-60..60): the same field
-    pressure, elevation, ELR layers and top, the same dewpoint (capped at t_c), so the
-    same humidity rule aloft. The load table's columns; a Column, or None when this
-    ELR leaves no column above the field at t_c."""
-    t = check("t_c", t_c, -60.0, 60.0, "degC (field temperature)")
+def _field_column(col, t):
+    # The column col with the field temperature t degC (-60..60, checked by load_table):
+    # the same field pressure, elevation, ELR layers and top, the same dewpoint (capped
+    # at t), so the same humidity rule aloft. The load table's columns; a Column, or
+    # None when this ELR leaves no column above the field at t.
     spec = [(z1 - col.elev_m, -1000.0 * grad) for _, z1, _, grad, _ in col.layers]
     try:
         return Column(t, col.td_c if col.td_c < t else t, col.p_hpa, col.elev_m, spec, col.top_m)
@@ -49,7 +49,9 @@ def _heights(col, heights_msl_m, step_m, depth_m):
     if end > col.top_m:
         end = col.top_m
     hs = [col.elev_m]
-    z = (int(col.elev_m / step) + 1) * step
+    # The first multiple of the step above the field (floor: also below sea level);
+    # one within a metre of the field would repeat the field row.
+    z = (floor(col.elev_m / step) + 1) * step
     while z <= end and len(hs) < TABLE_MAX:
         if z - col.elev_m > 1.0:
             hs.append(z)
@@ -65,12 +67,13 @@ def load_table(col, volume_m3, envelope_t_c, max_envelope_t_c=None, empty_kg=Non
     max_envelope_t_c when that is given) over field temperatures and heights.
 
     For each field temperature in temps_c (1..40 values, -60..60 degC) the column is
-    field_column(col, t): the same pressure at the field, ELR and dewpoint rule, the
+    _field_column(col, t): the same pressure at the field, ELR and dewpoint rule, the
     air shifted warmer or colder. Heights: heights_msl_m (1..40, inside col), or the
-    field and every multiple of step_m MSL above it up to depth_m above the field (the
-    column top at most; default 3000 m, or the column top with empty_kg); with
-    empty_kg (1..20000, the balloon with fuel and crew but no payload) the rows end
-    where no field temperature lifts the empty weight any more.
+    field and every multiple of step_m MSL above it (one less than 1 m above the field
+    left out) up to depth_m above the field (the column top at most; default 3000 m,
+    or the column top with empty_kg); with empty_kg (1..20000, the balloon with fuel
+    and crew but no payload) the rows end where no field temperature lifts the empty
+    weight any more.
 
     Returns temps_c, heights_msl_m, gross_kg (one row per height, one value per
     temperature; None where the column at that temperature ends below the height),
@@ -89,7 +92,7 @@ def load_table(col, volume_m3, envelope_t_c, max_envelope_t_c=None, empty_kg=Non
     if not temps or len(temps) > TABLE_MAX:
         raise ValueError("temps_c has %d temperatures; allowed 1..%d" % (len(temps), TABLE_MAX))
     temps = [check("t_c", t, -60.0, 60.0, "degC (field temperature)") for t in temps]
-    cols = [field_column(col, t) for t in temps]
+    cols = [_field_column(col, t) for t in temps]
     if depth_m is None:
         depth_m = TABLE_DEPTH_M if empty is None else col.top_m - col.elev_m
     hs = _heights(col, heights_msl_m, step_m, depth_m)

@@ -481,7 +481,7 @@ def test_issue_example_working_against_limit():
 
 
 def field_col(col, spec, t):
-    # Independent of balloon.field_column: the column rebuilt from the test's own ELR
+    # Independent of loadtable._field_column: the column rebuilt from the test's own ELR
     # spec with the field temperature t, the same station pressure, and the dewpoint
     # kept (capped at t).
     try:

@@ -1,0 +1,91 @@
+"""Balloon figures at their edges: the height solver on functions whose root is known,
+the oxygen note above the ISA table's 32 km, and a weight exactly equal to the lift."""
+import math
+
+import pytest
+
+from lapsecalc.column import Column
+from lapsecalc.balloon import first_drop, hot_air_report, gas_report
+from test_balloon import dry_isa_column, hot_lift_m3
+
+# first_drop narrows its bracket below 0.1 m and returns the middle (balloon.py
+# docstring): within 0.05 m of the root, plus rounding.
+ROOT_TOL_M = 0.051
+
+
+def _shapes(root):
+    # Functions falling through zero at root (m), known exactly: concave, convex, a flat
+    # cubic and a line. Regula falsi keeps one end of the bracket on a curved function;
+    # the Illinois step must move it, or the bracket never narrows (Dowell & Jarratt 1971).
+    return (("concave", lambda z: 1.0 - math.exp((z - root) / 50.0)),
+            ("convex", lambda z: math.exp(-(z - root) / 50.0) - 1.0),
+            ("cubic", lambda z: (root - z) ** 3),
+            ("line", lambda z: root - z))
+
+
+@pytest.mark.parametrize("root", [1234.567, 5432.1, 10999.0, 0.04])
+def test_first_drop_finds_known_roots(root):
+    col = dry_isa_column()
+    for name, f in _shapes(root):
+        z = first_drop(col, f, 0.0)
+        assert abs(z - root) < ROOT_TOL_M, (name, z)
+
+
+def test_first_drop_none_when_it_never_falls_and_refuses_nan():
+    col = dry_isa_column(5000.0)
+    assert first_drop(col, lambda z: 1.0 + z, 0.0) is None
+    # Zero is not below zero: a function that touches zero at the top stays "at or above".
+    assert first_drop(col, lambda z: 5000.0 - z, 0.0) is None
+    with pytest.raises(ValueError, match="not finite"):
+        first_drop(col, lambda z: float("nan"), 0.0)
+    with pytest.raises(ValueError, match="not finite"):
+        first_drop(col, lambda z: 1.0 if z < 100.0 else float("nan"), 0.0)
+
+
+def test_first_drop_in_a_layered_column_starts_where_asked():
+    # Scan steps end at every layer top; a root just above a layer top and a start
+    # height above an earlier root.
+    col = Column(15.0, -90.0, 1013.25, 0.0, [(700.0, -2.0), (2300.0, 6.5), (None, 8.0)],
+                 9000.0)
+    for root in (700.02, 2299.97, 2300.3, 8999.0):
+        assert abs(first_drop(col, lambda z: root - z, 0.0) - root) < ROOT_TOL_M
+    # cos(z / 600 m) falls through zero at 600 (pi/2 + 2 k pi) m: 942.5 m, 4712.4 m.
+    f = lambda z: math.cos(z / 600.0)
+    assert abs(first_drop(col, f, 0.0) - 300.0 * math.pi) < ROOT_TOL_M
+    assert abs(first_drop(col, f, 3000.0) - 600.0 * 2.5 * math.pi) < ROOT_TOL_M
+
+
+def test_oxygen_note_above_the_isa_table():
+    # A column colder than ISA aloft (0 degC at sea level, 6.5 K/km to 11 km, then
+    # isothermal at -71.5 degC) has less than the ISA's 8.68 hPa at 32 km (ICAO Doc
+    # 7488/3: 8.68 hPa is 32000 m), beyond the pressure-altitude scale: a height there
+    # is above every oxygen height (common practice: 13000 ft always).
+    col = Column(0.0, -90.0, 1013.25, 0.0, [(11000.0, 6.5), (None, 0.0)], 32000.0)
+    assert col.p_at(32000.0) < 8.68
+    r = hot_air_report(col, 20000.0, 1.0, 150.0, None, 32000.0)
+    assert r["oxygen_note"] is not None and "passes 13000 ft" in r["oxygen_note"]
+
+
+def test_weight_exactly_the_gross_lift():
+    # A hot-air balloon weighing exactly its gross lift at the working temperature
+    # floats there: the temperature it needs is the working one, not above it.
+    col = dry_isa_column()
+    w = hot_air_report(col, 2800.0, 1.0, 120.0)["gross_lift_kg"]
+    # The gross lift itself, independently: V rho (1 - T / T_env) (ideal gas).
+    assert abs(w - 2800.0 * hot_lift_m3(col, 0.0, 100.0)) < 1e-6
+    r = hot_air_report(col, 2800.0, w, 120.0)
+    # T / (1 - lift / rho) with lift = rho (1 - T / Te) is Te again, here to the last bit.
+    assert r["envelope_t_needed_c"] == 100.0
+    assert not any("above the working" in x for x in r["warnings"])
+    assert not r["envelope_t_needed_over_working"]
+    assert r["free_lift_kg"] == 0.0 and abs(r["payload_kg"]) < 1e-9
+    # A gas balloon weighing exactly its gross lift at the field lifts off (free lift
+    # 0 is not "less than the weight").
+    g = gas_report(col, "helium", 1.0, 500.0, 1000.0, 1.0)["gross_lift_kg"]
+    r = gas_report(col, "helium", 1.0, 500.0, 1000.0, g)
+    assert r["free_lift_kg"] == 0.0
+    assert not any("No lift-off" in x for x in r["warnings"])
+    assert r["float_msl_m"] is not None and r["float_msl_m"] >= r["full_msl_m"]
+    # A gram more and it stays on the ground.
+    r = gas_report(col, "helium", 1.0, 500.0, 1000.0, g + 0.001)
+    assert any("No lift-off" in x for x in r["warnings"]) and r["float_msl_m"] is None

@@ -50,7 +50,7 @@ def _heights(col, heights_msl_m, step_m, depth_m):
         end = col.top_m
     hs = [col.elev_m]
     # The first multiple of the step above the field (floor: also below sea level);
-    # one within a metre of the field would repeat the field row.
+    # one a metre or less above the field would repeat the field row.
     z = (floor(col.elev_m / step) + 1) * step
     while z <= end and len(hs) < TABLE_MAX:
         if z - col.elev_m > 1.0:
@@ -69,7 +69,7 @@ def load_table(col, volume_m3, envelope_t_c, max_envelope_t_c=None, empty_kg=Non
     For each field temperature in temps_c (1..40 values, -60..60 degC) the column is
     _field_column(col, t): the same pressure at the field, ELR and dewpoint rule, the
     air shifted warmer or colder. Heights: heights_msl_m (1..40, inside col), or the
-    field and every multiple of step_m MSL above it (one less than 1 m above the field
+    field and every multiple of step_m MSL above it (one 1 m or less above the field
     left out) up to depth_m above the field (the column top at most; default 3000 m,
     or the column top with empty_kg); with empty_kg (1..20000, the balloon with fuel
     and crew but no payload) the rows end where no field temperature lifts the empty

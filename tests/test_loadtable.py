@@ -1,6 +1,8 @@
 """The load table (lapsecalc.loadtable): its rows, where it ends with an empty weight,
 and its 40-column text, against lift computed here (ideal gas with the virtual
 temperature; test_balloon.hot_lift_m3) and row heights worked out by hand."""
+import math
+
 import pytest
 
 from lapsecalc.column import Column
@@ -23,10 +25,12 @@ def isa_from(elev_m, lapse=6.5, top_m=11000.0, t_c=15.0):
     (-300.0, 500.0, 3000.0, 11000.0, [-300.0, 0.0, 500.0, 1000.0, 1500.0, 2000.0, 2500.0]),
     # A field on a multiple: the next row is one step up.
     (500.0, 500.0, 1500.0, 11000.0, [500.0, 1000.0, 1500.0, 2000.0]),
-    # A multiple less than a metre above the field repeats it and is left out; 1.1 m
+    # A multiple a metre or less above the field repeats it and is left out; 1.005 m
     # above it is a row of its own.
     (499.5, 500.0, 1000.0, 11000.0, [499.5, 1000.0]),
     (498.9, 500.0, 1000.0, 11000.0, [498.9, 500.0, 1000.0]),
+    (499.0, 500.0, 1000.0, 11000.0, [499.0, 1000.0]),
+    (498.995, 500.0, 1000.0, 11000.0, [498.995, 500.0, 1000.0]),
     # The rows stop at the column top, the top itself included when it is a multiple.
     (0.0, 1000.0, 9000.0, 4000.0, [0.0, 1000.0, 2000.0, 3000.0, 4000.0]),
     (0.0, 1000.0, 3500.0, 11000.0, [0.0, 1000.0, 2000.0, 3000.0]),
@@ -68,6 +72,10 @@ def test_rows_end_where_no_field_temperature_lifts_the_empty_weight():
     best = load_table(col, 2800.0, 100.0, None, None, temps, [3000.0])["gross_kg"][0][0]
     tab = load_table(col, 2800.0, 100.0, None, best, temps, None, 500.0)
     assert tab["heights_msl_m"][-1] == 3000.0 and tab["payload_kg"][-1][0] == 0.0
+    # In the text a payload of exactly 0 kg is "0": it lifts, with nothing to spare.
+    s = Session()
+    s.feed("unit m C")
+    assert load_table_text(s, tab)[-3] == "  3000    0    -"
 
 
 def test_empty_weight_rows_run_to_the_column_top():
@@ -126,15 +134,58 @@ def test_text_cells_against_lift_computed_here():
 
 
 def test_text_switches_to_thousands_at_9999_5_kg():
-    # A volume chosen (from the lift computed here) so that the field cell is 10050 kg:
-    # past 9999.5 it is written in thousands ("10k"), below it in kg.
+    # Volumes chosen (from the lift computed here) so that the field cell is 10600 kg,
+    # 9990 kg and exactly 9999.5 kg: from 9999.5 kg on (it would print as 10000, five
+    # digits with no space before them) a cell is in thousands.
     s = Session()
     s.feed("unit ft F")
     col = isa_from(0.0, 6.5, 6000.0, 15.0)
     per_m3 = hot_lift_m3(field_col(col, 6.5, -40.0), 0.0, 150.0)
-    for kg, cell in ((10050.0, "  10k"), (9990.0, " 9990")):
-        tab = load_table(col, kg / per_m3, 150.0, None, None, [-40.0], [0.0])
+    for kg, cell in ((10600.0, "  11k"), (9990.0, " 9990"), (9999.5, "  10k")):
+        v = kg / per_m3
+        for _ in range(50):      # the volume whose cell is exactly kg, to the last bit
+            tab = load_table(col, v, 150.0, None, None, [-40.0], [0.0])
+            g = tab["gross_kg"][0][0]
+            if abs(g - kg) > 1e-6 * kg or g == kg:
+                break
+            v = math.nextafter(v, math.inf if g < kg else -math.inf)
+        assert abs(g - kg) < 1e-6 * kg
         got = load_table_text(s, tab)
         assert got[2] == "ft MSL -40F"
         assert got[3] == "     0" + cell
         assert got[-2] == "field temp across; dew 41.0 F kept"
+    assert g == 9999.5
+
+
+def test_input_edges():
+    # The documented ranges (load_table docstring): 1..40 heights, step 50..5000 m,
+    # depth 1..40000 m; the limits themselves are taken.
+    col = isa_from(0.0, 6.5, 11000.0)
+    hs = [100.0 * k for k in range(40)]
+    assert load_table(col, 2800.0, 100.0, None, None, [10.0], hs)["heights_msl_m"] == hs
+    assert load_table(col, 2800.0, 100.0, None, None, [10.0], None, 50.0, 1.0)[
+        "heights_msl_m"] == [0.0]
+    assert load_table(col, 2800.0, 100.0, None, None, [10.0], None, 5000.0, 40000.0)[
+        "heights_msl_m"] == [0.0, 5000.0, 10000.0]
+    for kw, name in ((dict(depth_m=0.99), "depth_m"), (dict(step_m=5000.1), "step_m"),
+                     (dict(heights_msl_m=[11000.1]), "z_m")):
+        with pytest.raises(ValueError) as err:
+            load_table(col, 2800.0, 100.0, **kw)
+        assert str(err.value).startswith(name)
+
+
+def test_temperature_edges():
+    # Field temperatures -60..60 degC and working envelope temperatures -90..150 degC
+    # (load_table docstring): the limits are taken, beyond them refused by name. An
+    # envelope at -90 degC is colder than any field air: it cannot lift ("-").
+    col = isa_from(0.0, 6.5, 11000.0)
+    tab = load_table(col, 2800.0, -90.0, None, None, [-60.0, 60.0], [0.0])
+    assert all(g < 0.0 for g in tab["gross_kg"][0])
+    for kw, name in ((dict(envelope_t_c=-90.1), "envelope_t_c"),
+                     (dict(envelope_t_c=150.1), "envelope_t_c"),
+                     (dict(temps_c=[60.1]), "t_c=60.1"), (dict(temps_c=[-60.1]), "t_c=-60.1")):
+        args = dict(col=col, volume_m3=2800.0, envelope_t_c=100.0)
+        args.update(kw)
+        with pytest.raises(ValueError) as err:
+            load_table(**args)
+        assert str(err.value).startswith(name)

@@ -59,10 +59,11 @@ def moist_step(t_k, p0_hpa, p1_hpa):
     """One fourth-order Runge-Kutta step along the pseudo-adiabat in ln p: the parcel
     temperature, K, at p1_hpa starting from t_k at p0_hpa."""
     h = log(p1_hpa / p0_hpa)
+    half = 0.5 * h
     ph = sqrt(p0_hpa * p1_hpa)
     k1 = _dt_dlnp(t_k, p0_hpa)
-    k2 = _dt_dlnp(t_k + 0.5 * h * k1, ph)
-    k3 = _dt_dlnp(t_k + 0.5 * h * k2, ph)
+    k2 = _dt_dlnp(t_k + half * k1, ph)
+    k3 = _dt_dlnp(t_k + half * k2, ph)
     k4 = _dt_dlnp(t_k + h * k3, p1_hpa)
     return t_k + h * (k1 + 2.0 * (k2 + k3) + k4) / 6.0
 

@@ -34,19 +34,6 @@ def report_keys():
             "tropopause_msl_m"] + stability.report_keys()
 
 
-def _collect():
-    # On a board (MicroPython): collect the garbage of building the column before
-    # report() loads its modules and makes its dict, so that they land in one piece
-    # low in the heap, not among the holes (the core report's hard heap limit on the
-    # Unix port fell from 77 to 69 KiB with this alone). Not while the collector is
-    # off (an allocation count is running) and not on CPython (no gain, and slow).
-    import sys
-    if sys.implementation.name == "micropython":
-        import gc
-        if gc.isenabled():
-            gc.collect()
-
-
 def _layer_tops(lapse, elev_m, top_m):
     # [(top_msl_m, k_per_km), ...] from a number or from [(top_agl_m or None, k_per_km), ...].
     if isinstance(lapse, (int, float)):
@@ -283,10 +270,17 @@ class Column:
         altimetry: add the keys of lapsecalc.indicated (indicated_altitude_m,
         isa_deviation_c, density_altitude_dry_m) when that module is installed; they cost
         a board about 4 KB of heap."""
-        _collect()
-        # Every module first, while the heap is not yet cut up by the parcel path: a
-        # load (or a failed one: its message is a new interned string) may need a
-        # large piece of it.
+        # On a board (MicroPython): collect the garbage of building the column, then
+        # load every module while the heap is still whole, before the parcel path cuts
+        # it up: a load (or a failed one: its message is a new interned string) needs
+        # large pieces (the core report's hard heap limit on the Unix port fell from
+        # 77 to 69 KiB with the collection alone). Not while the collector is off (an
+        # allocation count is running) and not on CPython (no gain, and slow).
+        import sys
+        if sys.implementation.name == "micropython":
+            import gc
+            if gc.isenabled():
+                gc.collect()
         from lapsecalc import stability, parcel
         try:
             from lapsecalc import hazards
@@ -321,10 +315,15 @@ class Column:
         r["lcl_p_hpa"] = lcl_p
         r["warm_layer_aloft"] = warm_layer_aloft(self)
         r["parcel_freezing_level_msl_m"] = parcel.level(self, path, 0.0, lcl_msl)
-        for name, t in (("freezing", 0.0), ("minus10", -10.0), ("minus20", -20.0)):
+        # Lists, not constant tuples: a .mpy keeps a tuple's strings as copies of its
+        # own, while these names are shared with report_keys().
+        for t, level_key, levels_key in (
+                [0.0, "freezing_level_msl_m", "freezing_levels_msl_m"],
+                [-10.0, "minus10_level_msl_m", "minus10_levels_msl_m"],
+                [-20.0, "minus20_level_msl_m", "minus20_levels_msl_m"]):
             zs = self.crossings(t)
-            r[name + "_level_msl_m"] = self.level(t, zs)
-            r[name + "_levels_msl_m"] = zs
+            r[level_key] = self.level(t, zs)
+            r[levels_key] = zs
         r["tropopause_msl_m"] = self.tropopause_m
         stability.add_to_report(self, path, r, thermal_excess_c)
         if self.dews is None:

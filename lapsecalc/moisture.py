@@ -105,10 +105,11 @@ def wet_bulb(t_c, td_c, p_hpa):
         raise ValueError("p_hpa=%s is too low for t_c=%s; allowed p_hpa above %.1f hPa"
                          % (p_hpa, t_c, 2.0 * _es_water(t_c)))
     w = _mixing_ratio_kg_kg(_es_water(td_c), p_hpa)
+    den_t = 2501.0 + 1.86 * t_c     # the part of the denominator that Tw leaves alone
 
     def balance(tw):
         ws = _mixing_ratio_kg_kg(_es_water(tw), p_hpa)
-        return ((2501.0 - 2.326 * tw) * ws - 1.006 * (t_c - tw)) / (2501.0 + 1.86 * t_c - 4.186 * tw) - w
+        return ((2501.0 - 2.326 * tw) * ws - 1.006 * (t_c - tw)) / (den_t - 4.186 * tw) - w
 
     lo, hi = td_c, t_c
     f_lo, f_hi = balance(lo), balance(hi)

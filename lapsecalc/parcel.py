@@ -48,12 +48,13 @@ def path(col, lcl_msl_m, max_step_m=MAX_STEP_M):
             i = 0 if not out else 1
             while i <= n:
                 z = b if i == n else a + (b - a) * i / n
-                p = layer_pressure(p0, t0, grad, z - z0)
+                dz = z - z0
+                p = layer_pressure(p0, t0, grad, dz)
                 if z <= lcl_msl_m or not out:
                     tp = ts_k * exp(KAPPA * log(p / ps))
                 else:
                     tp = _saturated(t_prev, p_prev, p)
-                out.append((z, p, tp - T0_K, t0 + grad * (z - z0) - T0_K))
+                out.append((z, p, tp - T0_K, t0 + grad * dz - T0_K))
                 t_prev, p_prev = tp, p
                 if len(out) > _MAX_LEVELS:
                     raise ValueError("parcel path needs over %d levels; allowed max_step_m"

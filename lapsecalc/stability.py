@@ -48,15 +48,6 @@ def classify(lapse_k_per_km, saturated_k_per_km):
     return "conditionally_unstable"
 
 
-def _band(layer, a, b, lapse):
-    # One band [a, b] inside an ELR layer, classified with the saturated rate at its middle.
-    z0, _, t0, grad, p0 = layer
-    dz = 0.5 * (a + b) - z0
-    salr = moist_lapse_k_per_km(t0 + grad * dz, layer_pressure(p0, t0, grad, dz))
-    return {"bottom_msl_m": a, "top_msl_m": b, "lapse_k_per_km": lapse,
-            "saturated_k_per_km": salr, "class": classify(lapse, salr)}
-
-
 def layers(col, max_depth_m=BAND_M):
     """Stability of every ELR layer, bottom first: a list of dicts (bottom_msl_m,
     top_msl_m, lapse_k_per_km, saturated_k_per_km at mid-layer, class). A cooling
@@ -64,13 +55,18 @@ def layers(col, max_depth_m=BAND_M):
     because the saturated rate changes with height inside it; an isothermal layer or
     an inversion is absolutely stable at any depth and stays whole."""
     out = []
-    for layer in col.layers:
-        z0, z1, _, grad, _ = layer
+    for z0, z1, t0, grad, p0 in col.layers:
         n = 1 if grad >= 0.0 else int(ceil((z1 - z0) / max_depth_m))
+        lapse = -1000.0 * grad
+        a = z0
         for i in range(n):
-            a = z0 + (z1 - z0) * i / n
             b = z1 if i == n - 1 else z0 + (z1 - z0) * (i + 1) / n
-            out.append(_band(layer, a, b, -1000.0 * grad))
+            # The band [a, b], classified with the saturated rate at its middle.
+            dz = 0.5 * (a + b) - z0
+            salr = moist_lapse_k_per_km(t0 + grad * dz, layer_pressure(p0, t0, grad, dz))
+            out.append({"bottom_msl_m": a, "top_msl_m": b, "lapse_k_per_km": lapse,
+                        "saturated_k_per_km": salr, "class": classify(lapse, salr)})
+            a = b
     return out
 
 
@@ -97,9 +93,9 @@ def lapse_measures(col):
     return out
 
 
-def _crossing(z0, d0, z1, d1):
-    # Height where a quantity linear from d0 at z0 to d1 at z1 is zero.
-    return z0 + (z1 - z0) * d0 / (d0 - d1)
+def _crossing(z0, b0, z1, b1):
+    # Height where a quantity linear from b0 at z0 to b1 at z1 is zero.
+    return z0 + (z1 - z0) * b0 / (b0 - b1)
 
 
 def _refined_crossing(col, levels, i, lcl_msl_m, b0, b1):
@@ -200,16 +196,16 @@ def ccl(col, levels):
     if col.t_c - col.td_c <= 0.0:
         return col.elev_m
 
-    def gap(z, p, te):
-        # Environment minus the mixing-ratio line's dewpoint at (z, p), K.
-        return te - _dewpoint_from_e(r * p / (EPS + r))
+    def gap(p_hpa, t_c):
+        # The environment's t_c minus the mixing-ratio line's dewpoint at p_hpa, K.
+        return t_c - _dewpoint_from_e(r * p_hpa / (EPS + r))
 
     z0, p0, _, te0 = levels[0]
-    g0 = gap(z0, p0, te0)
+    g0 = gap(p0, te0)
     for z1, p1, _, te1 in levels[1:]:
-        g1 = gap(z1, p1, te1)
+        g1 = gap(p1, te1)
         if g1 <= 0.0:
-            return _illinois(lambda z: gap(z, col.p_at(z), col.t_at(z)), z0, g0, z1, g1)
+            return _illinois(lambda z: gap(col.p_at(z), col.t_at(z)), z0, g0, z1, g1)
         z0, g0 = z1, g1
     return None
 

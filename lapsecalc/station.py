@@ -44,15 +44,14 @@ LINE_KEYS = (("t_c", 1), ("rh_pct", 0), ("td_c", 1), ("p_hpa", 1), ("qnh_hpa", 1
              ("pa_m", 0), ("da_m", 0), ("cb_agl_m", 0))
 
 
-def _fixed(x, decimals):
-    s = ("%.1f" if decimals else "%.0f") % x
-    # "-0" and "-0.0" say nothing a plain zero does not.
-    return s[1:] if s in ("-0", "-0.0") else s
-
-
 def station_line(t_c, rh_pct, p_station_hpa, elev_m):
     """One line for a serial or radio link, keys with their units, e.g.
     "t_c=27.0 rh_pct=41 td_c=12.6 p_hpa=967.4 qnh_hpa=1015.9 pa_m=389 da_m=956 cb_agl_m=1815".
     Same inputs and errors as station_values()."""
     v = station_values(t_c, rh_pct, p_station_hpa, elev_m)
-    return " ".join(k + "=" + _fixed(v[k], d) for k, d in LINE_KEYS)
+    out = []
+    for k, d in LINE_KEYS:
+        s = ("%.1f" if d else "%.0f") % v[k]
+        # "-0" and "-0.0" say nothing a plain zero does not.
+        out.append(k + "=" + (s[1:] if s in ("-0", "-0.0") else s))
+    return " ".join(out)

@@ -159,3 +159,29 @@ def test_pressures_below_the_top_are_refused():
     assert col.z_at(p_top) == pytest.approx(9000.0, abs=1e-6)
     with pytest.raises(ValueError):
         col.z_at(p_top * 0.999)
+
+
+def test_tropopause_at_least_100_m_above_the_field():
+    # The same lower edge as top_m: 100 m above the elevation.
+    col = Column(15.0, 5.0, 1000.0, 500.0, tropopause_m=600.0)
+    assert col.tropopause_m == 600.0 and col.t_at(5000.0) == col.t_at(600.0)
+    with pytest.raises(ValueError) as err:
+        Column(15.0, 5.0, 1000.0, 500.0, tropopause_m=599.0)
+    assert "tropopause_m=599.0" in str(err.value)
+
+
+def test_from_qnh_defaults_to_the_isa_lapse_rate():
+    # ISA troposphere lapse rate 6.5 K/km, tropopause 11 km (ICAO Doc 7488/3); top 16 km.
+    col = Column.from_qnh(15.0, 5.0, 1013.25, 0.0)
+    assert col.t_at(1000.0) == pytest.approx(15.0 - 6.5, abs=1e-9)
+    assert col.top_asked_m == 16000.0 and col.tropopause_m == 11000.0
+
+
+def test_z_at_above_the_top_names_the_top_pressure():
+    # A pressure lower than the column top's is refused with the top's pressure as the
+    # lower end of the range, however low it is (1 hPa is within the library's range).
+    col = Column(15.0, 5.0, 1000.0, 0.0, 6.5, top_m=3000.0)
+    for p in (1.005, 500.0):
+        with pytest.raises(ValueError) as err:
+            col.z_at(p)
+        assert "range %g.." % col.p_at(3000.0) in str(err.value)

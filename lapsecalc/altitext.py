@@ -108,28 +108,36 @@ def cold_text(s, vals):
 
 
 def altimeter_word(s, w, args):
-    """The levels or cold word (w) of session s: (keys, values, text lines or None)."""
+    """The levels or cold word (w) of session s: (keys, values, text lines or None).
+    The numbers first; a board then lets go of the Column (Session.release) before
+    the text."""
     if w == "levels":
         no_args(w, args)
-        return levels_word(s, s.column(w), s.report(w))
-    return cold_word(s, w, s.column(w), args)
+        keys, vals, warn = levels_word(s, w)
+    else:
+        keys, vals = cold_word(s, w, args)
+    s.release()
+    if w == "cold":
+        return keys, vals, cold_text(s, vals) if s.mode == "text" else None
+    if s.mode != "text":
+        vals["warnings"] = cold_warning_text(s, warn)
+        return keys + ["warnings"], vals, None
+    return keys, vals, levels_text(s, keys, vals, warn)
 
 
-def levels_word(s, col, rep):
-    """The levels word: (keys, values, text lines). Every single height of report rep
-    as [true MSL, indicated on QNH, flight level], lowest first; the warnings."""
+def levels_word(s, w):
+    """The levels word's numbers: (keys, values, cold-air warnings). Every single
+    height of the report as [true MSL, indicated on QNH, flight level], lowest first."""
     from lapsecalc.altimetry import flight_level, cold_warnings
+    col = s.column(w)
+    rep = s.report(w)
     ind = rep["indicated_altitude_m"]
     vals = {}
     keys = []
     for z, k in sorted((rep[k], k) for k in ind if ind[k] is not None):
         vals[k] = [z, ind[k], flight_level(col.p_at(z))]
         keys.append(k)
-    warn = cold_warnings(col, rep)
-    if s.mode != "text":
-        vals["warnings"] = cold_warning_text(s, warn)
-        return keys + ["warnings"], vals, None
-    return keys, vals, levels_text(s, keys, vals, warn)
+    return keys, vals, cold_warnings(col, rep)
 
 
 # Heights above the field the cold word shows when asked for none, in the display unit.
@@ -139,10 +147,11 @@ COLD_KEYS = ("isa_deviation_c", "cold_height_agl_m", "cold_correction_icao_m",
              "cold_correction_column_m")
 
 
-def cold_word(s, w, col, args):
-    """The cold word: (keys, values, text lines) of the cold-temperature correction
-    (PANS-OPS formula and the column's own) for a few heights above the field, or for
-    the one in args (cold 1200ft)."""
+def cold_word(s, w, args):
+    """The cold word: (keys, values) of the cold-temperature correction (PANS-OPS
+    formula and the column's own) for a few heights above the field, or for the one in
+    args (cold 1200ft)."""
+    col = s.column(w)
     from lapsecalc.altimetry import (cold_temperature_correction, column_cold_correction,
                                      isa_deviation_at, indicated_altitude_at, TROPOPAUSE_M)
     # Up to the tropopause and to the column top, true and as indicated (in warm air
@@ -161,7 +170,7 @@ def cold_word(s, w, col, args):
             "cold_correction_icao_m": [cold_temperature_correction(h, col.t_c, col.elev_m)
                                        for h in hs],
             "cold_correction_column_m": [column_cold_correction(col, h) for h in hs]}
-    return COLD_KEYS, vals, cold_text(s, vals) if s.mode == "text" else None
+    return COLD_KEYS, vals
 
 
 def flight_level_token(tok):

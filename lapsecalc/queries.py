@@ -30,10 +30,10 @@ def emit(s, keys, values, balloon=False, word=None, rest=True, plus=()):
         keys = list(keys) + sorted(k for k in values if k not in keys)
     notes = assumed(s.state, balloon)
     if s.mode == "kv":
-        from lapsecalc.output import kv_lines
+        from lapsecalc.machine import kv_lines
         return ["# assumed " + n for n in notes] + kv_lines(values, keys)
     if s.mode == "json":
-        from lapsecalc.output import machine
+        from lapsecalc.machine import machine
         obj = {}
         for k in keys:
             if k in values:
@@ -340,7 +340,7 @@ def kv_report(s):
     except ValueError as e:
         return ["error: " + shown(str(e), 300)]
     from lapsecalc.groups import report_keys
-    from lapsecalc.output import kv_lines
+    from lapsecalc.machine import kv_lines
     return kv_lines(rep, report_keys(rep))
 
 
@@ -348,11 +348,11 @@ def _c_show(s, w, args):
     no_args(w, args)
     st = s.state
     if s.mode == "text":
-        from lapsecalc.layout import show_text
+        from lapsecalc.showtext import show_text
         return show_text(s)
     # The values in force, defaults included and named in "defaults"; a setting with
     # no default and not set is empty (None).
-    from lapsecalc.output import kv_value, kv_lines, machine
+    from lapsecalc.machine import kv_value, kv_lines, machine
     kind, hum = st.get("hum", ("td", None))
     pk, p = st.get("press", ("qnh", None))
     lapse = st.get("lapse")

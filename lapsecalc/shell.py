@@ -35,10 +35,12 @@ PROMPT = "lc> "
 # Column between lines and lets go of it and of these once a line's numbers are
 # computed (Session.release), before the text layout loads.
 PHYSICS_MODULES = ("parcel", "stability", "hazards", "aloft", "altimetry", "indicated",
-                   "balloon", "adiabats")
+                   "balloon", "adiabats", "column", "condensation", "standard", "moisture",
+                   "constants")
 WORD_MODULES = PHYSICS_MODULES + (
-    "settings", "commands", "output", "groups", "helptext", "chart", "loadtable",
-    "balloontext", "metar", "demo", "layout", "hazardtext", "altitext", "aloftwords", "retell")
+    "settings", "commands", "output", "machine", "groups", "helptext", "chart", "loadtable",
+    "balloontext", "metar", "demo", "layout", "showtext", "hazardtext", "altitext", "aloftwords",
+    "retell")
 # The words whose report carries the altimetry keys (isa_deviation_c,
 # density_altitude_dry_m, indicated_altitude_m: Column.report(altimetry=True)).
 ALTIMETRY_WORDS = ("report", "obs", "da", "levels")

@@ -137,10 +137,10 @@ def test_board_modules_never_import_cpython_only_ones():
 INTERPRETER_LAYERS = (
     ("shell",),
     ("settings", "queries", "commands"),
-    ("altitext",),
+    ("altitext", "showtext"),
     ("layout", "chart", "metar", "helptext", "loadtable", "balloontext", "retell"),
     ("aloftwords",),
-    ("balloon", "groups", "output", "state", "typed", "hazardtext"),
+    ("balloon", "groups", "output", "machine", "state", "typed", "hazardtext"),
     ("altimetry",),  # library extras over the core: altimetry.py over indicated.py,
     ("indicated",),  # which column.report() tries under "except ImportError"
 )

@@ -1,14 +1,14 @@
 """How the interpreter says numbers (lapsecalc.output): display units, the ok line,
-errors by mode, machine numbers without float noise, kv values. Expected texts are
+errors by mode; machine numbers without float noise and kv values (lapsecalc.machine). Expected texts are
 worked out here from exact unit factors (REFERENCES.md, Units: 1 ft = 0.3048 m,
 1 inHg = 33.8639 hPa, F = C * 1.8 + 32) and the documented formats."""
 import json
 
 import pytest
 
-from lapsecalc import output
-from lapsecalc.output import (f_h, f_h1, f_t, f_dt, f_p, f_lapse, wrap, say, ack,
-                              number_text, machine, kv_value, kv_lines)
+from lapsecalc import machine as machine_forms
+from lapsecalc.output import f_h, f_h1, f_t, f_dt, f_p, f_lapse, wrap, say, ack
+from lapsecalc.machine import number_text, machine, kv_value, kv_lines
 
 
 class S:
@@ -124,7 +124,7 @@ def test_machine_numbers_by_key_family(key, x, want):
 
 def test_decimals_table_is_documented_and_ordered():
     # _k_per_km before _m and _k; _per_m3_kg before _kg: the first ending that matches.
-    ends = [e for e, _ in output.DECIMALS]
+    ends = [e for e, _ in machine_forms.DECIMALS]
     assert ends.index("_k_per_km") < ends.index("_m") and ends.index("_k_per_km") < ends.index("_k")
     assert ends.index("_per_m3_kg") < ends.index("_kg")
     assert ends.index("_kg_m3") < ends.index("_m3")

@@ -18,7 +18,7 @@ from lapsecalc.standard import density_altitude
 from lapsecalc.demo import DEMO_COLUMN, DEMO_LINES
 from lapsecalc.shell import Session, MAX_LINE, split_line, read_lines, split_ends, repl
 from lapsecalc.typed import number, nearest
-from lapsecalc.output import kv_value
+from lapsecalc.machine import kv_value
 from lapsecalc.queries import kv_report
 from lapsecalc import balloon
 
@@ -1241,7 +1241,7 @@ def test_machine_numbers_carry_no_float_noise():
     # The cases named in the issue: a zero that is -2.27374e-13, a QNH read as 1009
     # that arithmetic made 1008.9999999999992 (29.79 inHg typed, or a station pressure
     # round trip). Decimals by key family as the README states (FAMILIES above).
-    from lapsecalc.output import number_text, machine
+    from lapsecalc.machine import number_text, machine
     assert number_text("cin_j_kg", -2.27374e-13) == "0"
     assert number_text("qnh_hpa", 1008.9999999999992) == "1009"
     assert number_text("lifted_index_c", -0.004) == "0"

@@ -4,7 +4,7 @@ Everything here is an invented scenario (made-up fields, made-up weather). Keep 
 interpreter script in this one place: when the shell's words change, edit SESSION_SCRIPT.
 """
 from lapsecalc import (moisture, standard, condensation, adiabats, column, parcel, hazards,
-                       stability, units)
+                       stability, units, icing, precip, fieldrisk)
 from lapsecalc.column import Column
 
 # Modules whose public functions should each have a timed case; run.py lists any
@@ -193,14 +193,14 @@ def call_cases():
         ("stability.ccl", stability.ccl, (col, levels), {}),
         ("stability.add_to_report", stability.add_to_report,
          (col, levels, dict(col.report())), {}),
-        ("hazards.icing_band", hazards.icing_band,
+        ("icing.icing_band", icing.icing_band,
          (col, levels, lcl, 7300.0, parcel.level(col, levels, 0.0, lcl)), {}),
-        ("hazards.warm_layer", hazards.warm_layer, (col,), {}),
-        ("hazards.precip_type", hazards.precip_type, (col,), {}),
-        ("hazards.wet_bulb_zero", hazards.wet_bulb_zero, (col,), {}),
-        ("hazards.carb_icing", hazards.carb_icing, (BENCH_T_C, BENCH_TD_C), {}),
+        ("precip.warm_layer", precip.warm_layer, (col,), {}),
+        ("precip.precip_type", precip.precip_type, (col,), {}),
+        ("precip.wet_bulb_zero", precip.wet_bulb_zero, (col,), {}),
+        ("fieldrisk.carb_icing", fieldrisk.carb_icing, (BENCH_T_C, BENCH_TD_C), {}),
         ("hazards.add_to_report", hazards.add_to_report, (col, levels, dict(col.report())), {}),
-        ("hazards.frost_point", hazards.frost_point, (-12.0,), {}),
+        ("fieldrisk.frost_point", fieldrisk.frost_point, (-12.0,), {}),
     ]
     # Unit conversions: every one, each on a typical number.
     for name in sorted(dir(units)):

@@ -8,10 +8,11 @@ from hypothesis import assume, given, strategies as st
 
 import refs
 from lapsecalc import Column, cloud_base, dewpoint, wet_bulb
-from lapsecalc import hazards
-from lapsecalc.hazards import carb_icing, fog_risk, precip_type, warm_layer, wet_bulb_zero
+from lapsecalc import hazards, stability
+from lapsecalc.fieldrisk import carb_icing, fog_risk
+from lapsecalc.precip import precip_type, warm_layer, wet_bulb_zero
 from lapsecalc.moisture import _dewpoint_from_e
-from lapsecalc.hazards import frost_point, relative_humidity_ice
+from lapsecalc.fieldrisk import frost_point, relative_humidity_ice
 
 G0 = 9.80665   # ICAO Doc 7488/3
 
@@ -487,7 +488,7 @@ def test_capped_deck_under_a_low_inversion():
 
 def test_cautions_keep_the_general_ones_last():
     r = Column(-3.0, -4.0, 1000.0, 100.0, [(500.0, -16.0), (None, 6.5)], 10000.0).report()
-    assert list(r["cautions"][-len(hazards.CAUTIONS):]) == list(hazards.CAUTIONS)
+    assert list(r["cautions"][-len(stability.CAUTIONS):]) == list(stability.CAUTIONS)
     text = " ".join(r["cautions"]).lower()
     assert "not an official forecast" in text and "flight manual" in text
     for c in r["cautions"]:

@@ -15,9 +15,10 @@ FULL_MANIFEST = os.path.join(PKG, "package-full.json")
 # Modules that need CPython (argparse, files): never installed on a board.
 CPYTHON_ONLY = ("__main__", "cli", "page")
 # Modules written in the MicroPython subset (tests/test_subset.py checks them) that the
-# board manifests do not list yet: the board session heap (bench/mpy_budget.py) has no
-# room for them. The core's Column.report() uses hazards when it is installed.
-BOARD_LATER = ("hazards", "hazardtext")
+# board manifests do not list yet (when the board session heap, bench/mpy_budget.py,
+# has no room for them): none now. The core's Column.report() uses hazards when it is
+# installed.
+BOARD_LATER = ()
 
 
 def hide_later():

@@ -237,30 +237,37 @@ def check_hazards():
     if not has("hazards"):
         print("# hazards.py absent: skipped")
         return
-    from lapsecalc import hazards
+    from lapsecalc import fieldrisk, precip
     # Frost point: dewpoint -10 degC -> -8.90 degC (REFERENCES.md "Frost point",
     # Hyland-Wexler via ASHRAE, computed); RH over ice 100 % there.
-    fp = hazards.frost_point(-10.0)
+    fp = fieldrisk.frost_point(-10.0)
     assert near(fp, -8.90, 0.1)
-    assert near(hazards.relative_humidity_ice(fp, -10.0), 100.0, 1e-3)
-    put("hazards.frost", (fp, hazards.frost_point(-45.0), hazards.frost_point(0.0)))
-    put("hazards.rh_ice", (hazards.relative_humidity_ice(-20.0, -20.0),
-                           hazards.relative_humidity_ice(-5.0, -12.0)))
+    assert near(fieldrisk.relative_humidity_ice(fp, -10.0), 100.0, 1e-3)
+    put("hazards.frost", (fp, fieldrisk.frost_point(-45.0), fieldrisk.frost_point(0.0)))
+    put("hazards.rh_ice", (fieldrisk.relative_humidity_ice(-20.0, -20.0),
+                           fieldrisk.relative_humidity_ice(-5.0, -12.0)))
     # Invented warm nose over a shallow cold layer: freezing rain (Bourgouin's rule).
     fz = Column(-3.0, -4.0, 1000.0, 100.0, [(500.0, -16.0), (None, 6.5)], 10000.0)
-    assert hazards.precip_type(fz) == "glaze"
-    put("hazards.warm", hazards.warm_layer(fz))
+    assert precip.precip_type(fz) == "glaze"
+    put("hazards.warm", precip.warm_layer(fz))
     put("hazards.report_fz", fz.report())
     pel = Column(-12.0, -13.0, 1000.0, 0.0, [(2500.0, -6.0), (None, 6.5)], 10000.0)
-    put("hazards.pellets", hazards.precip_type(pel))
+    put("hazards.pellets", precip.precip_type(pel))
     dry = Column(8.0, -6.0, 1000.0, 200.0, 6.5, 10000.0)
-    put("hazards.wbz", hazards.wet_bulb_zero(dry))
+    put("hazards.wbz", precip.wet_bulb_zero(dry))
     for t, td in ((12.0, 10.0), (25.0, 15.0), (33.0, 20.0), (37.0, 14.0), (40.0, 30.0)):
-        put("hazards.carb_%d_%d" % (t, td), hazards.carb_icing(t, td))
-    put("hazards.fog", (hazards.fog_risk(10.0, 7.0), hazards.fog_risk(10.0, 6.0)))
+        put("hazards.carb_%d_%d" % (t, td), fieldrisk.carb_icing(t, td))
+    put("hazards.fog", (fieldrisk.fog_risk(10.0, 7.0), fieldrisk.fog_risk(10.0, 6.0)))
     capped = Column(10.0, 9.0, 1000.0, 0.0, [(600.0, 9.77), (900.0, -5.0), (None, 6.5)])
     put("hazards.capped", capped.report(1.0))
-    refused("hazards.frost_warm", hazards.frost_point, 2.0)
+    if has("aloft"):
+        # Invented dewpoints aloft: the icing band from the cloud layers.
+        moist = Column(8.0, 6.0, 1000.0, 100.0, 6.5, 12000.0,
+                       aloft=[(1500.0, 2.0, 1.0), (2500.0, -5.0, -6.5), (4000.0, -15.0, -30.0)])
+        rep = moist.report()
+        assert rep["icing_band_basis"] == "layers"
+        put("hazards.report_layers", rep)
+    refused("hazards.frost_warm", fieldrisk.frost_point, 2.0)
 
 
 # Invented points aloft over an invented field: by height and by pressure, some with

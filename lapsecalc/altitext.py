@@ -23,7 +23,7 @@ def _label(k):
         try:
             from lapsecalc.hazardtext import LABELS as HAZARD_LABELS
             lk = HAZARD_LABELS.get(k)
-        except ImportError:  # a board has no hazards yet
+        except ImportError:  # a board without the hazard modules
             pass
     return (lk or (k,))[0]
 

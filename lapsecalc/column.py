@@ -263,8 +263,8 @@ class Column:
     def report(self, thermal_excess_c=0.0, altimetry=True):
         """Every result for this column as a dict of plain values with units in the keys;
         None where a level does not exist in the column. The hazard keys and a caution
-        per hazard (lapsecalc.hazards) come when that module is installed (on CPython;
-        not yet on a board), the general cautions always. levels_above_top
+        per hazard (lapsecalc.hazards) come when that module is installed (always on
+        CPython; a board with package-full.json), the general cautions always. levels_above_top
         names the keys whose None means "above the column top" and warnings says so in
         words, with why the column ends below the top asked for (stability.add_warnings).
         altimetry: add the keys of lapsecalc.indicated (indicated_altitude_m,
@@ -284,7 +284,7 @@ class Column:
         from lapsecalc import stability, parcel
         try:
             from lapsecalc import hazards
-        except (ImportError, AttributeError):  # a board: the hazards module is not there
+        except (ImportError, AttributeError):  # a core-only board: no hazard modules
             hazards = None
         altimetry_keys = None
         if altimetry:

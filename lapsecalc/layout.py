@@ -150,7 +150,7 @@ def text_lines(s, key, v, label_kind=None, rep=None):
     if lk is None and key != "cautions":
         try:
             from lapsecalc import hazardtext
-        except (ImportError, AttributeError):  # a board has no hazards yet
+        except (ImportError, AttributeError):  # a board without the hazard modules
             hazardtext = None
         if hazardtext is not None:
             if v is None and key in hazardtext.QUIET_WHEN_NONE:

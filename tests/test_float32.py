@@ -168,6 +168,37 @@ def test_column_reports(s):
         assert e <= max(CAPE_REL * cape, CAPE_J_KG), (args, got["cape_j_kg"], cape)
 
 
+# The hazard keys (lapsecalc.hazards and its modules, loaded by report()) in float32:
+# heights to FREEZING_LEVEL_M, temperatures to 0.01 K, the classes equal.
+HAZARD_HEIGHTS = ("icing_band_bottom_msl_m", "icing_band_top_msl_m", "warm_layer_bottom_msl_m",
+                  "warm_layer_top_msl_m", "cold_layer_below_depth_m", "wet_bulb_zero_msl_m",
+                  "thermal_cloud_base_msl_m", "thermal_usable_top_msl_m",
+                  "capped_cloud_top_msl_m")
+HAZARD_CLASSES = ("icing_band_basis", "precip_type", "fog_risk", "ice_fog_risk", "carb_icing",
+                  "thermal_kind")
+
+
+def test_hazard_keys(s):
+    import lapsecalc_f32.column as c
+    # Invented: dewpoints aloft (a moist layer at 0..-10 degC) for the cloud-layer band.
+    aloft = ((8.0, 6.0, 1000.0, 100.0, 6.5, 12000.0,
+              [(1500.0, 2.0, 1.0), (2500.0, -5.0, -6.5), (4000.0, -15.0, -30.0)]),)
+    cases = [(args, d_column.Column(*args).report(2.0), c.Column(*args).report(2.0))
+             for args in COLUMNS + list(aloft)]
+    for args, want, got in cases:
+        for key in HAZARD_CLASSES:
+            assert got[key] == want[key], (key, args)
+        for key in HAZARD_HEIGHTS:
+            assert (got[key] is None) == (want[key] is None), (key, args)
+            if want[key] is not None:
+                assert _err(key, got[key], want[key]) < FREEZING_LEVEL_M, (key, args)
+        for key in ("warm_layer_max_t_c", "frost_point_c", "rh_ice_pct"):
+            if want[key] is not None:
+                assert _err(key, got[key], want[key]) < 0.01, (key, args)
+    assert any(w["icing_band_basis"] == "layers" for _, w, _ in cases)
+    assert any(w["warm_layer_bottom_msl_m"] is not None for _, w, _ in cases)
+
+
 def test_altimetry(s):
     # Indicated altitude, its inverse and the report's indicated heights to a metre
     # (INDICATED_M); the cold-temperature correction to a decimetre.

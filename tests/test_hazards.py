@@ -71,6 +71,7 @@ def test_report_frost_fog_and_ice_fog():
     assert r["frost_point_c"] == pytest.approx(frost_point(-31.0))
     assert r["rh_ice_pct"] > 100.0 and r["ice_fog_risk"] is True
     assert r["fog_risk"] is True      # spread 1 K <= 3 K (common practice)
+    assert "Spread 1.0 K at the field: fog or low stratus likely." in r["cautions"]
     assert any("saturated over ice" in c for c in r["cautions"])
     warm = Column(20.0, 10.0, 1000.0, 0.0).report()
     assert warm["frost_point_c"] is None and warm["rh_ice_pct"] is None
@@ -484,6 +485,65 @@ def test_capped_deck_under_a_low_inversion():
     # The same without the inversion: cumulus, no cap.
     r = Column(10.0, 9.0, 1000.0, 0.0, [(600.0, 9.77), (900.0, 6.0), (None, 6.5)]).report(1.0)
     assert r["thermal_kind"] == "cumulus" and r["capped_cloud_top_msl_m"] is None
+
+
+# Invented columns for the capped-deck rule (thermals.capped_top): the heated cloud base
+# (cloud_base(t + excess, td, p), Romps) in the ELR layer under an inversion or
+# isothermal layer, or in that layer itself; the unheated parcel not rising through it.
+def _kind(t, td, layers, top, excess):
+    r = Column(t, td, 1000.0, 0.0, layers, top).report(excess)
+    return r["thermal_kind"], r["capped_cloud_top_msl_m"], r
+
+
+def test_capped_deck_variants():
+    # Base (about 834 m) inside an isothermal layer 300-1500 m: the deck is capped at its
+    # own base (no room above it under the inversion).
+    kind, cap, r = _kind(20.0, 19.5, [(300.0, 9.77), (1500.0, 0.0), (None, 4.0)], 8000.0, 6.0)
+    want = cloud_base(26.0, 19.5, 1000.0)[0]
+    assert 300.0 < want < 1500.0 and kind == "capped" and cap == pytest.approx(want)
+    assert r["el_msl_m"] < 1500.0
+    # Base in the mixed layer right under an isothermal layer: capped at its base.
+    kind, cap, _ = _kind(10.0, 9.0, [(600.0, 9.77), (3000.0, 0.0), (None, 6.5)], 16000.0, 1.0)
+    assert kind == "capped" and cap == pytest.approx(600.0)
+    # The inversion is the column's last layer: still a cap.
+    kind, cap, _ = _kind(10.0, 9.0, [(600.0, 9.77), (None, -5.0)], 3000.0, 1.0)
+    assert kind == "capped" and cap == pytest.approx(600.0)
+    # Base in the second layer, the parcel buoyant (an LFC) but its EL inside the
+    # inversion above (1500-2000 m): capped at 1500 m.
+    kind, cap, r = _kind(22.0, 19.0, [(200.0, 8.0), (1500.0, 9.77), (2000.0, -20.0), (None, 6.5)],
+                         8000.0, 1.0)
+    assert r["lfc_msl_m"] is not None and 1500.0 < r["el_msl_m"] < 2000.0
+    assert kind == "capped" and cap == pytest.approx(1500.0)
+    # A cooling layer above the base (no inversion): cumulus, even where the parcel's EL
+    # is low; a single steep layer: cumulus.
+    kind, cap, r = _kind(15.0, 13.0, [(300.0, 12.0), (None, 4.0)], 8000.0, 1.0)
+    assert kind == "cumulus" and cap is None and r["el_msl_m"] < 8000.0
+    kind, cap, _ = _kind(25.0, 20.0, 10.0, 8000.0, 1.0)
+    assert kind == "cumulus" and cap is None
+
+
+def test_dry_neutral_mixed_layer_is_stirred_to_its_top():
+    # The lowest layer within 0.1 K/km of the dry rate (9.7676 K/km, g/cp; the neutral
+    # band of stability.classify): a mixed layer even with no excess, so the deck under
+    # the inversion above it is capped there. At 9.5 K/km (stable for dry thermals) no
+    # thermal rises and it says from which surface temperature they would.
+    for elev, p in ((0.0, 1000.0), (300.0, 965.0)):
+        r = Column(10.0, 9.0, p, elev, [(600.0, 9.7), (900.0, -5.0), (None, 6.5)]).report(0.0)
+        assert r["thermal_top_msl_m"] == elev
+        assert r["thermal_kind"] == "capped" and r["capped_cloud_top_msl_m"] == elev + 600.0
+        assert r["thermal_usable_top_msl_m"] == r["thermal_cloud_base_msl_m"]
+        assert r["dry_thermals_from_t_c"] is None
+    r = Column(10.0, 9.0, 1000.0, 0.0, [(600.0, 9.5), (900.0, -5.0), (None, 6.5)]).report(0.0)
+    assert r["thermal_kind"] == "none" and r["capped_cloud_top_msl_m"] is None
+    assert r["thermal_usable_top_msl_m"] is None
+    assert r["dry_thermals_from_t_c"] == r["trigger_t_c"] > 10.0
+
+
+def test_thermal_cloud_base_caps_the_heated_surface_at_60_c():
+    # 57 degC plus 5 K: the heated parcel is taken at 60 degC, the warmest the library
+    # handles (its input range), never refused.
+    r = Column(57.0, 20.0, 1000.0, 0.0, 9.0, 12000.0).report(5.0)
+    assert r["thermal_cloud_base_msl_m"] == pytest.approx(cloud_base(60.0, 20.0, 1000.0)[0])
 
 
 def test_cautions_keep_the_general_ones_last():

@@ -292,7 +292,11 @@ class Column:
                 from lapsecalc.indicated import add_to_report as altimetry_keys
             except ImportError:
                 pass
-        r = dict.fromkeys(report_keys())
+        keys = report_keys()
+        if hazards is not None:
+            keys += hazards.report_keys()
+        r = dict.fromkeys(keys)
+        keys = None
         lcl_agl, lcl_t, lcl_p = self.cloud_base()
         lcl_msl = self.elev_m + lcl_agl
         path = parcel.path(self, lcl_msl)

@@ -11,6 +11,18 @@ from lapsecalc.stability import CAUTIONS
 PARTS = ("thermals", "icing", "precip", "fieldrisk")
 
 
+def report_keys():
+    """The keys add_to_report adds to those of column.report_keys(), in its order (a
+    list made afresh, so that report() makes its dict with room for them at the start:
+    see column.report_keys)."""
+    return ["thermal_cloud_base_msl_m", "thermal_usable_top_msl_m", "capped_cloud_top_msl_m",
+            "dry_thermals_from_t_c", "icing_layers_msl_m", "icing_band_bottom_msl_m",
+            "icing_band_top_msl_m", "icing_band_basis", "warm_layer_bottom_msl_m",
+            "warm_layer_top_msl_m", "warm_layer_max_t_c", "cold_layer_below_depth_m",
+            "precip_type", "wet_bulb_zero_msl_m", "frost_point_c", "rh_ice_pct", "fog_risk",
+            "ice_fog_risk", "carb_icing"]
+
+
 def _h(z_m):
     # A height for a caution sentence: metres and feet.
     return "%d m (%d ft)" % (round(z_m), round(z_m / 0.3048))

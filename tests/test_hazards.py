@@ -546,6 +546,27 @@ def test_thermal_cloud_base_caps_the_heated_surface_at_60_c():
     assert r["thermal_cloud_base_msl_m"] == pytest.approx(cloud_base(60.0, 20.0, 1000.0)[0])
 
 
+def test_hazard_keys_are_made_with_the_report():
+    # report() makes its dict with room for the hazard keys at the start (a board's
+    # heap): every key the hazard modules set is in hazards.report_keys(), once, right
+    # after the core's (column.report_keys()), in the order they are set.
+    from lapsecalc.column import report_keys
+    keys, more = report_keys(), hazards.report_keys()
+    assert len(set(more)) == len(more) and not set(keys) & set(more)
+    for args in ((-3.0, -4.0, 1000.0, 100.0, [(500.0, -16.0), (None, 6.5)], 10000.0),
+                 (8.0, 6.0, 1000.0, 100.0, 6.5, 12000.0, MOIST_POINTS)):
+        r = Column(*args).report(1.0, altimetry=False)
+        assert list(r) == keys + more
+        bare = dict.fromkeys(keys)
+        col = Column(*args)
+        full = col.report(1.0, altimetry=False)
+        for k in keys:
+            bare[k] = full[k]
+        from lapsecalc import parcel
+        hazards.add_to_report(col, parcel.path(col, full["cloud_base_msl_m"]), bare)
+        assert list(bare) == keys + more and bare == full
+
+
 def test_cautions_keep_the_general_ones_last():
     r = Column(-3.0, -4.0, 1000.0, 100.0, [(500.0, -16.0), (None, 6.5)], 10000.0).report()
     assert list(r["cautions"][-len(stability.CAUTIONS):]) == list(stability.CAUTIONS)

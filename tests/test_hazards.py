@@ -351,6 +351,37 @@ def test_band_top_unknown_above_the_highest_dewpoint():
     assert r["icing_band_top_msl_m"] is None and r["icing_band_basis"] == "layers"
 
 
+def test_a_thin_cloud_layer_into_the_icing_range_counts():
+    # Invented: the air 8 degC at 100 m, 5 K/km to -1.5 degC at 2000 m (0 degC at
+    # 1700 m by hand); the spread (linear between the points) falls to 3 K at 1690 m
+    # and rises past it at 1700.5 m: a cloud layer reaching 0.5 m into the icing range.
+    # Conservative: that half metre is a band (the top unknown: no dewpoint above 2000 m).
+    pts = [(1695.0, 0.025, 0.025 - 2.978), (2000.0, -1.5, -5.698)]
+    r = Column(8.0, -2.0, 1000.0, 100.0, 6.5, 16000.0, aloft=pts).report()
+    (a, b), = r["cloud_layers_msl_m"]
+    assert a == pytest.approx(1690.0, abs=0.01) and b == pytest.approx(1700.5, abs=0.01)
+    assert r["icing_layers_msl_m"] == [pytest.approx([1700.0, 1700.5], abs=0.01)]
+    assert r["icing_band_bottom_msl_m"] == pytest.approx(1700.0, abs=0.01)
+    assert r["icing_band_top_msl_m"] is None and r["icing_band_basis"] == "layers"
+
+
+def test_icing_band_function_matches_the_report():
+    # icing.icing_band (the public function) gives the report's band.
+    from lapsecalc import icing, parcel
+    for args in ((5.0, 4.0, 1013.25, 0.0, 6.5, 16000.0),
+                 (32.0, 22.0, 1000.0, 100.0, 7.5, 14000.0),
+                 (2.0, -10.0, 1000.0, 0.0, 6.5, 16000.0)):
+        col = Column(*args)
+        r = col.report()
+        lcl = r["cloud_base_msl_m"]
+        top = None if r["lfc_msl_m"] is None else (col.top_m if r["el_above_top"] else
+                                                    r["el_msl_m"])
+        band = icing.icing_band(col, parcel.path(col, lcl), lcl, top,
+                                r["parcel_freezing_level_msl_m"])
+        assert band == (r["icing_band_bottom_msl_m"], r["icing_band_top_msl_m"],
+                        r["icing_band_basis"])
+
+
 def test_band_from_layers_keeps_the_convective_cloud():
     # A hot moist field with dewpoints aloft: the cumulus (an LFC) widens the band
     # (conservative): it reaches at least the convective band's top.

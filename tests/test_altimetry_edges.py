@@ -1,5 +1,7 @@
 """Altimetry at its edges: where "above the field" starts for the cold-air warnings,
 and the half-metre allowance at the ends of the column for indicated readings."""
+import math
+
 import pytest
 
 from lapsecalc import Column
@@ -63,3 +65,86 @@ def test_flight_levels_at_both_ends_of_an_isa_column(fl):
     assert abs(alt.z_at_flight_level(col, fl) - fl * 30.48) < 1e-6
     with pytest.raises(ValueError, match="outside the column; allowed FL0..FL"):
         alt.z_at_flight_level(col, fl + 0.01)
+
+
+G0, RD = 9.80665, 287.05287           # ICAO Doc 7488/3
+P11, P20 = 226.3206, 54.74887         # hPa at 11 and 20 km, from the layer equations
+
+
+def isa_pa_m(p):
+    # Pressure altitude, m, written here from the ICAO Doc 7488/3 layer equations:
+    # 6.5 K/km to 11 km, isothermal 216.65 K to 20 km, then warming 1 K/km.
+    if p >= P11:
+        return 288.15 / 0.0065 * (1.0 - (p / 1013.25) ** (RD * 0.0065 / G0))
+    if p >= P20:
+        return 11000.0 + RD * 216.65 / G0 * math.log(P11 / p)
+    return 20000.0 + 216.65 / 0.001 * ((p / P20) ** (-RD * 0.001 / G0) - 1.0)
+
+
+def test_isa_pa_reproduces_the_reference_table():
+    # REFERENCES.md "Pressure levels": 15000 m 120.445 hPa, 20000 m 54.749 hPa; the ISA
+    # table: 32000 m 8.68 hPa, 11000 m 226.32 hPa.
+    for h, p, tol in ((15000.0, 120.445, 0.5), (20000.0, 54.749, 0.5), (11000.0, 226.32, 1.0),
+                      (32000.0, 8.68, 25.0)):
+        assert abs(isa_pa_m(p) - h) < tol
+
+
+def hydrostatic_p(col, z_to, dz=2.0):
+    # dp/dz = -g p / (R T), T from t_at, midpoint steps of about 2 m (dry column).
+    n = max(1, int(math.ceil((z_to - col.elev_m) / dz)))
+    h = (z_to - col.elev_m) / n
+    z, p = col.elev_m, col.p_hpa
+    for _ in range(n):
+        p *= math.exp(-G0 * h / (RD * (col.t_at(z + 0.5 * h) + 273.15)))
+        z += h
+    return p
+
+
+def test_indicated_above_the_tropopause_against_integration():
+    # A dry column 12 K colder than ISA up to 9 km, isothermal to 16 km, then warming
+    # 2 K/km: the altimeter reads PA(p) - PA(QNH) (REFERENCES.md "Altimetry"), with the
+    # pressure integrated here in 2 m steps and PA from the layer equations above.
+    col = Column.from_qnh(3.0, -60.0, 1009.0, 200.0, [(8800.0, 6.5), (15800.0, 0.0),
+                                                       (None, -2.0)], 30000.0)
+    pa_qnh = isa_pa_m(1009.0)
+    z = 200.0
+    for z in (5000.0, 10500.0, 12000.0, 18000.0, 21000.0, 26000.0, 30000.0):
+        want = isa_pa_m(hydrostatic_p(col, z)) - pa_qnh
+        assert abs(alt.indicated_altitude_at(col, z) - want) < 0.5, z
+    # Beyond the ISA table (under 8.68 hPa) there is no reading: None in the report.
+    cold = Column(0.0, -90.0, 1013.25, 0.0, [(11000.0, 6.5), (None, 0.0)], 32000.0)
+    with pytest.raises(ValueError):
+        alt.indicated_altitude_at(cold, 32000.0)
+    r = {"top_msl_m": 32000.0, "low_msl_m": 100.0}
+    alt.add_to_report(cold, r)
+    assert r["indicated_altitude_m"]["top_msl_m"] is None
+    assert abs(r["indicated_altitude_m"]["low_msl_m"] - alt.indicated_altitude_at(cold, 100.0)) \
+        < 1e-9
+
+
+def test_isa_deviation_and_dry_density_altitude_to_the_millimetre():
+    # The field's ISA deviation is its temperature minus the ISA temperature at its
+    # pressure altitude, and the dry density altitude is the ISA height of p / (R T)
+    # (ICAO Doc 7488/3; REFERENCES.md "Density altitude": rho0 = p0 / (R T0)); written
+    # here in closed form for the troposphere.
+    for t, td, p, elev in ((30.0, 10.0, 850.0, 1400.0), (-20.0, -30.0, 1030.0, 0.0),
+                           (12.0, 11.0, 700.0, 3000.0)):
+        col = Column(t, td, p, elev, 6.5, elev + 3000.0)
+        r = col.report()
+        assert abs(r["isa_deviation_c"] - (t - (15.0 - 0.0065 * isa_pa_m(p)))) < 1e-6
+        rho, rho0 = 100.0 * p / (RD * (t + 273.15)), 101325.0 / (RD * 288.15)
+        da = 288.15 / 0.0065 * (1.0 - (rho / rho0) ** (1.0 / (G0 / (RD * 0.0065) - 1.0)))
+        assert abs(r["density_altitude_dry_m"] - da) < 0.001
+
+
+def test_column_cold_correction_over_the_whole_column():
+    # 0..(top - elevation) m above the field (altimetry.column_cold_correction): at the
+    # field nothing to correct (the altimeter reads the elevation on QNH), at the top
+    # the reading there less the top; beyond either end refused by name.
+    col = Column.from_qnh(-15.0, -20.0, 1020.0, 700.0, 6.5, 5000.0)
+    assert abs(alt.column_cold_correction(col, 0.0)) < 0.01
+    top = alt.column_cold_correction(col, 4300.0)
+    assert abs(alt.indicated_altitude_at(col, 5000.0 - top) - 5000.0) < 0.01
+    for h in (-0.01, 4300.01):
+        with pytest.raises(ValueError, match="height_above_field_m="):
+            alt.column_cold_correction(col, h)

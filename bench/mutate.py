@@ -75,7 +75,7 @@ DEFAULT_TESTS = {
     "precip": ["test_hazards.py", "test_report_keys.py", "test_float32.py"],
     "fieldrisk": ["test_hazards.py", "test_report_keys.py", "test_shell.py"],
     "loadtable": ["test_loadtable.py", "test_balloon.py", "test_shell_values.py"],
-    "aloft": ["test_aloft.py", "test_report_keys.py", "test_column.py"],
+    "aloft": ["test_aloft_edges.py", "test_aloft.py", "test_report_keys.py", "test_column.py"],
     "aloftwords": ["test_aloft.py", "test_shell_values.py", "test_shell.py"],
     "balloontext": ["test_shell_values.py", "test_shell.py"],
 }

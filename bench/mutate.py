@@ -68,7 +68,7 @@ DEFAULT_TESTS = {
                   "test_float32.py"],
     "altimetry": ["test_altimetry_edges.py", "test_altimetry.py", "test_shell_altimetry.py",
                   "test_shell_values.py", "test_column.py"],
-    "altitext": ["test_shell_altimetry.py", "test_shell_values.py", "test_shell.py"],
+    "altitext": ["test_shell_altimetry.py", "test_shell_values.py"],
     "hazards": ["test_hazards.py", "test_report_keys.py", "test_shell.py"],
     "thermals": ["test_hazards.py", "test_report_keys.py", "test_stability.py"],
     "icing": ["test_hazards.py", "test_report_keys.py", "test_column_edges.py", "test_chart.py"],
@@ -76,7 +76,12 @@ DEFAULT_TESTS = {
     "fieldrisk": ["test_hazards.py", "test_report_keys.py", "test_shell.py"],
     "loadtable": ["test_loadtable.py", "test_balloon.py", "test_shell_values.py"],
     "aloft": ["test_aloft_edges.py", "test_aloft.py", "test_report_keys.py", "test_column.py"],
-    "aloftwords": ["test_aloft.py", "test_shell_values.py", "test_shell.py"],
+    "aloftwords": ["test_aloft_words.py",
+                   "test_shell.py::test_aloft_points_merge_replace_and_build_the_column",
+                   "test_shell.py::test_aloft_and_trop_refusals_change_nothing",
+                   "test_shell.py::test_trop_sets_and_turns_off_the_isothermal_part",
+                   "test_shell.py::test_isa_temperatures_as_points_give_the_isa_pressures",
+                   "test_chart.py::test_points_aloft_and_tropopause_are_marked"],
     "balloontext": ["test_shell_values.py", "test_shell.py"],
 }
 COPY = ("lapsecalc", "tests", "bench", "README.md", "DEVELOPERS.md", "pyproject.toml")

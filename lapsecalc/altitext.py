@@ -77,13 +77,19 @@ def altimeter_lines(s, rep):
     col = s.column()
     out = []
     h = _REPORT_COLD[s.disp["h"]]
-    if rep.get("isa_deviation_c", 0.0) < 0.0 and col.elev_m + h <= min(col.top_m, 11000.0):
-        from lapsecalc.altimetry import cold_temperature_correction, column_cold_correction
-        out.append("%-13s%+7d %s at %d %s AGL" % (
-            "cold corr", _h_number(s, cold_temperature_correction(h, col.t_c, col.elev_m)),
-            s.disp["h"], _h_number(s, h), s.disp["h"]))
-        out.append("%-13s%+7d %s (its own ELR)" % (
-            "  column", _h_number(s, column_cold_correction(col, h)), s.disp["h"]))
+    if rep.get("isa_deviation_c", 0.0) < 0.0:
+        from lapsecalc.altimetry import (cold_temperature_correction, column_cold_correction,
+                                         indicated_altitude_at)
+        # Only when the height fits under the column top, true and as indicated (the
+        # column's correction reads the altimeter there), computed as column_cold_correction
+        # checks it (elevation + h may round past the top); the field is under 9 km, so
+        # the height is always inside the ISA troposphere the PANS-OPS formula needs.
+        if h <= min(col.top_m, indicated_altitude_at(col, col.top_m)) - col.elev_m:
+            out.append("%-13s%+7d %s at %d %s AGL" % (
+                "cold corr", _h_number(s, cold_temperature_correction(h, col.t_c, col.elev_m)),
+                s.disp["h"], _h_number(s, h), s.disp["h"]))
+            out.append("%-13s%+7d %s (its own ELR)" % (
+                "  column", _h_number(s, column_cold_correction(col, h)), s.disp["h"]))
     if "indicated_altitude_m" in rep:
         from lapsecalc.altimetry import cold_warnings
         out.extend(cold_warning_lines(s, cold_warnings(col, rep)))

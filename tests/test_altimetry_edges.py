@@ -6,6 +6,7 @@ import pytest
 
 from lapsecalc import Column
 from lapsecalc import altimetry as alt
+from test_altimetry import hydrostatic_p
 
 
 def test_cold_warnings_start_one_metre_above_the_field():
@@ -89,27 +90,16 @@ def test_isa_pa_reproduces_the_reference_table():
         assert abs(isa_pa_m(p) - h) < tol
 
 
-def hydrostatic_p(col, z_to, dz=2.0):
-    # dp/dz = -g p / (R T), T from t_at, midpoint steps of about 2 m (dry column).
-    n = max(1, int(math.ceil((z_to - col.elev_m) / dz)))
-    h = (z_to - col.elev_m) / n
-    z, p = col.elev_m, col.p_hpa
-    for _ in range(n):
-        p *= math.exp(-G0 * h / (RD * (col.t_at(z + 0.5 * h) + 273.15)))
-        z += h
-    return p
-
-
 def test_indicated_above_the_tropopause_against_integration():
     # A dry column 12 K colder than ISA up to 9 km, isothermal to 16 km, then warming
     # 2 K/km: the altimeter reads PA(p) - PA(QNH) (REFERENCES.md "Altimetry"), with the
-    # pressure integrated here in 2 m steps and PA from the layer equations above.
+    # pressure integrated in 2 m steps (test_altimetry.hydrostatic_p) and PA from the layer equations above.
     col = Column.from_qnh(3.0, -60.0, 1009.0, 200.0, [(8800.0, 6.5), (15800.0, 0.0),
                                                        (None, -2.0)], 30000.0)
     pa_qnh = isa_pa_m(1009.0)
     z = 200.0
     for z in (5000.0, 10500.0, 12000.0, 18000.0, 21000.0, 26000.0, 30000.0):
-        want = isa_pa_m(hydrostatic_p(col, z)) - pa_qnh
+        want = isa_pa_m(hydrostatic_p(col, z, 2.0)) - pa_qnh
         assert abs(alt.indicated_altitude_at(col, z) - want) < 0.5, z
     # Beyond the ISA table (under 8.68 hPa) there is no reading: None in the report.
     cold = Column(0.0, -90.0, 1013.25, 0.0, [(11000.0, 6.5), (None, 0.0)], 32000.0)

@@ -88,8 +88,10 @@ WORD_FACTOR = 1.5
 # session (a) 166.1 -> 195.8 KiB (+29.7: the VM counts every module a line loads),
 # (b) 147 -> 151 KiB (+4: a real collector sees them dropped one at a time); ceilings
 # session (a) 169 -> 199 KiB, (b) 152 -> 156 KiB.
-CEILINGS = {"board_session_heap_bytes": 199 * KIB, "board_report_heap_bytes": 93 * KIB,
-            "unix_session_kib": 156, "unix_report_kib": 61}
+# Then the balloon and show words left the resident queries module for modules of
+# their own (balloonwords, showword): (a) 195.8 -> 191.3 KiB, (b) 151 -> 145 KiB.
+CEILINGS = {"board_session_heap_bytes": 196 * KIB, "board_report_heap_bytes": 93 * KIB,
+            "unix_session_kib": 149, "unix_report_kib": 61}
 SESSION_FILE = os.path.join(MPY_DIR, "board_session.txt")
 
 

@@ -1,19 +1,20 @@
 """The interpreter's query words (obs base ice frost da at iso stab parcel thermal
-report chart svg balloon show) and their output in text, kv and json form (runs on
+report chart svg levels cold; balloon, sunset, loads in lapsecalc.balloonwords, show
+in lapsecalc.showword) and their output in text, kv and json form (runs on
 MicroPython)."""
 # Sources: every number comes from the library (Column, Column.report(), parcel,
 #   balloon, chart); this module only picks, orders and formats them.
 #
 # A query is f(session, word, args) -> output lines; it reads the session and never
 # changes it. Output modes: text (display units, laid out by lapsecalc.layout), kv and
-# json (SI, report() keys; kv form in lapsecalc.output); lines starting "#" are notes
+# json (SI, report() keys; kv form in lapsecalc.machine); lines starting "#" are notes
 # (defaults in use). chart, balloon and the text layout are imported only by the words
 # that use them. A new query word: its function here and its entry in QUERIES; the
 # keys it shows in lapsecalc.groups, their text labels in lapsecalc.layout, its help in
 # lapsecalc.helptext.
 from lapsecalc.limits import T_MIN_C, T_MAX_C
 from lapsecalc.typed import number, value, shown, said, unit_kind, no_args
-from lapsecalc.state import assumed, STANDARD_QNH_HPA, ISA_LAPSE_K_PER_KM, DEFAULT_TOP_M, DEFAULT_TROP_M
+from lapsecalc.state import assumed
 
 
 def emit(s, keys, values, balloon=False, word=None, rest=True, plus=()):
@@ -199,107 +200,6 @@ def _c_iso(s, w, args):
     return emit(s, "iso", vals)
 
 
-def _balloon_needs(s, w, gas):
-    # Refuse a balloon word until its settings are there (hot air or this gas).
-    st = s.state
-    need = (("env", "env_m3"), ("wt", "wt_kg"), ("fill", "fill_m3") if gas else ("tmax", "tmax_c"))
-    miss = [n for n, k in need if k not in st]
-    if miss:
-        raise ValueError("%s (%s) needs %s: set first, e.g. %s" % (
-            w, "gas " + gas if gas else "hot air", ", ".join(miss),
-            "gas helium env 10m3 fill 6m3 wt 4kg" if gas else "env 2800m3 wt 450kg tmax 120C"))
-    if gas and st["fill_m3"] > st["env_m3"]:
-        raise ValueError("%s: fill %g m3 is more than env %g m3; the gas fills at most the"
-                         " envelope" % (w, st["fill_m3"], st["env_m3"]))
-
-
-def _hot_needs(s, w, col, z, t_work):
-    # A working envelope temperature below the air at z lifts nothing: said in the
-    # display unit, with the words that set it.
-    t_air = col.t_at(z)
-    if t_work < t_air:
-        from lapsecalc.output import f_t, f_h1
-        raise ValueError("%s: the working envelope temp %s is below the air (%s at %s);"
-                         " set tenv, tmax or margin higher" % (
-                             w, f_t(s, t_work, True), f_t(s, t_air, True), f_h1(s, z)))
-
-
-def _gas_report(s, w, args, gas):
-    st = s.state
-    col = s.column(w)
-    z = _height(s, w, args, col)
-    from lapsecalc.balloon import gas_report
-    return gas_report(col, gas, st.get("purity", 1.0), st["fill_m3"], st["env_m3"],
-                      st["wt_kg"], z, st.get("superheat_k", 0.0))
-
-
-def _c_balloon(s, w, args):
-    st = s.state
-    gas = st.get("gas")
-    _balloon_needs(s, w, gas)
-    if gas:
-        return emit(s, "gas", _gas_report(s, w, args, gas), True)
-    return emit(s, "hot", _hot_report(s, w, args), True)
-
-
-def _hot_report(s, w, args):
-    # (Its own function: the column and the balloon code are let go of before the text
-    # is laid out.)
-    st = s.state
-    col = s.column(w)
-    z = _height(s, w, args, col)
-    from lapsecalc import balloon
-    _hot_needs(s, w, col, z, balloon.working_envelope_t(
-        st["tmax_c"], st.get("tenv_c"), st.get("margin_k", balloon.DEFAULT_MARGIN_K)))
-    return balloon.hot_air_report(col, st["env_m3"], st["wt_kg"], st["tmax_c"],
-                                  st.get("tenv_c"), z,
-                                  st.get("margin_k", balloon.DEFAULT_MARGIN_K))
-
-
-def _c_sunset(s, w, args):
-    gas = s.state.get("gas")
-    if not gas:
-        raise ValueError("sunset is for a gas balloon: set gas helium (or h2), env, fill, wt"
-                         " and superheat first")
-    _balloon_needs(s, w, gas)
-    r = _gas_report(s, w, args, gas)
-    out = emit(s, "sunset", r, True, None, False)
-    if s.mode == "text" and "superheat_k" not in s.state:
-        out.append("superheat not set: 0 K (superheat 12K)")
-    return out
-
-
-def _c_loads(s, w, args):
-    # loads [EMPTY]: the load table at the working temperature, rows every 2000 ft (or
-    # 500 m) up to 10000 ft (3000 m) above the field, six field temperatures (few
-    # rows: every cell is a lift computed in its own column, and a board pays for each).
-    st = s.state
-    if st.get("gas"):
-        raise ValueError("loads is for a hot-air balloon (gas none); a gas balloon: balloon")
-    _balloon_needs(s, w, None)
-    if len(args) > 1:
-        raise ValueError("loads takes at most an empty weight, e.g. loads 420kg")
-    empty = None
-    if args:
-        empty = value(args[0], "w", "kg", 1.0, 20000.0, w)
-    col = s.column(w)
-    from lapsecalc.balloon import working_envelope_t, DEFAULT_MARGIN_K
-    from lapsecalc.loadtable import load_table, load_table_text
-    t_work = working_envelope_t(st["tmax_c"], st.get("tenv_c"),
-                                st.get("margin_k", DEFAULT_MARGIN_K))
-    ft = s.disp["h"] == "ft"
-    tab = load_table(col, st["env_m3"], t_work, st["tmax_c"], empty, step_m=609.6 if ft else 500.0,
-                     depth_m=3048.0 if ft else 3000.0)
-    if s.mode == "text":
-        out = ["assumed " + n for n in assumed(st)] + load_table_text(s, tab)
-        if tab["oxygen_note"]:
-            from lapsecalc.layout import wrap
-            out.extend(wrap((tab["oxygen_note"],), "!"))
-        return out
-    return emit(s, ("volume_m3", "envelope_t_c", "max_envelope_t_c", "empty_kg", "dewpoint_c",
-                    "temps_c", "heights_msl_m", "gross_kg", "payload_kg", "oxygen_note"), tab)
-
-
 def _c_chart(s, w, args):
     # chart [TOP [agl]]: TOP zooms (a 2000 ft marine layer fills the picture).
     col = s.column(w)
@@ -344,56 +244,6 @@ def kv_report(s):
     return kv_lines(rep, report_keys(rep))
 
 
-def _c_show(s, w, args):
-    no_args(w, args)
-    st = s.state
-    if s.mode == "text":
-        from lapsecalc.showtext import show_text
-        return show_text(s)
-    # The values in force, defaults included and named in "defaults"; a setting with
-    # no default and not set is empty (None).
-    from lapsecalc.machine import kv_value, kv_lines, machine
-    kind, hum = st.get("hum", ("td", None))
-    pk, p = st.get("press", ("qnh", None))
-    lapse = st.get("lapse")
-    if isinstance(lapse, list):
-        lapse = ";".join("%s:%s" % (kv_value(a, "_m"), kv_value(b, "_k_per_km"))
-                         for a, b in lapse)
-    vals = {"t_c": st.get("t_c"), "td_c": hum if kind == "td" else None,
-            "rh_pct": hum if kind == "rh" else None, "elevation_m": st.get("elev_m"),
-            "qnh_hpa": p if pk == "qnh" else None,
-            "station_pressure_hpa": p if pk == "stn" else None, "elr_k_per_km": lapse,
-            "top_msl_m": st.get("top_m"), "thermal_excess_c": st.get("excess_c"),
-            "envelope_m3": st.get("env_m3"), "weight_kg": st.get("wt_kg"),
-            "gas_volume_m3": st.get("fill_m3"), "max_envelope_t_c": st.get("tmax_c"),
-            "envelope_t_c": st.get("tenv_c"), "margin_k": st.get("margin_k"),
-            "gas": st.get("gas"), "purity": st.get("purity"),
-            "superheat_k": st.get("superheat_k"), "aloft_points": None,
-            "tropopause_msl_m": st.get("trop_m")}
-    if "aloft" in st:
-        from lapsecalc.aloftwords import point_kv
-        vals["aloft_points"] = ";".join(point_kv(pt) for pt in st["aloft"])
-    defaults = []
-    for key, value in (("qnh_hpa", STANDARD_QNH_HPA), ("elr_k_per_km", ISA_LAPSE_K_PER_KM),
-                       ("top_msl_m", DEFAULT_TOP_M), ("thermal_excess_c", 0.0),
-                       ("tropopause_msl_m", None if "trop_m" in st else DEFAULT_TROP_M),
-                       ("purity", 1.0 if "gas" in st else None)):
-        if vals[key] is None and value is not None and not (
-                key == "qnh_hpa" and pk == "stn"):
-            vals[key] = value
-            defaults.append(key)
-    vals["defaults"] = defaults if s.mode == "json" else ",".join(defaults)
-    vals["units"] = "%s,%s,%s" % (s.disp["h"], s.disp["t"], s.disp["p"])
-    vals["out"] = s.mode
-    keys = ("t_c", "td_c", "rh_pct", "elevation_m", "qnh_hpa", "station_pressure_hpa",
-            "elr_k_per_km", "top_msl_m", "thermal_excess_c", "envelope_m3", "weight_kg",
-            "gas_volume_m3", "max_envelope_t_c", "envelope_t_c", "margin_k", "gas", "purity",
-            "superheat_k", "aloft_points", "tropopause_msl_m", "defaults", "units", "out")
-    if s.mode == "json":
-        return [s.json.dumps(machine("", vals))]
-    return kv_lines(vals, keys)
-
-
 def _c_altimeter(s, w, args):
     # levels and cold: their work and text in lapsecalc.altitext (loaded for the line).
     from lapsecalc.altitext import altimeter_word
@@ -403,11 +253,12 @@ def _c_altimeter(s, w, args):
     return ["assumed " + n for n in assumed(s.state)] + text
 
 
-# query word -> f(session, word, args) -> output lines
+# query word -> f(session, word, args) -> output lines, or the name of the module
+# whose WORDS has that f (loaded only by the word's line; lapsecalc.shell imports it)
 QUERIES = {
     "obs": _c_group, "base": _c_group, "ice": _c_group, "frost": _c_group, "stab": _c_group,
     "parcel": _c_group, "thermal": _c_group, "da": _c_at, "at": _c_at, "iso": _c_iso,
-    "balloon": _c_balloon, "loads": _c_loads, "sunset": _c_sunset, "report": _c_report,
-    "chart": _c_chart, "svg": _c_svg, "show": _c_show,
+    "balloon": "balloonwords", "loads": "balloonwords", "sunset": "balloonwords",
+    "report": _c_report, "chart": _c_chart, "svg": _c_svg, "show": "showword",
     "levels": _c_altimeter, "cold": _c_altimeter,
 }

@@ -39,7 +39,8 @@ PHYSICS_MODULES = ("parcel", "stability", "hazards", "aloft", "altimetry", "indi
                    "constants")
 WORD_MODULES = PHYSICS_MODULES + (
     "settings", "commands", "output", "machine", "groups", "helptext", "chart", "loadtable",
-    "balloontext", "metar", "demo", "layout", "showtext", "hazardtext", "altitext", "aloftwords",
+    "balloontext", "metar", "demo", "layout", "showword",
+    "balloonwords", "hazardtext", "altitext", "aloftwords",
     "retell")
 # The words whose report carries the altimetry keys (isa_deviation_c,
 # density_altitude_dry_m, indicated_altitude_m: Column.report(altimetry=True)).
@@ -208,7 +209,10 @@ class Session:
         if w in SETTING_WORDS:
             return self._settings(words)
         if w in QUERIES:
-            return QUERIES[w](self, w, words[1:])
+            f = QUERIES[w]
+            if isinstance(f, str):  # a word whose code is a module of its own
+                f = __import__("lapsecalc." + f, None, None, ["WORDS"]).WORDS[w]
+            return f(self, w, words[1:])
         if w in COMMAND_WORDS:
             from lapsecalc.commands import COMMANDS
             return COMMANDS[w](self, w, words[1:])

@@ -1,0 +1,112 @@
+"""The interpreter's balloon words (balloon, sunset, loads) and their output in text,
+kv and json form (runs on MicroPython; loaded only by their lines)."""
+# Sources: every number comes from lapsecalc.balloon and lapsecalc.loadtable; this
+#   module checks the settings the words need, picks and formats.
+from lapsecalc.typed import value
+from lapsecalc.queries import emit, _height
+from lapsecalc.state import assumed
+
+
+def _balloon_needs(s, w, gas):
+    # Refuse a balloon word until its settings are there (hot air or this gas).
+    st = s.state
+    need = (("env", "env_m3"), ("wt", "wt_kg"), ("fill", "fill_m3") if gas else ("tmax", "tmax_c"))
+    miss = [n for n, k in need if k not in st]
+    if miss:
+        raise ValueError("%s (%s) needs %s: set first, e.g. %s" % (
+            w, "gas " + gas if gas else "hot air", ", ".join(miss),
+            "gas helium env 10m3 fill 6m3 wt 4kg" if gas else "env 2800m3 wt 450kg tmax 120C"))
+    if gas and st["fill_m3"] > st["env_m3"]:
+        raise ValueError("%s: fill %g m3 is more than env %g m3; the gas fills at most the"
+                         " envelope" % (w, st["fill_m3"], st["env_m3"]))
+
+
+def _hot_needs(s, w, col, z, t_work):
+    # A working envelope temperature below the air at z lifts nothing: said in the
+    # display unit, with the words that set it.
+    t_air = col.t_at(z)
+    if t_work < t_air:
+        from lapsecalc.output import f_t, f_h1
+        raise ValueError("%s: the working envelope temp %s is below the air (%s at %s);"
+                         " set tenv, tmax or margin higher" % (
+                             w, f_t(s, t_work, True), f_t(s, t_air, True), f_h1(s, z)))
+
+
+def _gas_report(s, w, args, gas):
+    st = s.state
+    col = s.column(w)
+    z = _height(s, w, args, col)
+    from lapsecalc.balloon import gas_report
+    return gas_report(col, gas, st.get("purity", 1.0), st["fill_m3"], st["env_m3"],
+                      st["wt_kg"], z, st.get("superheat_k", 0.0))
+
+
+def _c_balloon(s, w, args):
+    st = s.state
+    gas = st.get("gas")
+    _balloon_needs(s, w, gas)
+    if gas:
+        return emit(s, "gas", _gas_report(s, w, args, gas), True)
+    return emit(s, "hot", _hot_report(s, w, args), True)
+
+
+def _hot_report(s, w, args):
+    # (Its own function: the column and the balloon code are let go of before the text
+    # is laid out.)
+    st = s.state
+    col = s.column(w)
+    z = _height(s, w, args, col)
+    from lapsecalc import balloon
+    _hot_needs(s, w, col, z, balloon.working_envelope_t(
+        st["tmax_c"], st.get("tenv_c"), st.get("margin_k", balloon.DEFAULT_MARGIN_K)))
+    return balloon.hot_air_report(col, st["env_m3"], st["wt_kg"], st["tmax_c"],
+                                  st.get("tenv_c"), z,
+                                  st.get("margin_k", balloon.DEFAULT_MARGIN_K))
+
+
+def _c_sunset(s, w, args):
+    gas = s.state.get("gas")
+    if not gas:
+        raise ValueError("sunset is for a gas balloon: set gas helium (or h2), env, fill, wt"
+                         " and superheat first")
+    _balloon_needs(s, w, gas)
+    r = _gas_report(s, w, args, gas)
+    out = emit(s, "sunset", r, True, None, False)
+    if s.mode == "text" and "superheat_k" not in s.state:
+        out.append("superheat not set: 0 K (superheat 12K)")
+    return out
+
+
+def _c_loads(s, w, args):
+    # loads [EMPTY]: the load table at the working temperature, rows every 2000 ft (or
+    # 500 m) up to 10000 ft (3000 m) above the field, six field temperatures (few
+    # rows: every cell is a lift computed in its own column, and a board pays for each).
+    st = s.state
+    if st.get("gas"):
+        raise ValueError("loads is for a hot-air balloon (gas none); a gas balloon: balloon")
+    _balloon_needs(s, w, None)
+    if len(args) > 1:
+        raise ValueError("loads takes at most an empty weight, e.g. loads 420kg")
+    empty = None
+    if args:
+        empty = value(args[0], "w", "kg", 1.0, 20000.0, w)
+    col = s.column(w)
+    from lapsecalc.balloon import working_envelope_t, DEFAULT_MARGIN_K
+    from lapsecalc.loadtable import load_table, load_table_text
+    t_work = working_envelope_t(st["tmax_c"], st.get("tenv_c"),
+                                st.get("margin_k", DEFAULT_MARGIN_K))
+    ft = s.disp["h"] == "ft"
+    tab = load_table(col, st["env_m3"], t_work, st["tmax_c"], empty, step_m=609.6 if ft else 500.0,
+                     depth_m=3048.0 if ft else 3000.0)
+    if s.mode == "text":
+        out = ["assumed " + n for n in assumed(st)] + load_table_text(s, tab)
+        if tab["oxygen_note"]:
+            from lapsecalc.layout import wrap
+            out.extend(wrap((tab["oxygen_note"],), "!"))
+        return out
+    return emit(s, ("volume_m3", "envelope_t_c", "max_envelope_t_c", "empty_kg", "dewpoint_c",
+                    "temps_c", "heights_msl_m", "gross_kg", "payload_kg", "oxygen_note"), tab)
+
+
+# balloon word -> f(session, word, args) -> output lines
+WORDS = {"balloon": _c_balloon, "loads": _c_loads, "sunset": _c_sunset}

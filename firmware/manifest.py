@@ -27,6 +27,8 @@ package(
         "layout.py",
         "showword.py",
         "balloonwords.py",
+        "atwords.py",
+        "heights.py",
         "loadtable.py",
         "machine.py",
         "metar.py",

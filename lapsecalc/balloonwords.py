@@ -3,7 +3,8 @@ kv and json form (runs on MicroPython; loaded only by their lines)."""
 # Sources: every number comes from lapsecalc.balloon and lapsecalc.loadtable; this
 #   module checks the settings the words need, picks and formats.
 from lapsecalc.typed import value
-from lapsecalc.queries import emit, _height
+from lapsecalc.queries import emit
+from lapsecalc.heights import height
 from lapsecalc.state import assumed
 
 
@@ -35,7 +36,7 @@ def _hot_needs(s, w, col, z, t_work):
 def _gas_report(s, w, args, gas):
     st = s.state
     col = s.column(w)
-    z = _height(s, w, args, col)
+    z = height(s, w, args, col)
     from lapsecalc.balloon import gas_report
     return gas_report(col, gas, st.get("purity", 1.0), st["fill_m3"], st["env_m3"],
                       st["wt_kg"], z, st.get("superheat_k", 0.0))
@@ -55,7 +56,7 @@ def _hot_report(s, w, args):
     # is laid out.)
     st = s.state
     col = s.column(w)
-    z = _height(s, w, args, col)
+    z = height(s, w, args, col)
     from lapsecalc import balloon
     _hot_needs(s, w, col, z, balloon.working_envelope_t(
         st["tmax_c"], st.get("tenv_c"), st.get("margin_k", balloon.DEFAULT_MARGIN_K)))

@@ -1,7 +1,7 @@
-"""The interpreter's query words (obs base ice frost da at iso stab parcel thermal
-report chart svg levels cold; balloon, sunset, loads in lapsecalc.balloonwords, show
-in lapsecalc.showword) and their output in text, kv and json form (runs on
-MicroPython)."""
+"""The interpreter's query words (obs base ice frost da stab parcel thermal report
+chart svg levels cold; at, da H, iso in lapsecalc.atwords; balloon, sunset, loads in
+lapsecalc.balloonwords; show in lapsecalc.showword) and their output in text, kv and
+json form (runs on MicroPython)."""
 # Sources: every number comes from the library (Column, Column.report(), parcel,
 #   balloon, chart); this module only picks, orders and formats them.
 #
@@ -12,8 +12,7 @@ MicroPython)."""
 # that use them. A new query word: its function here and its entry in QUERIES; the
 # keys it shows in lapsecalc.groups, their text labels in lapsecalc.layout, its help in
 # lapsecalc.helptext.
-from lapsecalc.limits import T_MIN_C, T_MAX_C
-from lapsecalc.typed import number, value, shown, said, unit_kind, no_args
+from lapsecalc.typed import shown, no_args
 from lapsecalc.state import assumed
 
 
@@ -113,99 +112,13 @@ def _altimeter_section(s, rep):
     return altimeter_lines(s, rep)
 
 
-def _height(s, w, args, col):
-    # A height m MSL from "H" (MSL, or indicated on QNH after "heights ind"), "H agl",
-    # "H msl", "H ind", a flight level "FL85", or a pressure "P" (the height of P); the
-    # field when there are no args.
-    if not args:
-        return col.elev_m
-    if len(args) > 2:
-        raise ValueError("%s takes a height, e.g. %s 8000ft, %s 2000ft agl, %s FL85, %s 700hPa"
-                         % (w, w, w, w, w))
-    where = args[1].lower() if len(args) > 1 else s.disp["z"]
-    if args[0][:2].lower() == "fl" or where == "ind":
-        from lapsecalc.altitext import height_aloft
-        return height_aloft(s, w, args, col)
-    if len(args) == 1 and unit_kind(args[0]) == "p":
-        p = number(args[0], "p", "hpa")
-        p_top = col.p_at(col.top_m)
-        if not p_top <= p <= col.p_hpa:
-            from lapsecalc.output import f_p
-            raise ValueError("%s: %s is not in the column (%s at the field, %s at the top)"
-                             % (w, said(args[0], "hpa"), f_p(s, col.p_hpa, True),
-                                f_p(s, p_top, True)))
-        return col.z_at(p)
-    z = number(args[0], "h", s.disp["h"])
-    if where not in ("agl", "msl"):
-        raise ValueError("%s: '%s' after the height; accepted agl, msl or ind (indicated on"
-                         " QNH)" % (w, shown(args[1])))
-    if where == "agl":
-        z += col.elev_m
-    typed = said(args[0], s.disp["h"]) + (" AGL" if where == "agl" else "")
-    # A millimetre of rounding at either end is the end itself.
-    from lapsecalc.output import f_h1
-    if z < col.elev_m - 0.001:
-        raise ValueError("%s: %s is below the field (%s)" % (w, typed, f_h1(s, col.elev_m)))
-    if z > col.top_m + 0.001:
-        raise ValueError("%s: %s is above the column top (%s)"
-                         % (w, typed, f_h1(s, col.top_m)))
-    return min(max(z, col.elev_m), col.top_m)
-
-
-def _c_at(s, w, args):
-    if w == "da" and not args:
-        return _c_group(s, w, args)
-    if not args:
-        raise ValueError("at needs a height, e.g. at 8000ft, at 2000ft agl, at 700hPa")
-    col = s.column(w)
-    z = _height(s, w, args, col)
-    p = col.p_at(z)
-    vals = {"at_msl_m": z, "at_t_c": col.t_at(z), "at_p_hpa": p,
-            "at_vapour_pressure_hpa": col.vapour_pressure_at(z),
-            "at_air_density_kg_m3": col.density_at(z),
-            "at_density_altitude_m": col.density_altitude_at(z),
-            "at_parcel_t_c": _parcel_t(s, col, z)}
-    from lapsecalc.altimetry import altimeter_view, COLD_WARNING_K
-    ind, pa, dev = altimeter_view(col, z, p)
-    vals["at_indicated_m"], vals["at_pressure_altitude_m"], vals["at_isa_deviation_c"] = \
-        ind, pa, dev
-    col = None  # let go of before the text is laid out
-    out = emit(s, "at", vals)
-    if s.mode == "text" and dev <= -COLD_WARNING_K and ind > z:
-        from lapsecalc.altitext import cold_warning_lines
-        out.extend(cold_warning_lines(s, [("at_msl_m", z, dev, ind - z)]))
-    return out
-
-
-def _parcel_t(s, col, z):
-    # The parcel temperature at z recomputed between the path's levels, as the report's
-    # parcel levels are (parcel.temperature_at); the chart's linear interpolation is
-    # for drawing only and is up to a few tenths of a K off on the moist adiabat.
-    from lapsecalc.parcel import temperature_at
-    levels = s.levels()
-    for i in range(1, len(levels)):
-        if z <= levels[i][0]:
-            lcl = col.elev_m + s.report("at")["cloud_base_agl_m"]
-            return temperature_at(col, levels, i, z, lcl)
-    return levels[-1][2]
-
-
-def _c_iso(s, w, args):
-    if len(args) != 1:
-        raise ValueError("iso needs one temperature, e.g. iso -15C")
-    col = s.column(w)
-    t = value(args[0], "t", s.disp["t"], T_MIN_C, T_MAX_C, w)
-    vals = {"iso_t_c": t, "iso_level_msl_m": col.level(t), "iso_levels_msl_m": col.crossings(t)}
-    col = None  # let go of before the text is laid out
-    return emit(s, "iso", vals)
-
-
 def _c_chart(s, w, args):
     # chart [TOP [agl]]: TOP zooms (a 2000 ft marine layer fills the picture).
     col = s.column(w)
     top = None
     if args:
-        top = _height(s, w, args, col)
+        from lapsecalc.heights import height
+        top = height(s, w, args, col)
         if top < col.elev_m + 30.0:
             from lapsecalc.output import f_h1
             raise ValueError("chart: the top must be at least 100 ft (30 m) above the"
@@ -257,7 +170,7 @@ def _c_altimeter(s, w, args):
 # whose WORDS has that f (loaded only by the word's line; lapsecalc.shell imports it)
 QUERIES = {
     "obs": _c_group, "base": _c_group, "ice": _c_group, "frost": _c_group, "stab": _c_group,
-    "parcel": _c_group, "thermal": _c_group, "da": _c_at, "at": _c_at, "iso": _c_iso,
+    "parcel": _c_group, "thermal": _c_group, "da": "atwords", "at": "atwords", "iso": "atwords",
     "balloon": "balloonwords", "loads": "balloonwords", "sunset": "balloonwords",
     "report": _c_report, "chart": _c_chart, "svg": _c_svg, "show": "showword",
     "levels": _c_altimeter, "cold": _c_altimeter,

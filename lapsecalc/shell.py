@@ -40,7 +40,7 @@ PHYSICS_MODULES = ("parcel", "stability", "hazards", "aloft", "altimetry", "indi
 WORD_MODULES = PHYSICS_MODULES + (
     "settings", "commands", "output", "machine", "groups", "helptext", "chart", "loadtable",
     "balloontext", "metar", "demo", "layout", "showword",
-    "balloonwords", "hazardtext", "altitext", "aloftwords",
+    "balloonwords", "atwords", "heights", "hazardtext", "altitext", "aloftwords",
     "retell")
 # The words whose report carries the altimetry keys (isa_deviation_c,
 # density_altitude_dry_m, indicated_altitude_m: Column.report(altimetry=True)).

@@ -136,8 +136,9 @@ def test_board_modules_never_import_cpython_only_ones():
 # only modules of the layers below its own, at the top or inside a function.
 INTERPRETER_LAYERS = (
     ("shell",),
-    ("balloonwords", "showword"),
+    ("balloonwords", "showword", "atwords"),
     ("settings", "queries", "commands"),
+    ("heights",),
     ("altitext",),
     ("layout", "chart", "metar", "helptext", "loadtable", "balloontext", "retell"),
     ("aloftwords",),

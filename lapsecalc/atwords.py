@@ -1,0 +1,60 @@
+"""The interpreter's at, da H and iso words: the air at one height, the level of one
+temperature (runs on MicroPython; loaded only by their lines)."""
+# Sources: every number comes from the Column, lapsecalc.parcel and lapsecalc.altimetry;
+#   this module only picks them.
+from lapsecalc.limits import T_MIN_C, T_MAX_C
+from lapsecalc.typed import value
+from lapsecalc.heights import height
+from lapsecalc.queries import emit, _c_group
+
+
+def _c_at(s, w, args):
+    if w == "da" and not args:
+        return _c_group(s, w, args)
+    if not args:
+        raise ValueError("at needs a height, e.g. at 8000ft, at 2000ft agl, at 700hPa")
+    col = s.column(w)
+    z = height(s, w, args, col)
+    p = col.p_at(z)
+    vals = {"at_msl_m": z, "at_t_c": col.t_at(z), "at_p_hpa": p,
+            "at_vapour_pressure_hpa": col.vapour_pressure_at(z),
+            "at_air_density_kg_m3": col.density_at(z),
+            "at_density_altitude_m": col.density_altitude_at(z),
+            "at_parcel_t_c": _parcel_t(s, col, z)}
+    from lapsecalc.altimetry import altimeter_view, COLD_WARNING_K
+    ind, pa, dev = altimeter_view(col, z, p)
+    vals["at_indicated_m"], vals["at_pressure_altitude_m"], vals["at_isa_deviation_c"] = \
+        ind, pa, dev
+    col = None  # let go of before the text is laid out
+    out = emit(s, "at", vals)
+    if s.mode == "text" and dev <= -COLD_WARNING_K and ind > z:
+        from lapsecalc.altitext import cold_warning_lines
+        out.extend(cold_warning_lines(s, [("at_msl_m", z, dev, ind - z)]))
+    return out
+
+
+def _parcel_t(s, col, z):
+    # The parcel temperature at z recomputed between the path's levels, as the report's
+    # parcel levels are (parcel.temperature_at); the chart's linear interpolation is
+    # for drawing only and is up to a few tenths of a K off on the moist adiabat.
+    from lapsecalc.parcel import temperature_at
+    levels = s.levels()
+    for i in range(1, len(levels)):
+        if z <= levels[i][0]:
+            lcl = col.elev_m + s.report("at")["cloud_base_agl_m"]
+            return temperature_at(col, levels, i, z, lcl)
+    return levels[-1][2]
+
+
+def _c_iso(s, w, args):
+    if len(args) != 1:
+        raise ValueError("iso needs one temperature, e.g. iso -15C")
+    col = s.column(w)
+    t = value(args[0], "t", s.disp["t"], T_MIN_C, T_MAX_C, w)
+    vals = {"iso_t_c": t, "iso_level_msl_m": col.level(t), "iso_levels_msl_m": col.crossings(t)}
+    col = None  # let go of before the text is laid out
+    return emit(s, "iso", vals)
+
+
+# word -> f(session, word, args) -> output lines
+WORDS = {"at": _c_at, "da": _c_at, "iso": _c_iso}

@@ -13,7 +13,8 @@
 # lapsecalc.layout (text lines, loaded by text output) -> lapsecalc.groups (result
 # keys), lapsecalc.output (display units, acks, kv values), lapsecalc.state (state
 # keys, defaults, the Column), lapsecalc.typed (numbers, units, aliases) -> the library.
-from lapsecalc.typed import ALIASES, AMBIGUOUS, shown, starts_number, nearest, is_unit, join_words
+from lapsecalc.typed import (ALIASES, AMBIGUOUS, shown, starts_number, nearest, near_unit,
+                             is_unit, join_words)
 from lapsecalc.state import AIR_KEYS, missing, build_column, dewpoint_of, settle
 from lapsecalc.queries import QUERIES
 
@@ -67,14 +68,19 @@ def split_line(line):
 _TAKE_NUMBER = ("at", "da", "iso", "balloon", "chart")
 
 
-def _unknown(word, settings_only=False, number_next=False):
+def _unknown(word, settings_only=False, number_next=False, after=None):
     # The error for a word no table has. A suggestion is only of the same kind: a unit
-    # is said to be one; in a line of settings only settings are suggested; a first
-    # word followed by a number, only words that take one.
+    # is said to be one; right after a number a slip of a unit is a unit ("6500 fet");
+    # in a line of settings only settings are suggested; a first word followed by a
+    # number, only words that take one.
     if is_unit(word):
         return "'%s' is a unit: write it after its number, e.g. elev 6500 ft" % shown(word)
     if word.lower() in AMBIGUOUS:
         return AMBIGUOUS[word.lower()]
+    unit = near_unit(word) if after is not None and starts_number(after) else None
+    if unit is not None:
+        return "unknown word '%s' after %s; did you mean the unit: %s %s?" % (
+            shown(word), shown(after), shown(after), unit)
     known = list(SETTING_WORDS)
     if not settings_only:
         known += list(_TAKE_NUMBER) if number_next else list(_WORDS)
@@ -234,7 +240,7 @@ class Session:
                 if w in _WORDS:
                     raise ValueError("'%s' cannot share a line with settings; give it its"
                                      " own line" % w)
-                raise ValueError(_unknown(words[i], True))
+                raise ValueError(_unknown(words[i], True, False, words[i - 1] if i else None))
             fn, takes, example = SETTINGS[w]
             j = i + 2 if takes == ONE else len(words)
             if takes == NUMBERS:

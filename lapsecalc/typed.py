@@ -227,6 +227,12 @@ def _edit_distance(a, b):
     return prev[-1]
 
 
+def near_unit(word):
+    """The unit (as written: "ft", "hPa") closest to word, or None (nearest())."""
+    u = nearest(word, list(_UNITS) + ["feet"])
+    return None if u is None else _WRITTEN.get(u, u)
+
+
 def nearest(word, known):
     """The known word closest to word (at most 2 edits, fewer than its length), or None."""
     w = word.lower()[:16]

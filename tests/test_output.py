@@ -98,6 +98,9 @@ def test_ok_lines():
     # 40 columns exactly: kept on the line
     assert ack(S(), ["x" * 20, "y" * 14]) == ["ok: " + "x" * 20 + ", " + "y" * 14]
     assert ack(S(), ["x" * 20, "y" * 15]) == ["ok: " + "x" * 20 + ",", "    " + "y" * 15]
+    # after a wrapped line, a part that fits joins the last line, not the first
+    assert ack(S(), ["x" * 30, "y" * 30, "z"]) == ["ok: " + "x" * 30 + ",", "    " + "y" * 30
+                                                   + ", z"]
     assert ack(S(mode="kv"), parts, ["temp", "dew"]) == ["ok=temp,dew"]
     assert ack(S(mode="kv"), "out kv") == ["ok=out kv"]
     assert ack(S(mode="json"), "x", ["unit"]) == ['{"ok": ["unit"]}']

@@ -64,3 +64,87 @@ def test_nearest_takes_at_most_two_edits():
     assert nearest("ELRV", known) in ("elr", "elev")
     assert nearest("de", known) == "dew"
     assert nearest("d", known) is None               # not fewer edits than letters
+
+
+# ---- said back, bounds in the user's unit, words joined (exact unit factors:
+# REFERENCES.md, Units: 1 ft = 0.3048 m, 1 inHg = 33.8639 hPa, 1 mmHg = 1.333224 hPa,
+# 1 lb = 0.45359237 kg, F = C * 1.8 + 32) ----
+
+from lapsecalc.typed import (in_unit, digits, said, value, unit_of, unit_kind, join_words,
+                             is_unit, starts_number, no_args, ALIASES, AMBIGUOUS, PAIRS)
+
+
+def test_shown_keeps_the_printable_ends():
+    assert shown(" ~") == " ~" and shown("\x1f\x7f") == "??"
+
+
+@pytest.mark.parametrize("x,u,kind,want", [
+    (850.0, "inhg", "p", "25.1 inHg"), (1100.0, "inhg", "p", "32.48 inHg"),  # 25.100, 32.483
+    (1.0, "kpa", "p", "0.1 kPa"), (1013.25, "kpa", "p", "101.3 kPa"),
+    (1013.25, "mmhg", "p", "760 mmHg"), (1013.25, "hpa", "p", "1013 hPa"),
+    (9000.0, "km", "h", "9 km"), (411.48, "km", "h", "0.4 km"), (-500.0, "ft", "h", "-1640 ft"),
+    (30.0, "c/1000ft", "l", "9.14 C/1000ft"), (30.0, "k/1000ft", "l", "9.14 K/1000ft"),
+    (30.0, "f/1000ft", "l", "16.5 F/1000ft"), (25.0, "c/100m", "l", "2.5 C/100m"),
+    (25.0, "k/100m", "l", "2.5 K/100m"), (30.0, "k/km", "l", "30 K/km"),
+    (60.0, "f", "t", "140 F"), (-90.0, "k", "t", "183 K"), (5.55, "c", "t", "5.55 C"),
+    (-0.001, "c", "t", "0 C"), (9.999, "c", "t", "10 C"), (10.0, "m", "h", "10 m"),
+    (1.0, "f", "dt", "1.8 F"), (10.0, "degf", "dt", "18 F"), (10.0, "k", "dt", "10 K"),
+    (0.1, "m3", "v", "0.1 m3"), (0.1, "ft3", "v", "3.53 ft3"), (1.0, "lb", "w", "2.2 lb")])
+def test_bounds_said_in_the_users_unit(x, u, kind, want):
+    assert in_unit(x, u, kind) == want
+
+
+@pytest.mark.parametrize("tok,want", [(".5", "0.5"), ("-.5", "-0.5"), ("5.", "5"),
+                                      ("-0", "0"), ("-0.0", "0.0"), ("+3", "3"),
+                                      ("1.50", "1.50"), ("0.45", "0.45"), ("-3.5C", "-3.5"),
+                                      ("1e3", "1e3"), ("+.25%", "0.25")])
+def test_digits_as_typed(tok, want):
+    assert digits(tok) == want
+
+
+def test_said_and_value_in_the_users_words():
+    assert said("700", "ft") == "700 ft" and said("2.5km", "ft") == "2.5 km"
+    assert said("45%", "%") == "45 %" and said("-0C", "f") == "0 C"
+    assert said("abc", "ft") == "abc" and said("27degf", "c") == "27 F"
+    assert value("1100", "p", "hpa", 850.0, 1100.0) == 1100.0
+    assert value("850", "p", "hpa", 850.0, 1100.0) == 850.0
+    with pytest.raises(ValueError, match=r"^99 C is outside -90\.\.60 C$"):
+        value("99", "t", "c", -90.0, 60.0)
+    with pytest.raises(ValueError, match=r"^iso: 141 F is outside -130\.\.140 F$"):
+        value("141F", "t", "c", -90.0, 60.0, "iso")
+    with pytest.raises(ValueError, match=r"^1100\.1 hPa is outside 850\.\.1100 hPa$"):
+        value("1100.1", "p", "hpa", 850.0, 1100.0)
+    with pytest.raises(ValueError, match=r"too large a number"):
+        value("2e30", "h", "m", 0.0, 1e40)
+    assert value("1e30", "h", "m", 0.0, 1e40) == 1e30
+
+
+def test_units_of_typed_numbers():
+    assert unit_of("27", "c") == "c" and unit_of("27F", "c") == "f" and unit_of("x", "m") == "m"
+    assert unit_kind("27F") == "t" and unit_kind("3km") == "h" and unit_kind("2inHg") == "p"
+    assert unit_kind("27") is None and unit_kind("27zz") is None and unit_kind("abc") is None
+    assert is_unit("ft") and is_unit("FEET") and is_unit("hPa") and not is_unit("temp")
+    assert starts_number("-3") and starts_number(".5") and starts_number("+1")
+    assert not starts_number("") and not starts_number("e5")
+    no_args("show", [])
+    with pytest.raises(ValueError, match="show takes nothing after it; got 'x'"):
+        no_args("show", ["x"])
+
+
+def test_words_joined():
+    assert join_words(["field", "elevation", "1350", "ft"]) == ["elev", "1350ft"]
+    assert join_words(["Field", "Elev", "411", "m"]) == ["elev", "411m"]
+    assert join_words(["dew", "point", "13", "C"]) == ["dew", "13C"]
+    assert join_words(["altimeter", "setting", "29.92", "inHg"]) == ["qnh", "29.92inHg"]
+    assert join_words(["elr", "8@2", "km"]) == ["elr", "8@2km"]
+    assert join_words(["elev", "6500", "feet"]) == ["elev", "6500ft"]
+    assert join_words(["elev", "6500ft", "ft"]) == ["elev", "6500ft", "ft"]
+    assert join_words(["ft", "6500"]) == ["ft", "6500"]
+    assert join_words(["metar", "X", "24/M02", "Q", "ft"]) == ["metar", "X", "24/M02", "Q", "ft"]
+    assert join_words(["temp", "27", "C", "metar", "field", "elevation"]) == [
+        "temp", "27C", "metar", "field", "elevation"]
+    # every pair and alias names a word of one meaning; alt is refused as ambiguous
+    assert set(PAIRS.values()) <= {"elev", "dew", "qnh"}
+    assert ALIASES["altimeter"] == "qnh" and ALIASES["elevation"] == "elev"
+    assert ALIASES["oat"] == "temp" and ALIASES["dp"] == "dew" and ALIASES["dewpoint"] == "dew"
+    assert "alt" not in ALIASES and "qnh" in AMBIGUOUS["alt"] and "elev" in AMBIGUOUS["alt"]

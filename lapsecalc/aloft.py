@@ -121,7 +121,7 @@ def resolve(aloft, elev_m, t_k, p_hpa, top_m):
             ip += 1
             zn = z + R_DRY / G0 * (t / ratio_ln((tn - t) / t)) * log(p / pn)
             if zn > top_m:
-                raise ValueError("%s lands at %.0f m MSL, above the column top %g m: allowed"
+                raise ValueError("%s lands at %.6g m MSL, above the column top %g m: allowed"
                                  " pressures inside the column" % (name, zn, top_m))
             if ih < len(hs) and zn > hs[ih][0] - _SAME_M:
                 raise ValueError("%s and %s are at the same level or contradict each other"
@@ -229,7 +229,7 @@ def steep_warnings(col):
         if z1 > top:
             break
         if -1000.0 * grad > DRY_LAPSE_K_PER_KM + 0.5:
-            out.append("The points aloft imply %.1f K/km between %.0f and %.0f m MSL, steeper"
+            out.append("The points aloft imply %.1f K/km between %.6g and %.6g m MSL, steeper"
                        " than the dry adiabatic rate; check those readings."
                        % (-1000.0 * grad, z0, z1))
     return out

@@ -100,7 +100,8 @@ def _c_loads(s, w, args):
     tab = load_table(col, st["env_m3"], t_work, st["tmax_c"], empty, step_m=609.6 if ft else 500.0,
                      depth_m=3048.0 if ft else 3000.0)
     if s.mode == "text":
-        out = ["assumed " + n for n in assumed(st)] + load_table_text(s, tab)
+        out = ["assumed " + n for n in assumed(st, False, s.disp["p"] == "inhg")] + \
+            load_table_text(s, tab)
         if tab["oxygen_note"]:
             from lapsecalc.layout import wrap
             out.extend(wrap((tab["oxygen_note"],), "!"))

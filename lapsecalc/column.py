@@ -131,7 +131,7 @@ class Column:
             grad = -rate / 1000.0
             t_top = t + grad * (z_top - z)
             if t_top - T0_K > T_MAX_C:
-                raise ValueError("the ELR warms the air above %g degC at %.0f m MSL; allowed"
+                raise ValueError("the ELR warms the air above %g degC at %.6g m MSL; allowed"
                                  " -90..%g degC throughout: lower top_m or change the layers"
                                  % (T_MAX_C, z + (T_MAX_C + T0_K - t) / grad, T_MAX_C))
             if t_top - T0_K < T_MIN_C:

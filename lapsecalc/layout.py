@@ -132,6 +132,10 @@ def warning_lines(s, rep, keys):
     ones about the whole column and its inputs, and "LABEL above the column top (N)"
     in the display unit for each key whose level lies above the top."""
     said = [w for w in rep["warnings"] if ": %s (" % ABOVE not in w]
+    if said:
+        # The library's sentences speak m and degC: said again in the display units.
+        from lapsecalc.retell import retell
+        said = [retell(s, s.state, w) for w in said]
     for k in rep.get("levels_above_top", ()):
         if k in keys:
             said.append("%s: %s (%s)" % (LABELS[k][0].strip(), ABOVE,

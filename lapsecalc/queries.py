@@ -28,7 +28,7 @@ def emit(s, keys, values, balloon=False, word=None, rest=True, plus=()):
         keys = GROUPS[keys] + plus
     if balloon and rest:
         keys = list(keys) + sorted(k for k in values if k not in keys)
-    notes = assumed(s.state, balloon)
+    notes = assumed(s.state, balloon, s.mode == "text" and s.disp["p"] == "inhg")
     if s.mode == "kv":
         from lapsecalc.machine import kv_lines
         return ["# assumed " + n for n in notes] + kv_lines(values, keys)
@@ -62,6 +62,11 @@ def emit(s, keys, values, balloon=False, word=None, rest=True, plus=()):
     return out
 
 
+def _assumed_text(s):
+    # The text lines of the defaults in use, in the display unit of pressure.
+    return ["assumed " + n for n in assumed(s.state, False, s.disp["p"] == "inhg")]
+
+
 # ---- the query words ----
 
 def _c_group(s, w, args):
@@ -93,7 +98,7 @@ def _c_report(s, w, args):
     s.release()
     from lapsecalc.groups import report_keys
     from lapsecalc.layout import report_text
-    return ["assumed " + n for n in assumed(s.state)] + report_text(
+    return _assumed_text(s) + report_text(
         s, rep, report_keys(rep), extra)
 
 
@@ -163,7 +168,7 @@ def _c_altimeter(s, w, args):
     keys, vals, text = altimeter_word(s, w, args)
     if s.mode != "text":
         return emit(s, keys, vals)
-    return ["assumed " + n for n in assumed(s.state)] + text
+    return _assumed_text(s) + text
 
 
 # query word -> f(session, word, args) -> output lines, or the name of the module

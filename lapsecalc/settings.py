@@ -14,7 +14,6 @@ from lapsecalc.limits import QNH_MIN_HPA, QNH_MAX_HPA, P_MIN_HPA, P_MAX_HPA
 from lapsecalc.column import TOP_MAX_M
 from lapsecalc.typed import number, shown, value, said, unit_of, digits, in_unit
 from lapsecalc.output import f_h1, f_t, f_dt, f_p, f_lapse
-from lapsecalc.state import fl_pressure_hpa  # noqa: F401 (settings.fl_pressure_hpa)
 
 try:
     from micropython import const
@@ -33,7 +32,7 @@ def parse_level(tok):
     """A level as typed: a height with its unit ("3000ft", "914m", "2.5km": m MSL),
     a flight level ("FL180": pressure altitude in hundreds of feet) or a pressure
     ("700hPa", "700mb"). Returns ("z", m MSL), ("fl", flight level) or ("p", hPa);
-    ValueError naming the token. A flight level's pressure: fl_pressure_hpa()."""
+    ValueError naming the token. A flight level's pressure: state.fl_pressure_hpa()."""
     t = tok.lower()
     if t[:2] == "fl":
         if not (t[2:].isdigit() and 0 < len(t) - 2 <= 3):

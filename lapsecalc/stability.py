@@ -297,7 +297,7 @@ def add_warnings(col, r):
     top = col.top_m
     out = []
     if col.end_why:
-        out.append("The column ends at %.0f m MSL, below the top asked for (%.0f m): %s."
+        out.append("The column ends at %.6g m MSL, below the top asked for (%.6g m): %s."
                    % (top, col.top_asked_m, col.end_why))
     keys = []
     for k in ABOVE_TOP:

@@ -79,11 +79,12 @@ def build_column(st):
     return Column(st["t_c"], td, p, st["elev_m"], lapse, top, pts, trop)
 
 
-def assumed(st, balloon=False):
-    """The defaults in use for state st, said with every result."""
+def assumed(st, balloon=False, inhg=False):
+    """The defaults in use for state st, said with every result (the standard QNH in
+    inHg when inhg; each fits a 40-column line after "assumed ")."""
     out = []
     if "press" not in st:
-        out.append("QNH %.2f hPa (standard; qnh not set)" % STANDARD_QNH_HPA)
+        out.append("QNH %s (qnh not set)" % ("29.92 inHg" if inhg else "1013.25 hPa"))
     if "lapse" not in st:
         out.append("ELR %.1f K/km (ISA; elr not set)" % ISA_LAPSE_K_PER_KM)
     if balloon and "gas" in st and "purity" not in st:

@@ -140,7 +140,7 @@ def test_steep_elr_ends_at_coldest_allowed():
     assert abs(col.top_m - 110000.0 / 9.0) < 1e-6
     assert abs(col.t_at(col.top_m) + 90.0) < 1e-9
     w = col.report()["warnings"][0]
-    assert "12222 m" in w and "-90 degC" in w and "16000 m" in w and "tropopause" in w
+    assert "12222.2 m" in w and "-90 degC" in w and "16000 m" in w and "tropopause" in w
     assert Column(20.0, 10.0, 1000.0, 0.0, 9.0, top_m=10000.0).top_m == 10000.0
     # With the default tropopause (11000 m) it is isothermal above -79 degC instead.
     col = Column(20.0, 10.0, 1000.0, 0.0, 9.0)

@@ -36,7 +36,7 @@ def test_warming_past_60_is_refused_naming_the_height():
     # 40 degC warming at 15 K/km reaches 60 degC 1333 m above the field.
     with pytest.raises(ValueError) as err:
         Column(40.0, 10.0, 1000.0, 100.0, [(2000.0, -15.0), (None, 6.5)])
-    assert "at 1433 m MSL" in str(err.value)
+    assert "at 1433.33 m MSL" in str(err.value)
 
 
 def test_vapour_aloft_is_the_surface_mixing_ratio_capped_at_saturation():

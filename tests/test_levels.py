@@ -2,7 +2,8 @@
 level, pressure), shared by the words that take a level."""
 import pytest
 
-from lapsecalc.settings import parse_level, fl_pressure_hpa
+from lapsecalc.settings import parse_level
+from lapsecalc.state import fl_pressure_hpa
 
 
 @pytest.mark.parametrize("tok,kind,value", [

@@ -602,11 +602,11 @@ def test_report_marks_defaults():
     s = Session()
     run(s, [("temp 20 dew 10 elev 0", ["ok: temp 20 C, dew 10 C,", "    elev 0 ft (0 m) MSL"])])
     got = s.feed("report")
-    assert got[:2] == ["assumed QNH 1013.25 hPa (standard; qnh not set)",
+    assert got[:2] == ["assumed QNH 1013.25 hPa (qnh not set)",
                        "assumed ELR 6.5 K/km (ISA; elr not set)"]
     s.feed("out kv")
     got = s.feed("base")
-    assert got[:2] == ["# assumed QNH 1013.25 hPa (standard; qnh not set)",
+    assert got[:2] == ["# assumed QNH 1013.25 hPa (qnh not set)",
                        "# assumed ELR 6.5 K/km (ISA; elr not set)"]
     s.feed("qnh 1013.25 elr 6.5")
     assert not s.feed("base")[0].startswith("#")
@@ -915,7 +915,7 @@ def test_bye_and_repl_stream():
     lines = out.getvalue().splitlines()
     assert lines[:2] == ["ok: temp 20 C, dew 10 C,", "    elev 0 ft (0 m) MSL"]
     assert lines[2].startswith("error: line of 258 characters refused")
-    assert lines[4] == "assumed QNH 1013.25 hPa (standard; qnh not set)"
+    assert lines[4] == "assumed QNH 1013.25 hPa (qnh not set)"
     assert s2.done and s2.state["t_c"] == 20.0
 
 
@@ -1304,13 +1304,13 @@ def _aloft_session():
 def test_aloft_points_merge_replace_and_build_the_column():
     s = _aloft_session()
     # Two points, then one a line as a pilot reads them in a climb; FL180 is the ISA
-    # pressure of 18000 ft (settings.fl_pressure_hpa), 700hPa a pressure point.
+    # pressure of 18000 ft (state.fl_pressure_hpa), 700hPa a pressure point.
     assert s.feed("aloft 6000ft 9C/2C 3000ft 15C") == ["ok=aloft"]
     assert s.feed("aloft FL180 -14C/-30C") == ["ok=aloft"]
     assert s.feed("aloft 700hPa 2C") == ["ok=aloft"]
     # The same level again replaces the old point (6000 ft: 9C/2C -> 8C, no dewpoint).
     assert s.feed("aloft 6000 ft 8C") == ["ok=aloft"]
-    from lapsecalc.settings import fl_pressure_hpa
+    from lapsecalc.state import fl_pressure_hpa
     want = [(3000 * 0.3048, 15.0, None), (6000 * 0.3048, 8.0, None),
             (700.0, 2.0, None, "hPa"), (fl_pressure_hpa(180), -14.0, -30.0, "hPa")]
     assert s.state["aloft"] == (("z", 3000 * 0.3048, 15.0, None), ("z", 6000 * 0.3048, 8.0, None),

@@ -140,7 +140,8 @@ INTERPRETER_LAYERS = (
     ("settings", "queries", "commands"),
     ("heights",),
     ("altitext",),
-    ("layout", "chart", "metar", "helptext", "loadtable", "balloontext", "retell"),
+    ("layout", "chart", "metar", "helptext", "loadtable", "balloontext"),
+    ("retell",),  # the library's sentences in the user's terms (layout says warnings)
     ("aloftwords",),
     ("balloon", "groups", "output", "machine", "state", "typed", "hazardtext"),
     ("altimetry",),  # library extras over the core: altimetry.py over indicated.py,

@@ -27,6 +27,21 @@ def test_split_number_is_the_decimal_grammar(tok):
     assert float(head) == float(split_number(tok)[0])
 
 
+def test_lapse_rate_units():
+    # 9 F/1000ft = 5 C/1000ft = 5 / 0.3048 K/km; 1 C/100m = 10 K/km.
+    assert number("9F/1000ft", "l", "k/km") == pytest.approx(5.0 / 0.3048, rel=1e-12)
+    assert number("-1.8f/1000ft", "l", "k/km") == pytest.approx(-1.0 / 0.3048, rel=1e-12)
+    assert number("0.65C/100m", "l", "k/km") == pytest.approx(6.5, rel=1e-12)
+    assert number("2K/1000ft", "l", "k/km") == pytest.approx(2.0 / 0.3048, rel=1e-12)
+
+
+def test_numbers_beyond_any_quantity_are_refused():
+    assert number("1e30", "h", "m") == 1e30
+    for tok in ("1.005e30", "-1.005e30", "1e31ft", "9" * 40):
+        with pytest.raises(ValueError, match="too large a number; accepted up to 1e30"):
+            number(tok, "h", "m")
+
+
 def test_numbers_with_exponents_and_units():
     # 1 ft = 0.3048 m, 1 km = 1000 m (exact).
     assert number("1.5e+3ft", "h", "m") == pytest.approx(1500 * 0.3048, abs=1e-9)
@@ -86,6 +101,8 @@ def test_shown_keeps_the_printable_ends():
     (30.0, "c/1000ft", "l", "9.14 C/1000ft"), (30.0, "k/1000ft", "l", "9.14 K/1000ft"),
     (30.0, "f/1000ft", "l", "16.5 F/1000ft"), (25.0, "c/100m", "l", "2.5 C/100m"),
     (25.0, "k/100m", "l", "2.5 K/100m"), (30.0, "k/km", "l", "30 K/km"),
+    (26.4, "c/100m", "l", "2.6 C/100m"), (26.4, "k/100m", "l", "2.6 K/100m"),
+    (1013.25, "kpa", "p", "101.3 kPa"), (33.0, "c/1000ft", "l", "10.06 C/1000ft"),
     (60.0, "f", "t", "140 F"), (-90.0, "k", "t", "183 K"), (5.55, "c", "t", "5.55 C"),
     (-0.001, "c", "t", "0 C"), (9.999, "c", "t", "10 C"), (10.0, "m", "h", "10 m"),
     (1.0, "f", "dt", "1.8 F"), (10.0, "degf", "dt", "18 F"), (10.0, "k", "dt", "10 K"),

@@ -132,10 +132,16 @@ def warning_lines(s, rep, keys):
     ones about the whole column and its inputs, and "LABEL above the column top (N)"
     in the display unit for each key whose level lies above the top."""
     said = [w for w in rep["warnings"] if ": %s (" % ABOVE not in w]
-    if said:
-        # The library's sentences speak m and degC: said again in the display units.
-        from lapsecalc.retell import retell
-        said = [retell(s, s.state, w) for w in said]
+    # The library's sentences speak m and degC: one with a height and ft shown, or a
+    # temperature and F shown, is said again (lapsecalc.retell, loaded only then: a
+    # board's heap); else only "degC" is said "C".
+    for i in range(len(said)):
+        w = said[i]
+        if (s.disp["h"] == "ft" and " m " in w) or (s.disp["t"] == "f" and " degC" in w):
+            from lapsecalc.retell import retell
+            said[i] = retell(s, s.state, w)
+        else:
+            said[i] = w.replace(" degC", " C")
     for k in rep.get("levels_above_top", ()):
         if k in keys:
             said.append("%s: %s (%s)" % (LABELS[k][0].strip(), ABOVE,

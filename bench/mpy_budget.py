@@ -93,8 +93,10 @@ WORD_FACTOR = 1.5
 # session (a) 169 -> 199 KiB, (b) 152 -> 156 KiB.
 # Then the balloon and show words left the resident queries module for modules of
 # their own (balloonwords, showword): (a) 195.8 -> 191.3 KiB, (b) 151 -> 145 KiB;
-# then at, da H, iso (atwords) and the typed height (heights): (a) 189.3, (b) 143.
-CEILINGS = {"board_session_heap_bytes": 194 * KIB, "board_report_heap_bytes": 93 * KIB,
+# then at, da H, iso (atwords) and the typed height (heights): (a) 189.3, (b) 143;
+# then the shell holds aliases.py, not typed and units (loaded by the lines that read
+# a number): (a) 189.8 -> 187.8 KiB, (b) 142 -> 143 KiB (noise).
+CEILINGS = {"board_session_heap_bytes": 192 * KIB, "board_report_heap_bytes": 93 * KIB,
             "unix_session_kib": 147, "unix_report_kib": 61}
 SESSION_FILE = os.path.join(MPY_DIR, "board_session.txt")
 

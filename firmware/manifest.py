@@ -41,6 +41,7 @@ package(
         "state.py",
         "thermals.py",
         "typed.py",
+        "aliases.py",
         "units.py",
     ),
     base_path="..",

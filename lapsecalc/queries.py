@@ -12,7 +12,7 @@ json form (runs on MicroPython)."""
 # that use them. A new query word: its function here and its entry in QUERIES; the
 # keys it shows in lapsecalc.groups, their text labels in lapsecalc.layout, its help in
 # lapsecalc.helptext.
-from lapsecalc.typed import shown, no_args
+from lapsecalc.aliases import shown, no_args
 from lapsecalc.state import assumed
 
 

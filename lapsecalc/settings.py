@@ -11,7 +11,6 @@
 # depends on them), its help in lapsecalc.helptext.
 from lapsecalc.limits import T_MIN_C, T_MAX_C, ELEV_MIN_M, ELEV_MAX_M, DEW_SLACK_K
 from lapsecalc.limits import QNH_MIN_HPA, QNH_MAX_HPA, P_MIN_HPA, P_MAX_HPA
-from lapsecalc.column import TOP_MAX_M
 from lapsecalc.typed import number, shown, value, said, unit_of, digits, in_unit
 from lapsecalc.output import f_h1, f_t, f_dt, f_p, f_lapse
 
@@ -180,6 +179,7 @@ def _s_elr(s, new, args):
                 raise ValueError("layer top %s is not above %s" % (
                     said(parts[1], s.disp["h"]),
                     "the field" if not below else "the layer below (%s AGL)" % f_h1(s, below)))
+            from lapsecalc.column import TOP_MAX_M  # (the column's code: only when needed)
             top = below = value(parts[1], "h", s.disp["h"], below + 1.0, TOP_MAX_M)
         elif k != len(args) - 1:
             raise ValueError("'%s' has no @top; only the last layer runs to the column top"
@@ -190,6 +190,7 @@ def _s_elr(s, new, args):
 
 
 def _s_top(s, new, args):
+    from lapsecalc.column import TOP_MAX_M
     new["top_m"] = value(args[0], "h", s.disp["h"], -400.0, TOP_MAX_M)
     return "top " + echo(s, args[0], "h", s.disp["h"], new["top_m"]) + " MSL"
 

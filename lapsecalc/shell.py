@@ -12,9 +12,10 @@
 # settings are imported by the line that uses them) ->
 # lapsecalc.layout (text lines, loaded by text output) -> lapsecalc.groups (result
 # keys), lapsecalc.output (display units, acks, kv values), lapsecalc.state (state
-# keys, defaults, the Column), lapsecalc.typed (numbers, units, aliases) -> the library.
-from lapsecalc.typed import (ALIASES, AMBIGUOUS, shown, starts_number, nearest, near_unit,
-                             is_unit, join_words)
+# keys, defaults, the Column), lapsecalc.typed (numbers, units; loaded by the lines
+# that read one), lapsecalc.aliases (other names of words, slips) -> the library.
+from lapsecalc.aliases import (ALIASES, AMBIGUOUS, PAIRS, shown, split_number, starts_number,
+                               nearest)
 from lapsecalc.state import AIR_KEYS, missing, build_column, dewpoint_of, settle
 from lapsecalc.queries import QUERIES
 
@@ -39,7 +40,7 @@ PHYSICS_MODULES = ("parcel", "stability", "hazards", "aloft", "altimetry", "indi
                    "balloon", "adiabats", "column", "condensation", "standard", "moisture",
                    "constants")
 WORD_MODULES = PHYSICS_MODULES + (
-    "settings", "commands", "output", "machine", "groups", "helptext", "chart", "loadtable",
+    "settings", "commands", "typed", "units", "output", "machine", "groups", "helptext", "chart", "loadtable",
     "balloontext", "metar", "demo", "layout", "showword",
     "balloonwords", "atwords", "heights", "hazardtext", "altitext", "aloftwords",
     "retell")
@@ -73,6 +74,7 @@ def _unknown(word, settings_only=False, number_next=False, after=None):
     # is said to be one; right after a number a slip of a unit is a unit ("6500 fet");
     # in a line of settings only settings are suggested; a first word followed by a
     # number, only words that take one.
+    from lapsecalc.typed import is_unit, near_unit
     if is_unit(word):
         return "'%s' is a unit: write it after its number, e.g. elev 6500 ft" % shown(word)
     if word.lower() in AMBIGUOUS:
@@ -91,6 +93,19 @@ def _unknown(word, settings_only=False, number_next=False, after=None):
     near = ALIASES.get(near, near)
     return "unknown word '%s'; %s(help lists the words)" % (
         shown(word), "did you mean '%s'? " % near if near else "")
+
+
+def joined(words):
+    """words with a unit typed after a space joined to its number and two-word names
+    made one (lapsecalc.typed.join_words, loaded only when a line may need it: a word
+    after a bare number, or a pair)."""
+    for i in range(1, len(words)):
+        prev = words[i - 1].split("@")[-1]
+        if (words[i - 1].lower(), words[i].lower()) in PAIRS or \
+                split_number(prev) == (prev, ""):
+            from lapsecalc.typed import join_words
+            return join_words(words)
+    return words
 
 
 def _is_kv(line):
@@ -207,7 +222,7 @@ class Session:
         if len(line) > _MAX_LINE:
             raise ValueError("line of %d characters refused; accepted at most %d"
                              % (len(line), _MAX_LINE))
-        words = join_words(split_line(line))
+        words = joined(split_line(line))
         if not words:
             return []
         w = words[0].lower()

@@ -3,7 +3,7 @@ as keys in kv and json (runs on MicroPython; loaded only by the show line)."""
 # Sources: ICAO standard atmosphere for the defaults said (lapsecalc.state).
 from lapsecalc import units
 from lapsecalc.output import f_h, f_t, f_dt, f_p
-from lapsecalc.typed import no_args
+from lapsecalc.aliases import no_args
 from lapsecalc.state import dewpoint_of, STANDARD_QNH_HPA, ISA_LAPSE_K_PER_KM, DEFAULT_TOP_M
 from lapsecalc.state import DEFAULT_TROP_M
 

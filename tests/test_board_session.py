@@ -98,6 +98,19 @@ def test_the_shell_knows_the_words_of_its_lazy_tables():
     assert "settings" in shell.WORD_MODULES and "commands" in shell.WORD_MODULES
 
 
+def test_the_shell_joins_words_as_typed_does():
+    # shell.joined loads typed.join_words only when a line may need it; it gives what
+    # join_words gives on every line.
+    from lapsecalc.typed import join_words
+    lines = session_lines() + ["elev 6500 ft", "field elevation 411 m", "elr 8@2 km 6.5",
+                               "temp 27 C dew 13 degc", "dew point 13C", "at 5000 feet",
+                               "altimeter setting 29.92 inHg", "metar X 9999 FEW045 27/13",
+                               "env 2800 m3 wt 450 kg", "temp 27", "at 700 hPa agl"]
+    for line in lines:
+        words = shell.split_line(line)
+        assert shell.joined(words) == join_words(words), line
+
+
 def test_word_modules_are_loaded_only_by_their_words():
     # A dropped module that a resident one imports at its top would stay loaded anyway.
     resident, todo = set(), ["shell"]

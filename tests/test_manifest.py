@@ -144,6 +144,7 @@ INTERPRETER_LAYERS = (
     ("retell",),  # the library's sentences in the user's terms (layout says warnings)
     ("aloftwords",),
     ("balloon", "groups", "output", "machine", "state", "typed", "hazardtext"),
+    ("aliases",),
     ("altimetry",),  # library extras over the core: altimetry.py over indicated.py,
     ("indicated",),  # which column.report() tries under "except ImportError"
 )

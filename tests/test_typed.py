@@ -6,7 +6,8 @@ import re
 
 import pytest
 
-from lapsecalc.typed import split_number, number, shown, nearest, _edit_distance
+from lapsecalc.typed import split_number, number, shown, nearest
+from lapsecalc.aliases import _edit_distance
 
 # A decimal number with an optional sign, at least one digit, at most one point and an
 # optional exponent (the grammar float() accepts, without inf/nan/underscores).

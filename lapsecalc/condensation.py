@@ -33,6 +33,10 @@ def lambert_w_minus1(x):
         l1 = log(-x)
         l2 = log(-l1)
         w = l1 - l2 + l2 / l1
+        if w < -60.0:
+            # exp(w) under 1e-26: W e^W = x loses its digits as exp(w) nears the end of
+            # the float range (-1e-320 did not converge); the log form keeps them.
+            return _lambert_log_form(w, l1)
     for _ in range(_LAMBERT_CAP):
         ew = exp(w)
         f = w * ew - x
@@ -40,8 +44,6 @@ def lambert_w_minus1(x):
         if wp1 == 0.0:
             return w
         den = ew * wp1 - (w + 2.0) * f / (2.0 * wp1)
-        if den == 0.0:
-            return _lambert_log_form(w, log(-x))
         step = f / den
         w -= step
         if fabs(step) <= _LAMBERT_TOL * fabs(w):
@@ -50,8 +52,9 @@ def lambert_w_minus1(x):
 
 
 def _lambert_log_form(w, ln_mx):
-    # W_-1 where exp(w) underflows (x within ~1e-300 of 0): Newton steps on the log
-    # form w + ln(-w) = ln(-x), at most 12, to 1e-6 relative (float32 reaches it).
+    # W_-1 for x within about 5e-25 of 0 (w below -60), from the start w: Newton steps
+    # on the log form w + ln(-w) = ln(-x), at most 12, to 1e-6 relative (float32
+    # reaches it).
     for _ in range(_LAMBERT_CAP):
         step = (w + log(-w) - ln_mx) / (1.0 + 1.0 / w)
         w -= step

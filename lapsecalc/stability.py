@@ -233,8 +233,9 @@ def _illinois(f, a, fa, b, fb, what="the convective condensation level"):
 
 
 def report_keys():
-    """The keys add_to_report, then add_warnings set, in their order (a list made
-    afresh: see column.report_keys)."""
+    """The report's keys from here on, in its order: add_to_report's, then
+    cloud_layers_msl_m (Column.report), add_warnings' and cautions (Column.report:
+    CAUTIONS, or lapsecalc.hazards). A list made afresh: see column.report_keys."""
     return ["stability", "stability_layers", "lapse_0_3km_k_per_km", "lapse_0_3km_class",
             "lapse_700_500_k_per_km", "lapse_700_500_class", "lfc_msl_m", "el_msl_m",
             "el_above_top", "cape_j_kg", "cin_j_kg", "lifted_index_c", "thermal_excess_c",
@@ -279,15 +280,8 @@ def add_to_report(col, levels, r, excess_c=0.0):
         (col.t_at(z_ccl) + T0_K) * exp(KAPPA * log(col.p_hpa / col.p_at(z_ccl))) - T0_K
 
 
-# Report keys whose None can mean "above the column top" (add_warnings).
-ABOVE_TOP = ("cloud_base_msl_m", "freezing_level_msl_m", "minus10_level_msl_m",
-             "minus20_level_msl_m", "parcel_freezing_level_msl_m", "lfc_msl_m", "el_msl_m",
-             "thermal_top_msl_m", "ccl_msl_m", "lapse_0_3km_k_per_km",
-             "lapse_700_500_k_per_km")
-
-
 def add_warnings(col, r):
-    """Add levels_above_top (the keys of ABOVE_TOP whose None means "above the column
+    """Add levels_above_top (the report keys whose None means "above the column
     top": never reached inside it, and it may exist above; an LFC only when the column
     was cut short below its tropopause, as none forms above one; an EL only with
     el_above_top; the 700-500 hPa rate only with 700 hPa above the field) and warnings
@@ -300,7 +294,11 @@ def add_warnings(col, r):
         out.append("The column ends at %.6g m MSL, below the top asked for (%.6g m): %s."
                    % (top, col.top_asked_m, col.end_why))
     keys = []
-    for k in ABOVE_TOP:
+    # The keys whose None can mean "above the column top". A list, not a constant
+    # tuple: a .mpy keeps a tuple's strings as copies, a list shares the module's.
+    for k in ["cloud_base_msl_m", "freezing_level_msl_m", "minus10_level_msl_m",
+              "minus20_level_msl_m", "parcel_freezing_level_msl_m", "lfc_msl_m", "el_msl_m",
+              "thermal_top_msl_m", "ccl_msl_m", "lapse_0_3km_k_per_km", "lapse_700_500_k_per_km"]:
         if r[k] is not None or (k == "el_msl_m" and not r["el_above_top"]) or \
                 (k == "lfc_msl_m" and (col.tropopause_m is not None or not col.end_why)) or \
                 (k == "lapse_700_500_k_per_km" and col.p_hpa <= 700.0):

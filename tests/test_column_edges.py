@@ -185,3 +185,19 @@ def test_z_at_above_the_top_names_the_top_pressure():
         with pytest.raises(ValueError) as err:
             col.z_at(p)
         assert "range %g.." % col.p_at(3000.0) in str(err.value)
+
+
+def test_z_at_edges():
+    col = Column(15.0, 5.0, 1000.0, 0.0, 6.5, top_m=3000.0)
+    # Below 1 hPa the library's own range is named.
+    with pytest.raises(ValueError) as err:
+        col.z_at(0.5)
+    assert "range 1..1000" in str(err.value)
+    # The top's pressure less a relative 1e-11 (rounding of a round trip) is the top.
+    assert col.z_at(col.p_at(3000.0) * (1.0 - 1e-11)) == 3000.0
+
+
+def test_warm_layer_over_a_surface_at_zero():
+    # Air warming upward from a surface at exactly 0 degC: warm air over air at 0 degC.
+    assert Column(0.0, -2.0, 1000.0, 0.0, -5.0, top_m=2000.0).report()["warm_layer_aloft"]
+    assert not Column(0.5, -2.0, 1000.0, 0.0, -5.0, top_m=2000.0).report()["warm_layer_aloft"]

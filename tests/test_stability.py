@@ -240,3 +240,41 @@ def test_steeper_elr_never_lowers_cape(a, steeper):
     c1 = Column.from_qnh(t, t - spread, p, elev, lapse, top_m=10000.0).report()["cape_j_kg"]
     c2 = Column.from_qnh(t, t - spread, p, elev, lapse + steeper, top_m=10000.0).report()["cape_j_kg"]
     assert c2 >= c1 - 0.5
+
+
+def test_bands_tile_each_layer_exactly():
+    # The bands of a layer end exactly at its top (the next layer's foot), whatever
+    # the rounding of the split: the demo field's 6.5 K/km layer to 11 km is 5 bands.
+    col = Column.from_qnh(27.0, 13.0, 1016.0, 411.48, [(250.0, 9.5), (2400.0, 7.5), (None, 6.5)])
+    bands = layers(col)
+    tops = [b["top_msl_m"] for b in bands]
+    for _, z1, _, _, _ in col.layers:
+        assert z1 in tops
+    assert [b["bottom_msl_m"] for b in bands[1:]] == tops[:-1]
+
+
+def test_lapse_700_500_from_a_field_just_below_700_hpa():
+    # A field at 705 hPa still has 700 hPa above it: the 700-500 hPa rate exists
+    # (common practice: the layer's mean ELR), here the column's one rate.
+    col = Column(5.0, -5.0, 705.0, 3000.0, 6.5)
+    r = col.report()
+    assert r["lapse_700_500_k_per_km"] == pytest.approx(6.5, abs=1e-9)
+
+
+def test_thermal_top_half_a_metre_above_a_layer_foot():
+    # A parcel 0.005 K warmer than the air at the top of a dry-adiabatic layer
+    # (DALR g/cp = 9.7676 K/km: the difference stays 0.005 K), then isothermal air:
+    # it stops 0.005 / 9.7676 km = 0.51 m above the foot (closed form).
+    dalr = 1000.0 * 9.80665 / 1004.0
+    col = Column(20.0, 5.0, 1000.0, 0.0, [(1000.0, dalr), (None, 0.0)], top_m=3000.0)
+    assert thermal_top(col, 0.005) == pytest.approx(1000.0 + 0.005 / dalr * 1000.0,
+                                                       abs=0.05)
+
+
+def test_levels_above_a_top_reached_as_asked():
+    # 30 degC at the field, 6.5 K/km, top 3000 m (reached as asked, no tropopause in
+    # it): 0 degC would be at 4615 m, above the top, and is listed as such.
+    r = Column(30.0, 10.0, 1000.0, 0.0, 6.5, top_m=3000.0).report()
+    assert r["freezing_level_msl_m"] is None
+    assert "freezing_level_msl_m" in r["levels_above_top"]
+    assert "lfc_msl_m" not in r["levels_above_top"]

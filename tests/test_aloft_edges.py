@@ -88,3 +88,21 @@ def test_cloud_layer_edges_see_a_temperature_kink_between_dewpoints():
     col = Column(20.0, 10.0, 1000.0, 0.0, aloft=[(1000.0, 16.0, None), (2000.0, 0.0, -1.0)])
     (a, b), = col.report()["cloud_layers_msl_m"]
     assert abs(a - (1000.0 + 1000.0 * 8.5 / 10.5)) < 1e-6 and b == 2000.0
+
+
+def test_a_pressure_point_a_metre_under_a_height_point_comes_first():
+    # The field as above (600 m, 10 degC, 940 hPa), a height point at 1200 m (7 degC)
+    # and a pressure point about a metre under it (7.005 degC): the pressure point is
+    # the lower node. It lands where the hydrostatic thickness from the field, with the
+    # temperature linear to it, reaches its pressure (log-mean temperature; ICAO Doc
+    # 7488/3 constants): written here.
+    t0, t1 = 283.15, 280.15
+    p1 = 940.0 * (t1 / t0) ** (-G0 / (RD * (t1 - t0) / 600.0))   # pressure at 1200 m
+    p_pt = p1 * math.exp(G0 * 1.0 / (RD * t1))                     # about 1 m lower
+    tp = 280.155
+    col = Column(10.0, 2.0, 940.0, 600.0, 6.5, 11000.0,
+                 aloft=[(1200.0, 7.0, None), (p_pt, tp - 273.15, None, "hPa")])
+    tlm = (tp - t0) / math.log(tp / t0)
+    z_pt = 600.0 + RD / G0 * tlm * math.log(940.0 / p_pt)
+    assert 1198.0 < z_pt < 1200.0
+    assert abs(col.aloft_m[0] - z_pt) < 1e-6 and col.aloft_m[1] == 1200.0

@@ -46,6 +46,9 @@ def test_section_needs_the_height_inside_the_column():
         got = s.feed("report")
         assert not any(x.startswith("error") for x in got), top
         assert bool(section(got)) == shown, top
+    # In metres the line is for 300 m: a top exactly 300 m above the field has it.
+    s = session(COLD.replace("top 9000m", "top 1050m"), "unit m")
+    assert section(s.feed("report"))[0].endswith("at 300 m AGL")
 
 
 def test_cold_word_from_zero_up_to_the_column_top():

@@ -118,5 +118,5 @@ def check(s, new, p_stn):
                              " the station pressure %s" % (level_text(s, pt), f_p(s, p_stn, True)))
     trop = new.get("trop_m")
     if trop is not None and elev is not None and trop < elev + 100.0:
-        raise ValueError("trop %s is less than 100 m (330 ft) above the field (%s)"
+        raise ValueError("trop %s is less than 100 m (328 ft) above the field (%s)"
                          % (f_h1(s, trop), f_h1(s, elev)))

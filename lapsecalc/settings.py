@@ -306,7 +306,7 @@ def whole(s, new):
                              % (f_p(s, press[1], True), f_h1(s, elev), lo[:lo.find(" ")], hi))
     top = new.get("top_m")
     if top is not None and elev is not None and top < elev + 100.0:
-        raise ValueError("top %s is less than 100 m (330 ft) above the field (%s)"
+        raise ValueError("top %s is less than 100 m (328 ft) above the field (%s)"
                          % (f_h1(s, top), f_h1(s, elev)))
     if "aloft" in new or new.get("trop_m") is not None:
         p_stn = None

@@ -100,5 +100,5 @@ def test_ends_of_the_column_are_taken():
     assert s.feed("aloft 16000m -60C")[0].startswith("ok")
     assert said(s, "aloft 16000.5m -60C").startswith("error: aloft 52495 ft is above the column top")
     assert said(s, "trop 100m") == "ok: tropopause 100 m (328 ft)"
-    assert said(s, "trop 99.9m").startswith("error: trop 328 ft is less than 100 m (330 ft)")
+    assert said(s, "trop 99.9m").startswith("error: trop 328 ft is less than 100 m (328 ft)")
     assert s.state["trop_m"] == 100.0

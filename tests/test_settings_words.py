@@ -148,6 +148,7 @@ def test_temperatures_that_look_like_fahrenheit():
         ("temp 20 dew 59", ["error: dew 59.0 C is above temp 20.0 C; a dewpoint cannot"
                             " exceed the temperature"]),
         ("temp 20 dew 20.04", ["ok: temp 20 C, dew 20.04 C"]),   # within 0.05 K: rounding
+        ("temp 20 dew 20.05", ["ok: temp 20 C, dew 20.05 C"]),   # 0.05 K over: still taken
         ("temp 20 dew 20.06", ["error: dew 20.1 C is above temp 20.0 C; a dewpoint cannot"
                                " exceed the temperature"]),
     ])
@@ -171,8 +172,12 @@ def test_whole_line_checks():
             "error: stn 500.0 hPa at elev 1350 ft gives a QNH outside 850..1100 hPa; check"
             " both"]),
         ("elev 1350ft top 1600ft", [
-            "error: top 1600 ft is less than 100 m (330 ft) above the field (1350 ft)"]),
+            "error: top 1600 ft is less than 100 m (328 ft) above the field (1350 ft)"]),
         ("elev 1350ft top 1700ft", ["ok: elev 1350 ft (411 m) MSL, top 1700 ft (518 m) MSL"]),
+        # exactly 100 m above the field is enough (100 m = 328.08 ft)
+        ("elev 0 top 100m", ["ok: elev 0 ft (0 m) MSL, top 100 m (328 ft) MSL"]),
+        ("elev 0 top 99.9m", ["error: top 328 ft is less than 100 m (328 ft) above the field"
+                              " (0 ft)"]),
         ("tmax 90C tenv 95C", ["error: working temp tenv 95.0 C is above the maximum tmax"
                                " 90.0 C; allowed up to tmax"]),
         ("tmax 95C tenv 95C", ["ok: tmax 95 C, tenv 95 C"]),
@@ -239,4 +244,22 @@ def test_a_slip_of_a_unit_after_a_number_is_suggested_as_a_unit():
                             " the words)"]),
         ("temp 20 xyzzy", ["error: unknown word 'xyzzy'; (help lists the words)"]),
         ("elev 6500 ft", ["ok: elev 6500 ft (1981 m) MSL"]),
+    ])
+
+
+def test_points_aloft_against_the_station_pressure():
+    # A pressure point must lie under the station pressure: the one set (stn), or
+    # from QNH (1013.25 hPa, standard, when none) at the field.
+    run([
+        ("elev 1350ft stn 967hPa", ["ok: elev 1350 ft (411 m) MSL, station 967 hPa"]),
+        ("aloft 950hPa 15C", ["ok: aloft 950hPa 15C, 1 point set"]),
+        ("aloft 967hPa 15C", ["error: aloft 967.0 hPa is not above the field: its pressure"
+                              " is not under the station pressure 967.0 hPa"]),
+        ("clear", ["ok: cleared all settings"]),
+        ("elev 0", ["ok: elev 0 ft (0 m) MSL"]),
+        ("aloft 1013hPa 10C", ["ok: aloft 1013hPa 10C, 1 point set"]),
+        ("aloft 1020hPa 10C", ["error: aloft 1020.0 hPa is not above the field: its pressure"
+                               " is not under the station pressure 1013.2 hPa"]),
+        ("qnh 1030", ["ok: QNH 1030 hPa"]),
+        ("aloft 1020hPa 10C", ["ok: aloft 1020hPa 10C, 2 points set"]),
     ])

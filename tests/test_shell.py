@@ -882,7 +882,7 @@ def test_errors_name_the_problem_and_what_is_accepted():
         # A station pressure whose QNH at the elevation is out of range.
         ("stn 1000 elev 3000m", ["error: stn 1000.0 hPa at elev 9843 ft gives a QNH"
                                  " outside 850..1100 hPa; check both"]),
-        ("top 1400", ["error: top 1400 ft is less than 100 m (330 ft) above the field"
+        ("top 1400", ["error: top 1400 ft is less than 100 m (328 ft) above the field"
                       " (1350 ft)"]),
     ])
     s.feed("unit m F inHg")
@@ -1359,7 +1359,7 @@ def test_aloft_and_trop_refusals_change_nothing():
             ("aloft FL600 -56C", "above the column top"),
             ("aloft 8000ft 5C 8000ft 4C/9C", "dew 9 C is above temp 4 C"),
             ("aloft 8000ft 5C/1C/0C", "write TEMP or TEMP/DEW"),
-            ("trop 1000ft", "trop 1000 ft is less than 100 m (330 ft) above the field"),
+            ("trop 1000ft", "trop 1000 ft is less than 100 m (328 ft) above the field"),
             ("trop 200000ft", "is outside"),
             ("trop high", "'high' is not a number"),
             ("elev 7000ft", "aloft 6000 ft is not above the field (elev 7000 ft)")):

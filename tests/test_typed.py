@@ -124,6 +124,9 @@ def test_said_and_value_in_the_users_words():
     assert said("700", "ft") == "700 ft" and said("2.5km", "ft") == "2.5 km"
     assert said("45%", "%") == "45 %" and said("-0C", "f") == "0 C"
     assert said("abc", "ft") == "abc" and said("27degf", "c") == "27 F"
+    # the digits said back: at most 16 of them
+    assert said("1234567890123456", "ft") == "1234567890123456 ft"
+    assert said("12345678901234567", "ft") == "1234567890123456... ft"
     assert value("1100", "p", "hpa", 850.0, 1100.0) == 1100.0
     assert value("850", "p", "hpa", 850.0, 1100.0) == 850.0
     with pytest.raises(ValueError, match=r"^99 C is outside -90\.\.60 C$"):
@@ -151,6 +154,8 @@ def test_units_of_typed_numbers():
 
 def test_words_joined():
     assert join_words(["field", "elevation", "1350", "ft"]) == ["elev", "1350ft"]
+    assert join_words(["temp", "20", "field", "elevation", "411", "m"]) == [
+        "temp", "20", "elev", "411m"]
     assert join_words(["Field", "Elev", "411", "m"]) == ["elev", "411m"]
     assert join_words(["dew", "point", "13", "C"]) == ["dew", "13C"]
     assert join_words(["altimeter", "setting", "29.92", "inHg"]) == ["qnh", "29.92inHg"]

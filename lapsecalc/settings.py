@@ -10,7 +10,7 @@
 # entry in SETTINGS, its state keys in state.CLEAR (and state.AIR_KEYS when the column
 # depends on them), its help in lapsecalc.helptext.
 from lapsecalc.limits import T_MIN_C, T_MAX_C, ELEV_MIN_M, ELEV_MAX_M, DEW_SLACK_K
-from lapsecalc.limits import QNH_MIN_HPA, QNH_MAX_HPA, P_MIN_HPA, P_MAX_HPA
+from lapsecalc.limits import QNH_MIN_HPA, QNH_MAX_HPA, P_MAX_HPA
 from lapsecalc.typed import number, shown, value, said, unit_of, digits, in_unit
 from lapsecalc.output import f_h1, f_t, f_dt, f_p, f_lapse
 
@@ -21,6 +21,10 @@ except ImportError:
         return x
 
 _MAX_LAYERS = const(12)
+# No field has a station pressure under that of the highest field (elev 9000 m) on
+# the lowest QNH (850 hPa), 246.4 hPa (standard.station_pressure): 240 hPa is a
+# round bound below it, so that 29.92 typed bare (inches) is refused with a hint.
+_STN_MIN_HPA = 240.0
 # Above these a temperature or dewpoint read as degC is hotter than any surface
 # observation (world records about 57 C and 35 C, from memory): likely typed in F.
 _HOT_T_C = 50.0
@@ -155,7 +159,7 @@ def _s_qnh(s, new, args):
 
 
 def _s_stn(s, new, args):
-    v = _pressure(s, args[0], P_MIN_HPA, P_MAX_HPA)
+    v = _pressure(s, args[0], _STN_MIN_HPA, P_MAX_HPA)
     new["press"] = ("stn", v)
     return "station " + echo(s, args[0], "p", s.disp["p"], v)
 

@@ -25,8 +25,12 @@ EDGES = [
               ("29527.5ft", "elevation_m", 29527.5 * FT)], ["9000.01m", "-500.01m"]),
     ("qnh", [("1100", "qnh_hpa", 1100.0), ("850", "qnh_hpa", 850.0),
              ("29.92inHg", "qnh_hpa", 29.92 * INHG)], ["1100.01", "849.99", "29.92"]),
-    ("stn", [("1100hPa", "station_pressure_hpa", 1100.0), ("1hPa", "station_pressure_hpa", 1.0)],
-     ["1100.01hPa", "0.99hPa"]),
+    # stn: down to 240 hPa, under the station pressure of a 9000 m field on QNH
+    # 850 hPa: by the altimeter-setting relation p^n = QNH^n - p0^n L h / T0 (ICAO Doc
+    # 7488/3, n = 0.190263, L = 6.5 K/km, T0 = 288.15 K, p0 = 1013.25 hPa) 246.4 hPa
+    ("stn", [("1100hPa", "station_pressure_hpa", 1100.0),
+             ("240hPa", "station_pressure_hpa", 240.0)],
+     ["1100.01hPa", "239.9hPa", "29.92", "0.99hPa"]),
     ("top", [("32000m", "top_msl_m", 32000.0), ("-400m", "top_msl_m", -400.0)],
      ["32000.01m", "-400.01m"]),
     ("excess", [("10K", "thermal_excess_c", 10.0), ("0K", "thermal_excess_c", 0.0)],

@@ -104,9 +104,11 @@ def test_hints_for_another_units_habit_at_their_edges():
         ("qnh 2500", ["error: qnh 2500 hPa is outside 850..1100 hPa; for 25.00 inHg write"
                       " 25.00inHg"]),
         ("qnh 2499", ["error: qnh 2499 hPa is outside 850..1100 hPa"]),
-        ("stn 3012", ["error: stn 3012 hPa is outside 1..1100 hPa; for 30.12 inHg write"
+        ("stn 3012", ["error: stn 3012 hPa is outside 240..1100 hPa; for 30.12 inHg write"
                       " 30.12inHg"]),
         ("qnh 25", ["error: qnh 25 hPa is outside 850..1100 hPa; for inches write 25inHg"]),
+        ("stn 29.92", ["error: stn 29.92 hPa is outside 240..1100 hPa; for inches write"
+                       " 29.92inHg"]),
         ("qnh 33", ["error: qnh 33 hPa is outside 850..1100 hPa; for inches write 33inHg"]),
         ("qnh 33.3", ["error: qnh 33.3 hPa is outside 850..1100 hPa"]),
         ("qnh 24.9", ["error: qnh 24.9 hPa is outside 850..1100 hPa"]),

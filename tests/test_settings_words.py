@@ -55,6 +55,8 @@ def test_acknowledgements_in_the_units_typed_and_shown():
         ("excess 2", ["ok: excess 2 K"]),
         ("margin 18F", ["ok: margin 18 F (+10.0 K) below tmax"]),
         ("superheat 9F", ["ok: superheat 9 F (+5.0 K)"]),
+        ("superheat 0", ["ok: superheat 0 K"]), ("margin 0", ["ok: margin 0 K below tmax"]),
+        ("excess 0", ["ok: excess 0 K"]),
         ("tmax 120C", ["ok: tmax 120 C (248.0 F)"]),
         ("tenv 95C", ["ok: tenv 95 C (203.0 F)"]),
         ("pure 98%", ["ok: purity 98 %"]),
@@ -144,6 +146,8 @@ def test_temperatures_that_look_like_fahrenheit():
         ("temp 55", ["ok: temp 55 C", "check: temp 55 C is hotter than any surface air on"
                                       " record; in F write 55F"]),
         ("dew 32", ["ok: dew 32 C"]),
+        ("dew 32.1", ["ok: dew 32.1 C", "check: dew 32.1 C is higher than any dewpoint on"
+                                        " record; in F write 32.1F"]),
         ("dew 33", ["ok: dew 33 C", "check: dew 33 C is higher than any dewpoint on record;"
                                     " in F write 33F"]),
         ("dew 60F", ["ok: dew 60 F (15.6 C)"]),

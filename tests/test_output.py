@@ -74,6 +74,8 @@ def test_wrap_fits_forty_columns():
     # a word longer than a line is cut into pieces of 38 after the indent
     long = wrap("a " + "z" * 80, "! ")
     assert long == ["! a", "  " + "z" * 38, "  " + "z" * 38, "  " + "z" * 4]
+    # a word of exactly 38 fills its line whole
+    assert wrap("a " + "z" * 38, "! ") == ["! a", "  " + "z" * 38]
     assert wrap("", "ok: ") == ["ok: "]
     assert wrap("one two", "> ", "    ", width=10) == ["> one two"]
     assert wrap("one two three", "> ", "    ", width=10) == ["> one two", "    three"]
@@ -101,6 +103,9 @@ def test_ok_lines():
     # after a wrapped line, a part that fits joins the last line, not the first
     assert ack(S(), ["x" * 30, "y" * 30, "z"]) == ["ok: " + "x" * 30 + ",", "    " + "y" * 30
                                                    + ", z"]
+    # the room is measured on the last line, not the first
+    assert ack(S(), ["x" * 34, "y" * 5, "z" * 20]) == ["ok: " + "x" * 34 + ",",
+                                                       "    yyyyy, " + "z" * 20]
     assert ack(S(mode="kv"), parts, ["temp", "dew"]) == ["ok=temp,dew"]
     assert ack(S(mode="kv"), "out kv") == ["ok=out kv"]
     assert ack(S(mode="json"), "x", ["unit"]) == ['{"ok": ["unit"]}']

@@ -182,3 +182,16 @@ def test_refusal_edges():
             call(e50 / 0.501)
         assert "allowed" in str(err.value)
         assert call(e50 / 0.499) > 0.0
+
+
+def test_limits_themselves_are_taken():
+    # Saturated air at the coldest temperature taken (-90 degC) has its dewpoint there,
+    # not refused as "below -90".
+    assert dewpoint(-90.0, 100.0) == -90.0
+    # Vapour pressure exactly half the pressure is the last one taken: then
+    # r = eps e / (p - e) = eps (the definition; eps = Rd/Rv, about 0.622, Wallace &
+    # Hobbs). A hair less pressure is refused.
+    e = saturation_vapour_pressure(40.0)
+    assert abs(mixing_ratio(40.0, 2.0 * e) - 1000.0 * 287.05287 / 461.5) < 0.1
+    with pytest.raises(ValueError, match="too low"):
+        mixing_ratio(40.0, 2.0 * e - 0.001)

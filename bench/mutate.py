@@ -317,6 +317,20 @@ def run_module(module, tests, max_n, seed, key_filter, python, verbose):
     return entry
 
 
+def _rejudged(e, equiv):
+    # A run's entry with the survivors judged equivalent since (now in the equivalent
+    # file) counted as equivalent, and its score recomputed.
+    moved = [x for x in e["survivors"] if x["key"] in equiv]
+    if not moved:
+        return e
+    e = dict(e, survivors=[x for x in e["survivors"] if x["key"] not in equiv],
+             survived=e["survived"] - len(moved), equivalent=e["equivalent"] + len(moved),
+             equivalent_seen=list(e["equivalent_seen"]) + [x["key"] for x in moved])
+    judged = e["run"] - e["equivalent"]
+    e["score"] = (e["killed"] + e["timeout"]) / judged if judged else 1.0
+    return e
+
+
 def markdown(after, before, equiv):
     """The per-module table (before and after) and the equivalent survivors, as
     Markdown lines."""
@@ -324,6 +338,7 @@ def markdown(after, before, equiv):
            " before |", "|---|---|---|---|---|---|---|---|---|"]
     tot = dict.fromkeys(("mutants", "run", "killed", "timeout", "survived", "equivalent"), 0)
     btot = [0, 0]
+    after = dict((name, _rejudged(e, equiv.get(name, {}))) for name, e in after.items())
     for name in sorted(after):
         e = after[name]
         b = before.get(name)

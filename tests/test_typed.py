@@ -160,6 +160,8 @@ def test_words_joined():
     assert join_words(["dew", "point", "13", "C"]) == ["dew", "13C"]
     assert join_words(["altimeter", "setting", "29.92", "inHg"]) == ["qnh", "29.92inHg"]
     assert join_words(["elr", "8@2", "km"]) == ["elr", "8@2km"]
+    # the unit joins the top after "@", whatever the rate carries
+    assert join_words(["elr", "2C/1000ft@3000", "ft"]) == ["elr", "2C/1000ft@3000ft"]
     assert join_words(["elev", "6500", "feet"]) == ["elev", "6500ft"]
     assert join_words(["elev", "6500ft", "ft"]) == ["elev", "6500ft", "ft"]
     assert join_words(["ft", "6500"]) == ["ft", "6500"]
@@ -171,3 +173,13 @@ def test_words_joined():
     assert ALIASES["altimeter"] == "qnh" and ALIASES["elevation"] == "elev"
     assert ALIASES["oat"] == "temp" and ALIASES["dp"] == "dew" and ALIASES["dewpoint"] == "dew"
     assert "alt" not in ALIASES and "qnh" in AMBIGUOUS["alt"] and "elev" in AMBIGUOUS["alt"]
+
+
+def test_exponent_digits_and_nearest_ties():
+    assert split_number("2e9") == ("2e9", "") and split_number("1E-9ft") == ("1E-9", "ft")
+    # ties go to the first known word in sorted order
+    assert nearest("ab", ["bb", "ax"]) == "ax"
+    # a word is compared by its first 16 letters: 2 edits there, 3 in 17
+    assert nearest("abcdefghijklmnxyz", ["abcdefghijklmnop"]) == "abcdefghijklmnop"
+    # not as many edits as the word has letters: "ab" is not a slip of "xy"
+    assert nearest("ab", ["xy"]) is None and nearest("abc", ["xyc"]) == "xyc"

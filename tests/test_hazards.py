@@ -82,7 +82,7 @@ def test_report_frost_fog_and_ice_fog():
 def test_fog_threshold_is_3_k():
     # Spread 3 K or less: fog or low stratus likely (common practice).
     assert fog_risk(10.0, 7.0) is True
-    assert fog_risk(10.0, 6.9) is False
+    assert fog_risk(10.0, 6.98) is False
 
 
 # ---- carburettor icing ----
@@ -105,11 +105,21 @@ CARB_CORNERS = (
 @pytest.mark.parametrize("t, rh, inside, outside", CARB_CORNERS)
 def test_carb_icing_band_corners(t, rh, inside, outside):
     assert carb_icing(t, _td(t, rh + 0.5)) == inside
-    # Just past the corner in temperature, then in humidity.
-    step = 0.5 if t > 0.0 else -0.5
+    # Just past the corner in temperature (0.1 K), then in humidity (0.5 %).
+    step = 0.1 if t > 0.0 else -0.05
     assert carb_icing(t + step, _td(t + step, rh + 0.5)) == outside
     if outside != "unlikely" or rh > 30.0:
         assert carb_icing(t, _td(t, rh - 0.5)) != inside
+
+
+@pytest.mark.parametrize("rh, band", ((85.0, "any_power"), (65.0, "cruise_and_glide"),
+                                      (55.0, "glide"), (35.0, "light")))
+def test_carb_icing_bands_start_at_minus_10(rh, band):
+    # Every band's cold edge is -10 degC (CAA Safety Sense Leaflet 14 chart, from
+    # memory): inside at -10 and at -5 degC, outside just below -10 degC.
+    assert carb_icing(-10.0, _td(-10.0, rh)) == band
+    assert carb_icing(-5.0, _td(-5.0, rh)) == band
+    assert carb_icing(-10.05, _td(-10.05, rh)) == "unlikely"
 
 
 def test_carb_icing_report_and_caution():
@@ -382,6 +392,50 @@ def test_icing_band_function_matches_the_report():
                         r["icing_band_basis"])
 
 
+def test_a_point_at_exactly_0_c_does_not_split_an_icing_layer():
+    # Invented: -5 degC at the field, a point at exactly 0 degC at 1500 m, colder above;
+    # the air touches 0 degC there and turns back: one cloud layer (spread 1 K up to
+    # 3000 m, 20 K at 5000 m: 3 K at 3000 + 2000 * 2/19 m by hand), one icing layer.
+    pts = [(1500.0, 0.0, -1.0), (3000.0, -10.0, -11.0), (5000.0, -30.0, -50.0)]
+    r = Column(-5.0, -6.0, 1000.0, 0.0, 6.5, 9000.0, aloft=pts).report()
+    assert r["freezing_levels_msl_m"] == [1500.0]
+    top = 3000.0 + 2000.0 * 2.0 / 19.0
+    assert r["cloud_layers_msl_m"] == [pytest.approx([0.0, top])]
+    assert r["icing_layers_msl_m"] == [pytest.approx([0.0, top])]
+    assert (r["icing_band_bottom_msl_m"], r["icing_band_top_msl_m"]) == pytest.approx((0.0, top))
+
+
+@pytest.mark.parametrize("t, want", ((0.0, (1000.0, None)), (-20.0, (0.0, 2000.0)),
+                                     (0.005, (2001.0, None))))
+def test_isothermal_cloud_at_the_band_edges(t, want):
+    # Invented: a cloud layer isothermal at t from 1000 to 2000 m, 5 K/km colder above
+    # to 3000 m (dewpoints to there), 3 K/km warmer below. 0 and -20 degC belong to the
+    # band (0 to -20 degC, common practice); +0.005 degC does not: by hand the band
+    # starts at 1000 m (0 degC), at the field (-17 degC there; ends at 2000 m where the
+    # air passes -20 degC) or at 2001 m (where the air passes 0 degC).
+    pts = [(1000.0, t, t - 1.0), (2000.0, t, t - 1.0), (3000.0, t - 5.0, t - 25.0)]
+    r = Column(t + 3.0, t + 2.0, 1000.0, 0.0, 6.5, 9000.0, aloft=pts).report()
+    got = (r["icing_band_bottom_msl_m"], r["icing_band_top_msl_m"])
+    assert got[0] == pytest.approx(want[0], abs=0.01)
+    assert (got[1] is None) == (want[1] is None)
+    if want[1] is not None:
+        assert got[1] == pytest.approx(want[1], abs=0.01)
+
+
+def test_band_from_layers_and_cumulus_reaches_the_higher_top():
+    # A moist layer near 5-6 km (icing layer) under the cumulus of a hot moist field:
+    # the band runs to the convective band's top (about 8.8 km), above the layer's.
+    pts = [(3000.0, 9.5, 0.0), (5500.0, -8.0, -9.0), (12000.0, -60.0, -75.0)]
+    r = Column(32.0, 22.0, 1000.0, 100.0, 7.5, 14000.0, aloft=pts).report()
+    bare = Column(32.0, 22.0, 1000.0, 100.0, 7.5, 14000.0,
+                  aloft=[(z, t, None) for z, t, _ in pts]).report()
+    (a, b), = r["icing_layers_msl_m"]
+    assert bare["icing_band_basis"] == "parcel" and b < bare["icing_band_top_msl_m"]
+    assert r["icing_band_basis"] == "layers"
+    assert r["icing_band_top_msl_m"] == pytest.approx(bare["icing_band_top_msl_m"])
+    assert r["icing_band_bottom_msl_m"] == pytest.approx(min(a, bare["icing_band_bottom_msl_m"]))
+
+
 def test_band_from_layers_keeps_the_convective_cloud():
     # A hot moist field with dewpoints aloft: the cumulus (an LFC) widens the band
     # (conservative): it reaches at least the convective band's top.
@@ -481,6 +535,15 @@ def test_thermal_cloud_base_is_the_heated_parcels_lcl(t, spread, excess, elev):
     assert r["thermal_cloud_base_msl_m"] == pytest.approx(want, abs=1e-6)
     if excess == 0.0:
         assert r["thermal_cloud_base_msl_m"] == pytest.approx(r["cloud_base_msl_m"])
+
+
+def test_thermal_cloud_base_with_a_tiny_excess():
+    # 0.01 K is an excess too: the heated base (cloud_base(t + 0.01, td, p)) is about
+    # 1.2 m above the unheated one (Romps: about 122 m per K of spread).
+    r = Column(20.0, 10.0, 1000.0, 0.0, 7.0).report(0.01)
+    want = cloud_base(20.01, 10.0, 1000.0)[0]
+    assert r["thermal_cloud_base_msl_m"] == pytest.approx(want, abs=1e-9)
+    assert 1.0 < want - r["cloud_base_agl_m"] < 1.5
 
 
 def test_usable_thermal_top_is_the_lower_of_dry_top_and_cloud_base():

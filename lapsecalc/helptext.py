@@ -98,7 +98,7 @@ HELP = {
               "  3 K or less), ice fog, and the",
               "  carburettor icing band (after",
               "  the CAA leaflet chart on piston",
-              "  engine icing; edges approximate)"),
+              "  engine icing; edges from memory)"),
     "da": ("da [H]   density altitude at the",
            "  field, or the air at height H",
            "  (as at). da 9500ft  da FL85"),

@@ -610,7 +610,8 @@ def test_capped_deck_variants():
     assert kind == "capped" and cap == pytest.approx(1500.0)
     # A cooling layer above the base (no inversion): cumulus, even where the parcel's EL
     # is low; a single steep layer: cumulus.
-    kind, cap, r = _kind(15.0, 13.0, [(300.0, 12.0), (None, 4.0)], 8000.0, 1.0)
+    kind, cap, r = _kind(15.0, 14.0, [(300.0, 12.0), (None, 4.0)], 8000.0, 1.0)
+    assert r["thermal_cloud_base_msl_m"] < 300.0
     assert kind == "cumulus" and cap is None and r["el_msl_m"] < 8000.0
     kind, cap, _ = _kind(25.0, 20.0, 10.0, 8000.0, 1.0)
     assert kind == "cumulus" and cap is None
@@ -619,15 +620,16 @@ def test_capped_deck_variants():
 def test_dry_neutral_mixed_layer_is_stirred_to_its_top():
     # The lowest layer within 0.1 K/km of the dry rate (9.7676 K/km, g/cp; the neutral
     # band of stability.classify): a mixed layer even with no excess, so the deck under
-    # the inversion above it is capped there. At 9.5 K/km (stable for dry thermals) no
-    # thermal rises and it says from which surface temperature they would.
+    # the inversion above it is capped there. At 9.6 K/km (0.17 K/km under the dry
+    # rate: stable for dry thermals) no thermal rises and it says from which surface
+    # temperature they would.
     for elev, p in ((0.0, 1000.0), (300.0, 965.0)):
         r = Column(10.0, 9.0, p, elev, [(600.0, 9.7), (900.0, -5.0), (None, 6.5)]).report(0.0)
         assert r["thermal_top_msl_m"] == elev
         assert r["thermal_kind"] == "capped" and r["capped_cloud_top_msl_m"] == elev + 600.0
         assert r["thermal_usable_top_msl_m"] == r["thermal_cloud_base_msl_m"]
         assert r["dry_thermals_from_t_c"] is None
-    r = Column(10.0, 9.0, 1000.0, 0.0, [(600.0, 9.5), (900.0, -5.0), (None, 6.5)]).report(0.0)
+    r = Column(10.0, 9.0, 1000.0, 0.0, [(600.0, 9.6), (900.0, -5.0), (None, 6.5)]).report(0.0)
     assert r["thermal_kind"] == "none" and r["capped_cloud_top_msl_m"] is None
     assert r["thermal_usable_top_msl_m"] is None
     assert r["dry_thermals_from_t_c"] == r["trigger_t_c"] > 10.0

@@ -61,6 +61,12 @@ def test_rh_over_ice_is_100_at_the_frost_point():
 def test_frost_and_rh_ice_refuse_warm_input():
     with pytest.raises(ValueError, match="td_c=2"):
         frost_point(2.0)
+    # Dewpoints -90..0 degC (the library's range; ice needs 0 degC or below).
+    with pytest.raises(ValueError, match="td_c=0.005"):
+        frost_point(0.005)
+    with pytest.raises(ValueError, match="td_c=-90.5"):
+        frost_point(-90.5)
+    assert frost_point(-90.0) < -80.0
     with pytest.raises(ValueError, match="t_c=3"):
         relative_humidity_ice(3.0, -5.0)
 
@@ -104,12 +110,12 @@ CARB_CORNERS = (
 
 @pytest.mark.parametrize("t, rh, inside, outside", CARB_CORNERS)
 def test_carb_icing_band_corners(t, rh, inside, outside):
-    assert carb_icing(t, _td(t, rh + 0.5)) == inside
-    # Just past the corner in temperature (0.1 K), then in humidity (0.5 %).
+    assert carb_icing(t, _td(t, rh + 0.2)) == inside
+    # Just past the corner in temperature (0.1 K), then in humidity (0.2 %).
     step = 0.1 if t > 0.0 else -0.05
-    assert carb_icing(t + step, _td(t + step, rh + 0.5)) == outside
+    assert carb_icing(t + step, _td(t + step, rh + 0.2)) == outside
     if outside != "unlikely" or rh > 30.0:
-        assert carb_icing(t, _td(t, rh - 0.5)) != inside
+        assert carb_icing(t, _td(t, rh - 0.2)) != inside
 
 
 @pytest.mark.parametrize("rh, band", ((85.0, "any_power"), (65.0, "cruise_and_glide"),

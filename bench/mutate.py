@@ -73,7 +73,7 @@ DEFAULT_TESTS = {
     "thermals": ["test_hazards.py", "test_report_keys.py", "test_stability.py"],
     "icing": ["test_hazards.py", "test_report_keys.py", "test_column_edges.py", "test_chart.py"],
     "precip": ["test_hazards.py", "test_report_keys.py", "test_float32.py"],
-    "fieldrisk": ["test_hazards.py", "test_report_keys.py", "test_shell.py"],
+    "fieldrisk": ["test_hazards.py", "test_report_keys.py"],
     "loadtable": ["test_loadtable.py", "test_balloon.py", "test_shell_values.py"],
     "aloft": ["test_aloft_edges.py", "test_aloft.py", "test_report_keys.py", "test_column.py"],
     "aloftwords": ["test_aloft_words.py",

@@ -69,6 +69,9 @@ def test_frost_and_rh_ice_refuse_warm_input():
     assert frost_point(-90.0) < -80.0
     with pytest.raises(ValueError, match="t_c=3"):
         relative_humidity_ice(3.0, -5.0)
+    with pytest.raises(ValueError, match="t_c=0.005"):
+        relative_humidity_ice(0.005, -5.0)
+    assert relative_humidity_ice(0.0, -5.0) < 100.0
 
 
 def test_report_frost_fog_and_ice_fog():

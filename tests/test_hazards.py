@@ -88,6 +88,16 @@ def test_report_frost_fog_and_ice_fog():
     assert not any("fog" in c for c in warm["cautions"])
 
 
+def test_frost_point_and_rh_ice_at_exactly_0_c():
+    # A dewpoint of exactly 0 degC has a frost point (0 degC: water and ice saturate
+    # alike there); air at exactly 0 degC has an RH over ice.
+    r = Column(2.0, 0.0, 1000.0, 0.0).report()
+    assert r["frost_point_c"] == 0.0 and r["rh_ice_pct"] is None
+    r = Column(0.0, -3.0, 1000.0, 0.0).report()
+    assert r["rh_ice_pct"] == pytest.approx(relative_humidity_ice(0.0, -3.0))
+    assert r["frost_point_c"] == pytest.approx(frost_point(-3.0))
+
+
 def test_fog_threshold_is_3_k():
     # Spread 3 K or less: fog or low stratus likely (common practice).
     assert fog_risk(10.0, 7.0) is True

@@ -127,10 +127,15 @@ def precip_type(col, warm=None, seg=None):
     # A warm layer at the ground melts what falls into it.
     if kind == "glaze":
         return "rain"
-    melt = _area(col, seg[0][0], seg[0][1])
-    if melt > BOURGOUIN_SURFACE_RAIN_J_KG:
+    return _ground_type(kind, _area(col, seg[0][0], seg[0][1]))
+
+
+def _ground_type(kind, melt_j_kg):
+    # Bourgouin (2000), from memory: what reaches the ground through a warm layer at the
+    # ground with melting area melt_j_kg, falling into it as kind (snow or ice).
+    if melt_j_kg > BOURGOUIN_SURFACE_RAIN_J_KG:
         return "rain"
-    if melt > BOURGOUIN_SURFACE_SNOW_J_KG:
+    if melt_j_kg > BOURGOUIN_SURFACE_SNOW_J_KG:
         return "rain_or_snow"
     return "snow" if kind == "snow" else "pellets"
 

@@ -202,6 +202,44 @@ def test_no_warm_nose():
     assert precip_type(Column(1.0, 0.0, 1000.0, 0.0, 6.5, 10000.0)) == "snow"
 
 
+# Bourgouin (2000) thresholds, stated from memory (as in lapsecalc/precip.py): a warm
+# layer aloft with a melting area under 2 J/kg leaves snow; refreezing area over
+# 66 + 0.66 x melting area gives ice pellets, under 46 + 0.66 x freezing rain; at the
+# ground, melting over 13.2 J/kg gives rain, over 5.6 J/kg rain or snow.
+@pytest.mark.parametrize("melt, refreeze, want", (
+    (1.99, 0.0, "snow"), (1.99, 500.0, "snow"), (2.01, 0.0, "glaze"),
+    (10.0, 52.5, "glaze"), (10.0, 52.7, "glaze_or_pellets"),
+    (10.0, 72.5, "glaze_or_pellets"), (10.0, 72.7, "pellets"),
+    (100.0, 111.9, "glaze"), (100.0, 112.1, "glaze_or_pellets"),
+    (100.0, 131.9, "glaze_or_pellets"), (100.0, 132.1, "pellets")))
+def test_bourgouin_aloft_thresholds(melt, refreeze, want):
+    from lapsecalc.precip import _aloft_type
+    assert _aloft_type(melt, refreeze) == want
+
+
+@pytest.mark.parametrize("kind, melt, want", (
+    ("snow", 5.5, "snow"), ("pellets", 5.5, "pellets"), ("snow", 5.7, "rain_or_snow"),
+    ("pellets", 13.1, "rain_or_snow"), ("snow", 13.3, "rain"), ("pellets", 13.3, "rain")))
+def test_bourgouin_ground_thresholds(kind, melt, want):
+    from lapsecalc.precip import _ground_type
+    assert _ground_type(kind, melt) == want
+
+
+def test_a_point_at_exactly_0_c_does_not_split_the_cold_layer():
+    # Invented: -5 degC at the field, touching 0 degC at 1000 m, -5 degC at 2000 m, a
+    # warm nose to +3 degC at 2500 m, -10 degC at 3500 m. By hand the air passes
+    # 0 degC at 2000 + 5/8 * 500 m and 2500 + 3/13 * 1000 m: the cold layer beneath
+    # the warm one runs from the field (the touch at 1000 m does not end it).
+    pts = [(1000.0, 0.0, -1.0), (2000.0, -5.0, -6.0), (2500.0, 3.0, 2.0),
+           (3500.0, -10.0, -11.0)]
+    col = Column(-5.0, -6.0, 1000.0, 0.0, 6.5, 9000.0, aloft=pts)
+    w = warm_layer(col)
+    assert w["warm_layer_bottom_msl_m"] == pytest.approx(2312.5)
+    assert w["warm_layer_top_msl_m"] == pytest.approx(2500.0 + 3000.0 / 13.0)
+    assert w["cold_layer_below_depth_m"] == pytest.approx(2312.5)
+    assert w["warm_layer_max_t_c"] == pytest.approx(3.0)
+
+
 def test_weak_warm_nose_leaves_snow():
     # Barely above 0 degC (+0.2 degC) for a few hundred metres: melting area under
     # Bourgouin's 2 J/kg, snow.

@@ -225,6 +225,20 @@ def test_bourgouin_ground_thresholds(kind, melt, want):
     assert _ground_type(kind, melt) == want
 
 
+def test_warm_to_the_column_top():
+    # Invented: -5 degC at the field warming 5 K/km to a 3000 m top (+10 degC): by hand
+    # the warm layer runs from 1000 m to the top over 1000 m of freezing air; drops
+    # form liquid up there (no snow to melt), so Bourgouin's rule sees freezing rain.
+    col = Column(-5.0, -6.0, 1000.0, 0.0, -5.0, 3000.0)
+    w = warm_layer(col)
+    assert w["warm_layer_bottom_msl_m"] == pytest.approx(1000.0)
+    assert w["warm_layer_top_msl_m"] == pytest.approx(3000.0)
+    assert w["warm_layer_max_t_c"] == pytest.approx(10.0)
+    assert w["cold_layer_below_depth_m"] == pytest.approx(1000.0)
+    assert w["refreeze_area_j_kg"] == pytest.approx(-_fine_area(col, 0.0, 1000.0), rel=1e-4)
+    assert precip_type(col) == "glaze"
+
+
 def test_a_point_at_exactly_0_c_does_not_split_the_cold_layer():
     # Invented: -5 degC at the field, touching 0 degC at 1000 m, -5 degC at 2000 m, a
     # warm nose to +3 degC at 2500 m, -10 degC at 3500 m. By hand the air passes

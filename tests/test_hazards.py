@@ -98,6 +98,17 @@ def test_frost_point_and_rh_ice_at_exactly_0_c():
     assert r["frost_point_c"] == pytest.approx(frost_point(-3.0))
 
 
+def test_ice_fog_from_100_percent_over_ice():
+    # Saturated over ice (RH over ice 100 % or more) flags ice fog: 0.05 K under the
+    # frost point (about 100.5 %) it does, 0.05 K over it (about 99.5 %) it does not.
+    td = -25.0
+    fp = frost_point(td)
+    wet = Column(fp - 0.05, td, 1000.0, 0.0).report()
+    dry = Column(fp + 0.05, td, 1000.0, 0.0).report()
+    assert 100.0 < wet["rh_ice_pct"] < 101.0 and wet["ice_fog_risk"] is True
+    assert 99.0 < dry["rh_ice_pct"] < 100.0 and dry["ice_fog_risk"] is False
+
+
 def test_fog_threshold_is_3_k():
     # Spread 3 K or less: fog or low stratus likely (common practice).
     assert fog_risk(10.0, 7.0) is True

@@ -2,7 +2,7 @@
 layout only when such a key is shown."""
 # Sources: none; labels and words only (40-column lines: a 13-column label, then the
 #   value). Kinds as in lapsecalc.layout; ztop: the icing band's top, "unknown" when
-#   its basis is air; until: the dry-thermal trigger sentence.
+#   a band has no known top; until: the dry-thermal trigger sentence.
 
 LABELS = {
     "icing_band_bottom_msl_m": ("icing from", "z"),
@@ -32,7 +32,7 @@ QUIET_WHEN_NONE = ("warm_layer_bottom_msl_m", "warm_layer_top_msl_m", "warm_laye
                    "rh_ice_pct", "icing_band_basis", "icing_layers_msl_m")
 
 WORDS = {
-    # icing band basis (lapsecalc.hazards.icing_band)
+    # icing band basis (lapsecalc.icing.icing_band)
     "parcel": "parcel and air",
     "air": "air (cloud top unknown)",
     "layers": "cloud layers",

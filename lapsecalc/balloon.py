@@ -245,8 +245,6 @@ def _narrow(f, lo, hi, f_lo, f_hi):
             if side == 1:
                 f_hi *= 0.5
             side = 1
-    if hi - lo < _TOL_M:
-        return 0.5 * (lo + hi)
     raise ValueError("first_drop did not converge between %g and %g m" % (lo, hi))
 
 

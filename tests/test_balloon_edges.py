@@ -89,3 +89,16 @@ def test_weight_exactly_the_gross_lift():
     # A gram more and it stays on the ground.
     r = gas_report(col, "helium", 1.0, 500.0, 1000.0, g + 0.001)
     assert any("No lift-off" in x for x in r["warnings"]) and r["float_msl_m"] is None
+
+
+def test_half_a_kilogram_of_payload_is_no_warning():
+    # A balloon half a kilogram under its gross lift at the field takes off: no
+    # "too heavy" warning (the gross lift checked against V rho (1 - T / T_env)).
+    col = dry_isa_column()
+    g = hot_air_report(col, 2800.0, 1.0, 120.0)["gross_lift_kg"]
+    assert abs(g - 2800.0 * hot_lift_m3(col, 0.0, 100.0)) < 1e-6
+    r = hot_air_report(col, 2800.0, g - 0.5, 120.0)
+    assert abs(r["payload_kg"] - 0.5) < 1e-9
+    assert not any("Too heavy" in x for x in r["warnings"])
+    r = hot_air_report(col, 2800.0, g + 0.6, 120.0)
+    assert any("Too heavy" in x and "1 kg over" in x for x in r["warnings"])

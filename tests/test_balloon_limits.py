@@ -111,3 +111,4 @@ def test_needed_temperature_that_vanishes_aloft():
 def test_superheat_note_only_with_superheat():
     assert not any("superheat goes" in n for n in gas()["notes"])
     assert any("superheat goes" in n for n in gas(superheat_k=5.0)["notes"])
+    assert any("superheat goes" in n for n in gas(superheat_k=0.005)["notes"])

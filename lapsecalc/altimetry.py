@@ -28,6 +28,9 @@ FL_MAX = 1000.0
 # A reading this close past an end of the column is that end, m: more than float32
 # rounding of a reading (up to 0.1 m at 15 km, tests/test_float32.py), under a metre.
 _END_SLACK_M = 0.5
+# The flight levels named in a refusal: a column end within this many FL of a whole
+# level (0.1 ft, far above float32 rounding) is that level, not the one below.
+_FL_SLACK = 0.001
 
 
 def flight_level(p_hpa):
@@ -94,8 +97,8 @@ def z_at_flight_level(col, fl):
     top_p = col.p_at(col.top_m)
     if p > col.p_hpa or p < top_p:
         raise ValueError("fl=%g (%.1f hPa) is outside the column; allowed FL%d..FL%d here"
-                         % (f, p, int(ceil(flight_level(col.p_hpa))),
-                            int(floor(flight_level(top_p)))))
+                         % (f, p, int(ceil(flight_level(col.p_hpa) - _FL_SLACK)),
+                            int(floor(flight_level(top_p) + _FL_SLACK))))
     return col.z_at(p)
 
 

@@ -89,6 +89,8 @@ FT1000_M = 304.8
 _SCAN_M = 1000.0
 _TOL_M = 0.1
 _CAP = 40
+# An overload smaller than this fraction of the weight is rounding, not weight.
+_NOISE_KG_PER_KG = 1e-6
 
 
 def molar_mass(gas):
@@ -400,9 +402,13 @@ def hot_air_report(col, volume_m3, weight_kg, max_envelope_t_c, envelope_t_c=Non
     if above:
         limit_ceiling, limit_above = None, True
     warnings = []
-    if payload < 0.0:
+    # Float noise of the two lift sums (about 1e-13 kg in double, 1e-4 in single
+    # precision) is no overload: a weight equal to the gross lift takes off.
+    if payload < -_NOISE_KG_PER_KG * w:
+        over = -payload
         warnings.append("Too heavy to take off at the working envelope temperature %.0f degC:"
-                        " %.0f kg over." % (t_env, -payload))
+                        " %s kg over." % (t_env, "%.0f" % over if over >= 1.0
+                                          else "less than 1"))
     if t_need is None:
         warnings.append("No envelope temperature floats %.0f kg at %.0f m MSL." % (w, z))
     elif t_need > t_max:

@@ -102,3 +102,18 @@ def test_half_a_kilogram_of_payload_is_no_warning():
     assert not any("Too heavy" in x for x in r["warnings"])
     r = hot_air_report(col, 2800.0, g + 0.6, 120.0)
     assert any("Too heavy" in x and "1 kg over" in x for x in r["warnings"])
+
+
+def test_a_weight_equal_to_the_gross_lift_takes_off():
+    # Gross lift at the working temperature (100 degC, ISA at sea level, ICAO Doc
+    # 7488/3) written out in the test: a weight equal to it is no overload, whatever
+    # the last bit of the two lift sums; a third of a kilogram more is, and it is not
+    # shown as "0 kg".
+    col = dry_isa_column()
+    g = 2800.0 * hot_lift_m3(col, 0.0, 100.0)
+    r = hot_air_report(col, 2800.0, g, 120.0)
+    assert abs(r["payload_kg"]) < 1e-6
+    assert not any("Too heavy" in x for x in r["warnings"])
+    r = hot_air_report(col, 2800.0, g + 0.3, 120.0)
+    assert any("Too heavy" in x and "less than 1 kg over" in x for x in r["warnings"])
+    assert not any("0 kg over" in x for x in r["warnings"])

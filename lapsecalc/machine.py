@@ -32,7 +32,7 @@ def machine(key, v):
     """v with every float rounded as number_text says (for json; nested lists and
     dicts too, a dict's own keys naming their families)."""
     if isinstance(v, float):
-        return float(number_text(key, v)) + 0.0  # + 0.0: no -0.0
+        return float(number_text(key, v))  # never -0.0: number_text writes "0"
     if isinstance(v, (list, tuple)):
         return [machine(key, x) for x in v]
     if isinstance(v, dict):

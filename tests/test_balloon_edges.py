@@ -111,9 +111,15 @@ def test_a_weight_equal_to_the_gross_lift_takes_off():
     # shown as "0 kg".
     col = dry_isa_column()
     g = 2800.0 * hot_lift_m3(col, 0.0, 100.0)
-    r = hot_air_report(col, 2800.0, g, 120.0)
-    assert abs(r["payload_kg"]) < 1e-6
-    assert not any("Too heavy" in x for x in r["warnings"])
+    g_report = hot_air_report(col, 2800.0, 1.0, 120.0)["gross_lift_kg"]
+    # Equal to the lift either way it is summed, or 10 g over it (rounding allowance,
+    # a millionth of the weight): no overload.
+    for w in (g, g_report, g + 1e-5):
+        r = hot_air_report(col, 2800.0, w, 120.0)
+        assert abs(r["payload_kg"]) < 2e-5
+        assert not any("Too heavy" in x for x in r["warnings"]), w
     r = hot_air_report(col, 2800.0, g + 0.3, 120.0)
     assert any("Too heavy" in x and "less than 1 kg over" in x for x in r["warnings"])
     assert not any("0 kg over" in x for x in r["warnings"])
+    r = hot_air_report(col, 2800.0, g + 1.005, 120.0)
+    assert any("Too heavy" in x and ": 1 kg over" in x for x in r["warnings"])

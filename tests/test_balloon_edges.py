@@ -123,3 +123,15 @@ def test_a_weight_equal_to_the_gross_lift_takes_off():
     assert not any("0 kg over" in x for x in r["warnings"])
     r = hot_air_report(col, 2800.0, g + 1.005, 120.0)
     assert any("Too heavy" in x and ": 1 kg over" in x for x in r["warnings"])
+
+
+def test_the_working_note_gives_the_margin_under_the_maximum():
+    # The margin stated is the maximum less the working temperature: 120 - 95 = 25 K
+    # set by the pilot, 120 - 100 = 20 K by default (the default 20 K margin, common
+    # practice, from memory).
+    col = dry_isa_column()
+    note = hot_air_report(col, 2800.0, 500.0, 120.0, 95.0)["notes"][0]
+    assert "95 degC (set by you, 25 K under the maximum)" in note
+    assert "The 120 degC maximum" in note
+    note = hot_air_report(col, 2800.0, 500.0, 120.0)["notes"][0]
+    assert "100 degC (the default, 20 K under the maximum)" in note

@@ -3,9 +3,8 @@ kv and json form (runs on MicroPython; loaded only by their lines)."""
 # Sources: every number comes from lapsecalc.balloon and lapsecalc.loadtable; this
 #   module checks the settings the words need, picks and formats.
 from lapsecalc.typed import value
-from lapsecalc.queries import emit
+from lapsecalc.queries import emit, assumed_text
 from lapsecalc.heights import height
-from lapsecalc.state import assumed
 
 
 def _balloon_needs(s, w, gas):
@@ -100,8 +99,7 @@ def _c_loads(s, w, args):
     tab = load_table(col, st["env_m3"], t_work, st["tmax_c"], empty, step_m=609.6 if ft else 500.0,
                      depth_m=3048.0 if ft else 3000.0)
     if s.mode == "text":
-        out = ["assumed " + n for n in assumed(st, False, s.disp["p"] == "inhg")] + \
-            load_table_text(s, tab)
+        out = assumed_text(s) + load_table_text(s, tab)
         if tab["oxygen_note"]:
             from lapsecalc.layout import wrap
             out.extend(wrap((tab["oxygen_note"],), "!"))

@@ -62,7 +62,7 @@ def emit(s, keys, values, balloon=False, word=None, rest=True, plus=()):
     return out
 
 
-def _assumed_text(s):
+def assumed_text(s):
     # The text lines of the defaults in use, in the display unit of pressure.
     return ["assumed " + n for n in assumed(s.state, False, s.disp["p"] == "inhg")]
 
@@ -98,7 +98,7 @@ def _c_report(s, w, args):
     s.release()
     from lapsecalc.groups import report_keys
     from lapsecalc.layout import report_text
-    return _assumed_text(s) + report_text(
+    return assumed_text(s) + report_text(
         s, rep, report_keys(rep), extra)
 
 
@@ -168,7 +168,7 @@ def _c_altimeter(s, w, args):
     keys, vals, text = altimeter_word(s, w, args)
     if s.mode != "text":
         return emit(s, keys, vals)
-    return _assumed_text(s) + text
+    return assumed_text(s) + text
 
 
 # query word -> f(session, word, args) -> output lines, or the name of the module

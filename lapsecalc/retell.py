@@ -163,8 +163,3 @@ def retell(s, st, msg):
         out.append(toks[i])
         i += 1
     return " ".join(out)
-
-
-def library_words(msg):
-    """True when msg may be in the library's wording (argument names, SI units)."""
-    return "=" in msg or "_" in msg or "degC" in msg or "aloft point" in msg

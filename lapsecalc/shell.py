@@ -64,6 +64,11 @@ def split_line(line):
     return (line[:i] if i >= 0 else line).split()
 
 
+# Words whose line never reads the report and needs much heap of its own: on a board
+# the report kept for the session is let go of before such a line (the next line that
+# reads it computes it again; measured: the balloon, loads and sunset lines' hard heap
+# limit fell by about 9 KiB). A word missing here costs heap, one too many a recompute.
+_NO_REPORT = ("balloon", "loads", "sunset", "show", "iso", "help")
 # Query words that take a number after them (a first word followed by a number is
 # one of these or a setting).
 _TAKE_NUMBER = ("at", "da", "iso", "balloon", "chart")
@@ -227,6 +232,9 @@ class Session:
             return []
         w = words[0].lower()
         w = ALIASES.get(w, w)
+        if self.drop_word_modules and w in _NO_REPORT and self._rep is not None:
+            self._rep = None
+            self.collect()
         if w in SETTING_WORDS:
             return self._settings(words)
         if w in QUERIES:

@@ -219,7 +219,37 @@ def test_line_need_table_under_the_unix_port(tmp_path):
     need = [int(r[5]) for r in rows]
     held = [float(r[3]) for r in rows]
     assert 0 < need[0] < need[2]          # a unit line vs a query computing the report
-    assert need[2] == need[4]             # the same query, the same state: the same room
+    # The same query in the same state: the same room, within the 1 KiB step (the
+    # ballast meets the heap's holes a little differently each time).
+    assert abs(need[2] - need[4]) <= 1
     assert held[2] > held[0] > 0
     worst = max(h + n for h, n in zip(held, need))
     assert ("lines_worst_total_kib=%.1f" % worst) in proc.stdout
+
+
+def test_a_board_session_lets_go_of_the_report_before_a_line_that_never_reads_it(
+        restore_word_modules):
+    # The report is kept between lines for the words that read it, and let go of
+    # before a balloon, loads, sunset, show, iso or help line (shell._NO_REPORT); the
+    # output is the same as a CPython session's, which keeps it.
+    keep, drop = shell.Session(), shell.Session()
+    drop.drop_word_modules = True
+    lines = ("temp 27C dew 13C elev 1350ft", "env 2800m3 wt 450kg tmax 120C")
+    for line in lines:
+        assert drop.feed(line) == keep.feed(line)
+    for word in ("balloon", "loads", "sunset", "show", "iso -15C", "help", "?", "bal"):
+        for line in ("base", word, "report"):
+            assert drop.feed(line) == keep.feed(line), line
+            if line == "base":
+                kept = drop._rep
+                assert kept is not None and keep._rep is not None
+            elif line == word:
+                assert drop._rep is None, word      # let go of before the line
+                assert keep._rep is not None, word  # CPython keeps it
+            else:
+                assert drop._rep is not None and drop._rep is not kept  # computed again
+    # A word that reads the report keeps the one there, and so does a setting.
+    for line in ("report", "base", "stab", "levels", "at 5000ft", "unit m", "out text"):
+        kept = drop._rep
+        assert drop.feed(line) == keep.feed(line), line
+        assert drop._rep is kept, line

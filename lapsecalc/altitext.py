@@ -17,12 +17,12 @@ def _h_number(s, z_m):
 
 def _label(k):
     # A key's text label: lapsecalc.layout's, or the hazard keys' (lapsecalc.hazardtext).
-    from lapsecalc.layout import LABELS
-    lk = LABELS.get(k)
+    from lapsecalc.layout import LABELS, find_label
+    lk = find_label(LABELS, k)
     if lk is None:
         try:
             from lapsecalc.hazardtext import LABELS as HAZARD_LABELS
-            lk = HAZARD_LABELS.get(k)
+            lk = find_label(HAZARD_LABELS, k)
         except ImportError:  # a board without the hazard modules
             pass
     return (lk or (k,))[0]

@@ -4,68 +4,72 @@ MicroPython)."""
 #   and the at/iso results of lapsecalc.queries. A list, not a dict, keeps the order
 #   on a board (its dicts have none).
 
-# query word (or result kind) -> its result keys, in the order shown
-GROUPS = {
-    "obs": ("elevation_m", "t_c", "td_c", "rh_pct", "mixing_ratio_g_kg", "wet_bulb_c",
-            "station_pressure_hpa", "qnh_hpa", "pressure_altitude_m", "isa_deviation_c",
-            "air_density_kg_m3", "density_altitude_dry_m", "density_altitude_m", "top_msl_m"),
-    "base": ("cloud_base_agl_m", "cloud_base_msl_m", "lcl_t_c", "lcl_p_hpa",
-             "cloud_layers_msl_m"),
-    "ice": ("freezing_level_msl_m", "freezing_levels_msl_m", "minus10_level_msl_m",
-            "minus10_levels_msl_m", "minus20_level_msl_m", "minus20_levels_msl_m",
-            "warm_layer_aloft", "parcel_freezing_level_msl_m", "icing_band_bottom_msl_m",
-            "icing_band_top_msl_m", "icing_band_basis", "icing_layers_msl_m",
-            "warm_layer_bottom_msl_m",
-            "warm_layer_top_msl_m", "warm_layer_max_t_c", "cold_layer_below_depth_m",
-            "precip_type", "wet_bulb_zero_msl_m"),
-    "frost": ("t_c", "td_c", "frost_point_c", "rh_ice_pct", "fog_risk", "ice_fog_risk",
-              "carb_icing"),
-    "da": ("elevation_m", "station_pressure_hpa", "qnh_hpa", "pressure_altitude_m",
-           "isa_deviation_c", "air_density_kg_m3", "density_altitude_dry_m",
+# query word (or result kind) -> its result keys, in the order shown, in one string
+# (keys() splits it: a board holds one string per group, not a string per key).
+_GROUPS = {
+    "obs": ("elevation_m t_c td_c rh_pct mixing_ratio_g_kg wet_bulb_c "
+            "station_pressure_hpa qnh_hpa pressure_altitude_m isa_deviation_c "
+            "air_density_kg_m3 density_altitude_dry_m density_altitude_m top_msl_m"),
+    "base": "cloud_base_agl_m cloud_base_msl_m lcl_t_c lcl_p_hpa cloud_layers_msl_m",
+    "ice": ("freezing_level_msl_m freezing_levels_msl_m minus10_level_msl_m "
+            "minus10_levels_msl_m minus20_level_msl_m minus20_levels_msl_m "
+            "warm_layer_aloft parcel_freezing_level_msl_m icing_band_bottom_msl_m "
+            "icing_band_top_msl_m icing_band_basis icing_layers_msl_m "
+            "warm_layer_bottom_msl_m warm_layer_top_msl_m warm_layer_max_t_c "
+            "cold_layer_below_depth_m precip_type wet_bulb_zero_msl_m"),
+    "frost": "t_c td_c frost_point_c rh_ice_pct fog_risk ice_fog_risk carb_icing",
+    "da": ("elevation_m station_pressure_hpa qnh_hpa pressure_altitude_m "
+           "isa_deviation_c air_density_kg_m3 density_altitude_dry_m "
            "density_altitude_m"),
-    "stab": ("stability", "lapse_0_3km_k_per_km", "lapse_0_3km_class",
-             "lapse_700_500_k_per_km", "lapse_700_500_class", "tropopause_msl_m",
-             "stability_layers"),
-    "parcel": ("lfc_msl_m", "el_msl_m", "el_above_top", "cape_j_kg", "cin_j_kg",
-               "lifted_index_c", "parcel_freezing_level_msl_m"),
-    "thermal": ("thermal_excess_c", "thermal_top_msl_m", "thermal_cloud_base_msl_m",
-                "thermal_usable_top_msl_m", "thermal_kind", "capped_cloud_top_msl_m",
-                "dry_thermals_from_t_c", "ccl_msl_m", "trigger_t_c"),
-    "at": ("at_msl_m", "at_indicated_m", "at_pressure_altitude_m", "at_isa_deviation_c", "at_t_c",
-           "at_p_hpa", "at_vapour_pressure_hpa", "at_air_density_kg_m3",
-           "at_density_altitude_m", "at_parcel_t_c"),
-    "iso": ("iso_t_c", "iso_level_msl_m", "iso_levels_msl_m"),
+    "stab": ("stability lapse_0_3km_k_per_km lapse_0_3km_class lapse_700_500_k_per_km "
+             "lapse_700_500_class tropopause_msl_m stability_layers"),
+    "parcel": ("lfc_msl_m el_msl_m el_above_top cape_j_kg cin_j_kg lifted_index_c "
+               "parcel_freezing_level_msl_m"),
+    "thermal": ("thermal_excess_c thermal_top_msl_m thermal_cloud_base_msl_m "
+                "thermal_usable_top_msl_m thermal_kind capped_cloud_top_msl_m "
+                "dry_thermals_from_t_c ccl_msl_m trigger_t_c"),
+    "at": ("at_msl_m at_indicated_m at_pressure_altitude_m at_isa_deviation_c at_t_c "
+           "at_p_hpa at_vapour_pressure_hpa at_air_density_kg_m3 "
+           "at_density_altitude_m at_parcel_t_c"),
+    "iso": "iso_t_c iso_level_msl_m iso_levels_msl_m",
     # Working-temperature figures first, the absolute limit (at the maximum) after.
-    "hot": ("z_msl_m", "ambient_t_c", "ambient_p_hpa", "ambient_density_kg_m3", "volume_m3",
-            "weight_kg", "envelope_t_c", "envelope_t_set", "margin_k", "lift_per_m3_kg",
-            "gross_lift_kg", "free_lift_kg", "payload_kg", "envelope_t_needed_c",
-            "envelope_t_needed_over_working", "ceiling_msl_m", "ceiling_p_hpa",
-            "ceiling_above_top", "gross_lift_per_1000ft_kg",
-            "envelope_t_needed_per_1000ft_c", "max_envelope_t_c", "limit_gross_lift_kg",
-            "limit_payload_kg", "envelope_t_needed_over_limit", "limit_ceiling_msl_m",
-            "limit_ceiling_p_hpa", "limit_ceiling_above_top", "oxygen_note", "warnings",
-            "notes"),
-    "gas": ("z_msl_m", "ambient_t_c", "ambient_p_hpa", "ambient_density_kg_m3", "gas",
-            "gas_molar_mass_g_mol", "purity", "gas_volume_m3", "envelope_m3", "weight_kg",
-            "gas_density_kg_m3", "lift_per_m3_kg", "gas_volume_at_z_m3", "full_at_z",
-            "gross_lift_kg", "free_lift_kg", "full_msl_m", "full_p_hpa", "full_above_top",
-            "float_msl_m", "float_above_top", "ballast_to_hold_kg",
-            "gross_lift_per_1000ft_kg", "superheat_k", "gas_t_c", "superheat_lift_kg",
-            "ballast_superheat_lost_kg", "oxygen_note", "warnings", "notes"),
+    "hot": ("z_msl_m ambient_t_c ambient_p_hpa ambient_density_kg_m3 volume_m3 "
+            "weight_kg envelope_t_c envelope_t_set margin_k lift_per_m3_kg "
+            "gross_lift_kg free_lift_kg payload_kg envelope_t_needed_c "
+            "envelope_t_needed_over_working ceiling_msl_m ceiling_p_hpa "
+            "ceiling_above_top gross_lift_per_1000ft_kg "
+            "envelope_t_needed_per_1000ft_c max_envelope_t_c limit_gross_lift_kg "
+            "limit_payload_kg envelope_t_needed_over_limit limit_ceiling_msl_m "
+            "limit_ceiling_p_hpa limit_ceiling_above_top oxygen_note warnings notes"),
+    "gas": ("z_msl_m ambient_t_c ambient_p_hpa ambient_density_kg_m3 gas "
+            "gas_molar_mass_g_mol purity gas_volume_m3 envelope_m3 weight_kg "
+            "gas_density_kg_m3 lift_per_m3_kg gas_volume_at_z_m3 full_at_z "
+            "gross_lift_kg free_lift_kg full_msl_m full_p_hpa full_above_top "
+            "float_msl_m float_above_top ballast_to_hold_kg gross_lift_per_1000ft_kg "
+            "superheat_k gas_t_c superheat_lift_kg ballast_superheat_lost_kg "
+            "oxygen_note warnings notes"),
     # The sunset word: the superheat and the ballast it costs when it goes.
-    "sunset": ("z_msl_m", "ambient_t_c", "superheat_k", "gas_t_c", "gas_volume_at_z_m3",
-               "full_at_z", "full_msl_m", "superheat_lift_kg", "ballast_superheat_lost_kg"),
+    "sunset": ("z_msl_m ambient_t_c superheat_k gas_t_c gas_volume_at_z_m3 full_at_z "
+               "full_msl_m superheat_lift_kg ballast_superheat_lost_kg"),
 }
+
 # The groups of the full report, in order (the text report's sections follow them).
 REPORT_GROUPS = ("obs", "base", "ice", "frost", "stab", "parcel", "thermal")
+
+
+def keys(word):
+    """The result keys of query word (or result kind), in the order shown (a new list)."""
+    return _GROUPS[word].split()
 
 
 def report_keys(rep):
     """Report keys in display order: the groups' order, then any others sorted."""
     seen = []
     for word in REPORT_GROUPS:
-        for k in GROUPS[word]:
+        for k in keys(word):
             if k in rep and k not in seen:
                 seen.append(k)
-    rest = sorted(k for k in rep if k not in seen and k != "cautions")
-    return seen + rest + (["cautions"] if "cautions" in rep else [])
+    seen.extend(sorted(k for k in rep if k not in seen and k != "cautions"))
+    if "cautions" in rep:
+        seen.append("cautions")
+    return seen

@@ -2,108 +2,154 @@
 # Sources: none; labels and units only. Every line fits a 40-column screen: a
 #   13-column label, then the value in the session's display units.
 from lapsecalc import units
-from lapsecalc.groups import GROUPS
 from lapsecalc.output import f_h, f_t, f_dt, f_p, wrap as wrap_text
 
 # A new result key: its label and kind here (LABELS), its place in lapsecalc.groups.
-# Report key -> (label, kind) for text mode. Kinds: z a level, shown true MSL or, after
-# "heights ind", indicated on QNH (IND) (ztop: the icing band's top, "unknown" when a
-# band has none); zt always true MSL; a height AGL; i indicated on QNH; pa pressure
-# altitude (with its flight level); alt another altitude (density); zl list of levels,
-# t temperature, dt temperature difference, p pressure, ph pressure always in hPa
-# (aloft, vapour), rho density, pct, gkg, jkg, b yes/no, s word, until the dry-thermal
-# trigger sentence.
-LABELS = {
-    "elevation_m": ("elevation", "zt"),
-    "top_msl_m": ("column top", "z"),
-    "t_c": ("temp", "t"),
-    "td_c": ("dewpoint", "t"),
-    "rh_pct": ("RH", "pct"),
-    "mixing_ratio_g_kg": ("mix ratio", "gkg"),
-    "wet_bulb_c": ("wet bulb", "t"),
-    "station_pressure_hpa": ("station p", "p"),
-    "qnh_hpa": ("QNH", "p"),
-    "pressure_altitude_m": ("press alt", "pa"),
-    "air_density_kg_m3": ("density", "rho"),
-    "isa_deviation_c": ("ISA dev", "dt"),
-    # Dry: what flight-manual charts use; humid: the air as it is (higher).
-    "density_altitude_dry_m": ("DA dry", "alt"),
-    "density_altitude_m": ("DA humid", "alt"),
-    "cloud_base_agl_m": ("base", "a"),
-    "cloud_base_msl_m": ("base", "z"),
-    "lcl_t_c": ("LCL temp", "t"),
-    "lcl_p_hpa": ("LCL press", "ph"),
-    "freezing_level_msl_m": ("0C level", "z"),
-    "freezing_levels_msl_m": ("0C passes", "zl"),
-    "minus10_level_msl_m": ("-10C level", "z"),
-    "minus10_levels_msl_m": ("-10C passes", "zl"),
-    "minus20_level_msl_m": ("-20C level", "z"),
-    "minus20_levels_msl_m": ("-20C passes", "zl"),
-    "warm_layer_aloft": ("warm aloft", "b"),
-    "parcel_freezing_level_msl_m": ("parcel 0C", "z"),
-    "stability": ("lowest layer", "s"),
-    "lapse_0_3km_k_per_km": ("ELR 0-3km", "lkm"),
-    "lapse_0_3km_class": ("", "hide"),
-    "lapse_700_500_k_per_km": ("ELR 700-500", "lkm"),
-    "lapse_700_500_class": ("", "hide"),
-    "tropopause_msl_m": ("tropopause", "z"),
-    "cloud_layers_msl_m": ("cloud layer", "zz"),
-    "levels_above_top": ("", "hide"),
-    "lfc_msl_m": ("LFC", "z"),
-    "el_msl_m": ("EL", "z"),
-    "el_above_top": ("EL above top", "b"),
-    "cape_j_kg": ("CAPE", "jkg"),
-    "cin_j_kg": ("CIN", "jkg"),
-    "lifted_index_c": ("lifted index", "dt"),
-    "thermal_excess_c": ("excess", "dt"),
-    "thermal_top_msl_m": ("thermal top", "z"),
-    "thermal_kind": ("thermals", "s"),
-    "ccl_msl_m": ("CCL", "z"),
-    "trigger_t_c": ("trigger temp", "t"),
-    "at_msl_m": ("true alt", "zt"),
-    "at_indicated_m": ("indicated", "i"),
-    "at_pressure_altitude_m": ("press alt", "pa"),
-    "at_isa_deviation_c": ("ISA dev", "dt"),
-    "at_t_c": ("temp", "t"),
-    "at_p_hpa": ("pressure", "p"),
-    "at_vapour_pressure_hpa": ("vapour p", "ph"),
-    "at_air_density_kg_m3": ("density", "rho"),
-    "at_density_altitude_m": ("DA humid", "alt"),
-    "at_parcel_t_c": ("parcel temp", "t"),
-    "iso_t_c": ("isotherm", "t"),
-    "iso_level_msl_m": ("lowest <=T", "z"),
-    "iso_levels_msl_m": ("passes", "zl"),
-    "warnings": ("", "say!"),
-    "notes": ("", "say-"),
-}
+# Report key -> label and kind for text mode, one "key:label:kind;" entry each in one
+# string (find() reads it: a board holds one string, not a tuple and strings per key).
+# Kinds: z a level, shown true MSL or, after "heights ind", indicated on QNH (IND)
+# (ztop: the icing band's top, "unknown" when a band has none); zt always true MSL; a
+# height AGL; i indicated on QNH; pa pressure altitude (with its flight level); alt
+# another altitude (density); zl list of levels, t temperature, dt temperature
+# difference, p pressure, ph pressure always in hPa (aloft, vapour), rho density, pct,
+# gkg, jkg, b yes/no, s word, until the dry-thermal trigger sentence. A third field q
+# (lapsecalc.hazardtext): no line at all when the value is None.
+LABELS = (";elevation_m:elevation:zt;"
+          "top_msl_m:column top:z;"
+          "t_c:temp:t;"
+          "td_c:dewpoint:t;"
+          "rh_pct:RH:pct;"
+          "mixing_ratio_g_kg:mix ratio:gkg;"
+          "wet_bulb_c:wet bulb:t;"
+          "station_pressure_hpa:station p:p;"
+          "qnh_hpa:QNH:p;"
+          "pressure_altitude_m:press alt:pa;"
+          "air_density_kg_m3:density:rho;"
+          "isa_deviation_c:ISA dev:dt;"
+          # Dry: what flight-manual charts use; humid: the air as it is (higher).
+          "density_altitude_dry_m:DA dry:alt;"
+          "density_altitude_m:DA humid:alt;"
+          "cloud_base_agl_m:base:a;"
+          "cloud_base_msl_m:base:z;"
+          "lcl_t_c:LCL temp:t;"
+          "lcl_p_hpa:LCL press:ph;"
+          "freezing_level_msl_m:0C level:z;"
+          "freezing_levels_msl_m:0C passes:zl;"
+          "minus10_level_msl_m:-10C level:z;"
+          "minus10_levels_msl_m:-10C passes:zl;"
+          "minus20_level_msl_m:-20C level:z;"
+          "minus20_levels_msl_m:-20C passes:zl;"
+          "warm_layer_aloft:warm aloft:b;"
+          "parcel_freezing_level_msl_m:parcel 0C:z;"
+          "stability:lowest layer:s;"
+          "lapse_0_3km_k_per_km:ELR 0-3km:lkm;"
+          "lapse_0_3km_class::hide;"
+          "lapse_700_500_k_per_km:ELR 700-500:lkm;"
+          "lapse_700_500_class::hide;"
+          "tropopause_msl_m:tropopause:z;"
+          "cloud_layers_msl_m:cloud layer:zz;"
+          "levels_above_top::hide;"
+          "lfc_msl_m:LFC:z;"
+          "el_msl_m:EL:z;"
+          "el_above_top:EL above top:b;"
+          "cape_j_kg:CAPE:jkg;"
+          "cin_j_kg:CIN:jkg;"
+          "lifted_index_c:lifted index:dt;"
+          "thermal_excess_c:excess:dt;"
+          "thermal_top_msl_m:thermal top:z;"
+          "thermal_kind:thermals:s;"
+          "ccl_msl_m:CCL:z;"
+          "trigger_t_c:trigger temp:t;"
+          "at_msl_m:true alt:zt;"
+          "at_indicated_m:indicated:i;"
+          "at_pressure_altitude_m:press alt:pa;"
+          "at_isa_deviation_c:ISA dev:dt;"
+          "at_t_c:temp:t;"
+          "at_p_hpa:pressure:p;"
+          "at_vapour_pressure_hpa:vapour p:ph;"
+          "at_air_density_kg_m3:density:rho;"
+          "at_density_altitude_m:DA humid:alt;"
+          "at_parcel_t_c:parcel temp:t;"
+          "iso_t_c:isotherm:t;"
+          "iso_level_msl_m:lowest <=T:z;"
+          "iso_levels_msl_m:passes:zl;"
+          "warnings::say!;"
+          "notes::say-;")
 
-# Words for the stability classes and thermal kinds in text mode.
-WORDS = {
-    "absolutely_stable": "abs stable",
-    "conditionally_unstable": "cond unstable",
-    "absolutely_unstable": "abs unstable",
-    "dry_neutral": "dry neutral",
-    "saturated_neutral": "sat neutral",
-    "none": "none (stable at ground)",
-    "blue": "blue (dry, no cumulus)",
-    "cumulus": "cumulus",
-    "capped": "capped layer, not cumulus",
-}
+# Words for the stability classes and thermal kinds in text mode ("value:word;").
+WORDS = (";absolutely_stable:abs stable;"
+         "conditionally_unstable:cond unstable;"
+         "absolutely_unstable:abs unstable;"
+         "dry_neutral:dry neutral;"
+         "saturated_neutral:sat neutral;"
+         "none:none (stable at ground);"
+         "blue:blue (dry, no cumulus);"
+         "cumulus:cumulus;"
+         "capped:capped layer, not cumulus;")
+
+
+def find(table, key):
+    """The index of the fields after key in a table of ";key:field:field;" entries
+    (LABELS, WORDS, lapsecalc.hazardtext's), or -1 when key has no entry. Allocates
+    nothing (a board counts every allocation of a line)."""
+    n = len(key)
+    i = 0
+    while n:
+        i = table.find(key, i + 1)
+        if i < 0:
+            return -1
+        if table.startswith(";", i - 1) and table.startswith(":", i + n):
+            return i + n + 1
+    return -1
+
+
+def field(table, i):
+    """The field of table that starts at index i (up to the next ":" or ";")."""
+    j = table.find(";", i)
+    k = table.find(":", i, j)
+    return table[i:j if k < 0 else k]
+
+
+def find_label(table, key):
+    """(label, kind) of key in table (LABELS or lapsecalc.hazardtext.LABELS), or None;
+    (label, kind, True) when the key shows no line at all while its value is None
+    (the third field q)."""
+    i = find(table, key)
+    if i < 0:
+        return None
+    label = field(table, i)
+    i += len(label) + 1
+    kind = field(table, i)
+    if table.startswith(":q", i + len(kind)):
+        return label, kind, True
+    return label, kind
+
+
+def word_text(table, v):
+    """The text word of value v in table (WORDS or lapsecalc.hazardtext.WORDS), then in
+    WORDS, else v as it is."""
+    if isinstance(v, str):
+        for t in (table, WORDS):
+            i = find(t, v)
+            if i >= 0:
+                return field(t, i)
+    return str(v)
+
 
 # Said under the parcel results (stability.parcel_analysis integrates the plain
 # temperature difference: the humidity aloft, needed for virtual temperatures, is not
 # observed).
 PARCEL_NOTE = "CAPE/CIN use air temps (not virtual)"
 
-# Section headings of the text report: (heading, query word of its keys).
+# Section headings of the text report: (heading line, query word of its keys).
 SECTIONS = (
-    ("surface", "obs"),
-    ("cloud base", "base"),
-    ("freezing and icing", "ice"),
-    ("frost, fog, carb icing", "frost"),
-    ("stability", "stab"),
-    ("parcel", "parcel"),
-    ("thermals", "thermal"),
+    ("-- surface", "obs"),
+    ("-- cloud base", "base"),
+    ("-- freezing and icing", "ice"),
+    ("-- frost, fog, carb icing", "frost"),
+    ("-- stability", "stab"),
+    ("-- parcel", "parcel"),
+    ("-- thermals", "thermal"),
 )
 
 
@@ -147,7 +193,7 @@ def warning_lines(s, rep, keys):
             said[i] = w.replace(" degC", " C")
     for k in rep.get("levels_above_top", ()):
         if k in keys:
-            said.append("%s: %s (%s)" % (LABELS[k][0].strip(), ABOVE,
+            said.append("%s: %s (%s)" % (find_label(LABELS, k)[0].strip(), ABOVE,
                                          f_h(s, rep["top_msl_m"], True)))
     return wrap(said, "!")
 
@@ -159,18 +205,18 @@ def text_lines(s, key, v, label_kind=None, rep=None):
     if key == "stability_layers":
         return layer_lines(s, v)
     words = WORDS
-    lk = label_kind or LABELS.get(key)  # balloon: balloontext.LABELS
+    lk = label_kind or find_label(LABELS, key)  # balloon: balloontext.LABELS
     if lk is None and key != "cautions":
         try:
             from lapsecalc import hazardtext
         except (ImportError, AttributeError):  # a board without the hazard modules
             hazardtext = None
         if hazardtext is not None:
-            if v is None and key in hazardtext.QUIET_WHEN_NONE:
-                return []
-            lk = hazardtext.LABELS.get(key)
+            lk = find_label(hazardtext.LABELS, key)
+            if v is None and lk is not None and len(lk) > 2:
+                return []  # quiet when None: a hazard not present
             words = hazardtext.WORDS
-    label, kind = lk or (key, "?")
+    label, kind = (lk[0], lk[1]) if lk else (key, "?")
     if kind == "until":
         return [] if v is None else wrap(
             ["no dry thermals until the surface reaches %s" % f_t(s, v, True)], "-")
@@ -193,7 +239,7 @@ def text_lines(s, key, v, label_kind=None, rep=None):
     if kind == "lkm" and v is not None:
         # The rate and its class (the report's key ..._class) on one line.
         c = rep.get(key.replace("k_per_km", "class")) if rep else None
-        return ["%-13s%7.1f K/km %s" % (label, v, WORDS.get(c, c or ""))]
+        return ["%-13s%7.1f K/km %s" % (label, v, word_text(WORDS, c) if c else "")]
     if kind == "zz":
         if v is None:
             return []  # no dewpoints aloft: the assumed humidity places no layers
@@ -212,7 +258,8 @@ def text_lines(s, key, v, label_kind=None, rep=None):
         v = 0.0  # no "-0.0" in a one-decimal column
     if kind == "z":
         # The report's own reading, if it has one: no Column built again for the text.
-        text = level(s, v, (rep.get("indicated_altitude_m") or {}).get(key) if rep else None)
+        ind = rep.get("indicated_altitude_m") if rep else None
+        text = level(s, v, ind.get(key) if ind else None)
     elif kind in ("zt", "a", "i", "alt"):
         # The tag says what the height is (DA: its label does).
         text = f_h(s, v, False, " MSL" if kind == "zt" else " AGL" if kind == "a" else
@@ -230,7 +277,7 @@ def text_lines(s, key, v, label_kind=None, rep=None):
     elif kind == "b":
         text = "    yes" if v else "     no"
     elif kind == "s":
-        text = " " + words.get(v, WORDS.get(v, str(v)))
+        text = " " + word_text(words, v)
     elif kind in _PLAIN:
         text = _PLAIN[kind] % v
     elif kind == "frac":
@@ -254,7 +301,7 @@ def layer_lines(s, rows):
             a, b = units.m_to_ft(a), units.m_to_ft(b)
         out.append("%6d-%-6d %5.1f %4.1f %s" % (round(a), round(b), r["lapse_k_per_km"],
                                                  r["saturated_k_per_km"],
-                                                 WORDS.get(r["class"], r["class"])))
+                                                 word_text(WORDS, r["class"])))
     return out
 
 
@@ -269,7 +316,8 @@ def wrap(items, mark, width=40):
 def text_keys(word):
     """The keys of query word's group in text: the column top is said with the
     stability of the whole column (after the tropopause), not in the surface block."""
-    keys = GROUPS[word]
+    from lapsecalc.groups import keys as group_keys
+    keys = group_keys(word)
     if word == "obs":
         return [k for k in keys if k != "top_msl_m"]
     if word == "stab":
@@ -277,18 +325,18 @@ def text_keys(word):
     return keys
 
 
-def report_text(s, rep, keys, extra=()):
-    """The whole report in sections, warnings first, cautions last (keys:
-    queries.report_keys order); extra, when given, are the altimeter section's lines
-    (lapsecalc.altitext)."""
+def report_text(s, rep, extra=()):
+    """The whole report in sections (the groups of lapsecalc.groups.REPORT_GROUPS),
+    warnings first, then the keys of no group (sorted), cautions last; extra, when
+    given, are the altimeter section's lines (lapsecalc.altitext)."""
     out = []
-    done = ["warnings", "levels_above_top"]
-    said = warning_lines(s, rep, keys)
+    done = ["warnings", "levels_above_top", "cautions"]
+    said = warning_lines(s, rep, rep)
     if said:
         out.append("-- warnings")
         out.extend(said)
     for heading, word in SECTIONS:
-        out.append("-- " + heading)
+        out.append(heading)
         for k in text_keys(word):
             if k in rep and k not in done:
                 out.extend(text_lines(s, k, rep[k], rep=rep))
@@ -299,9 +347,8 @@ def report_text(s, rep, keys, extra=()):
         out.append("-- altimeter")
         out.extend(extra)
     more = []
-    for k in keys:
-        if k not in done and k != "cautions":
-            more.extend(text_lines(s, k, rep[k], rep=rep))
+    for k in sorted(k for k in rep if k not in done):
+        more.extend(text_lines(s, k, rep[k], rep=rep))
     if more:
         out.append("-- more")
         out.extend(more)

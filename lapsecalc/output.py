@@ -54,23 +54,26 @@ def f_lapse(s, lapse):
 
 
 def wrap(text, first, rest="  ", width=40):
-    """text as lines of at most width columns (a word longer than a line stays whole),
-    the first starting with first, the others with rest."""
-    out = []
-    line = first
+    """text as lines of at most width columns (a word longer than a line is cut), the
+    first starting with first, the others with rest (first and rest end in a space or
+    are empty). Each line is made once from its words (a board counts every string a
+    line allocates)."""
+    cut = max(1, width - len(rest))  # a hard bound: at least a character a piece
     words = []
     for word in text.split():
-        while len(word) > width - len(rest):  # a word longer than a line: cut
-            words.append(word[:width - len(rest)])
-            word = word[width - len(rest):]
+        while len(word) > cut:  # a word longer than a line: cut
+            words.append(word[:cut])
+            word = word[cut:]
         words.append(word)
-    for word in words:
-        bare = line in (first, rest)
-        if not bare and len(line) + 1 + len(word) > width:
-            out.append(line)
-            line, bare = rest, True
-        line += ("" if bare else " ") + word
-    out.append(line)
+    out = []
+    line, a, n = first, 0, len(first)  # the line's start, its first word, its length
+    for i in range(len(words)):
+        w = len(words[i])
+        if i > a and n + 1 + w > width:
+            out.append(line + " ".join(words[a:i]))
+            line, a, n = rest, i, len(rest)
+        n += w + (i > a)
+    out.append(line + " ".join(words[a:]))
     return out
 
 

@@ -24,8 +24,8 @@ def emit(s, keys, values, balloon=False, word=None, rest=True, plus=()):
     word: the query word whose text keys (layout.text_keys) the text mode shows."""
     s.release()  # the numbers are there: a board lets go of the physics first
     if isinstance(keys, str):
-        from lapsecalc.groups import GROUPS
-        keys = GROUPS[keys] + plus
+        from lapsecalc.groups import keys as group_keys
+        keys = group_keys(keys) + list(plus)
     if balloon and rest:
         keys = list(keys) + sorted(k for k in values if k not in keys)
     notes = assumed(s.state, balloon, s.mode == "text" and s.disp["p"] == "inhg")
@@ -96,10 +96,8 @@ def _c_report(s, w, args):
         return emit(s, report_keys(rep), rep)
     extra = _altimeter_section(s, rep)
     s.release()
-    from lapsecalc.groups import report_keys
     from lapsecalc.layout import report_text
-    return assumed_text(s) + report_text(
-        s, rep, report_keys(rep), extra)
+    return assumed_text(s) + report_text(s, rep, extra)
 
 
 def _altimeter_section(s, rep):

@@ -3,6 +3,7 @@ errors by mode; machine numbers without float noise and kv values (lapsecalc.mac
 worked out here from exact unit factors (REFERENCES.md, Units: 1 ft = 0.3048 m,
 1 inHg = 33.8639 hPa, F = C * 1.8 + 32) and the documented formats."""
 import json
+import random
 
 import pytest
 
@@ -79,6 +80,42 @@ def test_wrap_fits_forty_columns():
     assert wrap("", "ok: ") == ["ok: "]
     assert wrap("one two", "> ", "    ", width=10) == ["> one two"]
     assert wrap("one two three", "> ", "    ", width=10) == ["> one two", "    three"]
+    # runs of white space between words count as one space; none at the ends
+    assert wrap(" one\t two\n\nthree ", "> ", "  ", width=12) == ["> one two", "  three"]
+    # the first line starts with first even when the first word alone fills it
+    assert wrap("x" * 45 + " y", "! ", "  ", width=40) == ["! " + "x" * 38, "  xxxxxxx y"]
+
+
+def _wrap_by_words(text, first, rest, width):
+    # The wrapping rule as the docstring states it, word by word (the test's own
+    # reading): cut words longer than width - len(rest); put a word on the line when
+    # it fits after one space, else start a new line with rest.
+    pieces = []
+    for word in text.split():
+        while len(word) > width - len(rest):
+            pieces.append(word[:width - len(rest)])
+            word = word[width - len(rest):]
+        pieces.append(word)
+    lines, line, empty = [], first, True
+    for p in pieces:
+        if not empty and len(line) + 1 + len(p) > width:
+            lines.append(line)
+            line, empty = rest, True
+        line += p if empty else " " + p
+        empty = False
+    return lines + [line]
+
+
+def test_wrap_matches_the_word_by_word_rule():
+    # A seeded corpus: words of 1..50 letters, odd white space, several widths.
+    r = random.Random(7)
+    for _ in range(3000):
+        text = "".join(r.choice(("a", "bb", " ", "  ", "\t", "ccccccccccc", "d" * 41))
+                       for _ in range(r.randint(0, 30)))
+        first = r.choice(("! ", "error: ", "check: ", "> "))
+        rest = r.choice(("  ", "    "))
+        width = r.choice((12, 20, 40))
+        assert wrap(text, first, rest, width) == _wrap_by_words(text, first, rest, width)
 
 
 def test_messages_in_each_mode():

@@ -1,0 +1,115 @@
+"""The text layout's tables (lapsecalc.layout, lapsecalc.hazardtext: one string of
+";key:label:kind;" entries each, read without allocating) and the result key groups
+(lapsecalc.groups: one string per group). Each table is parsed here independently
+(plain str.split) and every lookup compared with that parse; the key orders are checked
+against the documented rules (group order, then the others sorted, cautions last)."""
+import pytest
+
+from lapsecalc import groups, hazardtext, layout
+from lapsecalc.layout import find, field, find_label, word_text, LABELS, WORDS
+
+
+def parse(table):
+    # key -> its fields, by plain splitting (the test's own reading of the format).
+    assert table[0] == ";" and table[-1] == ";"
+    out = {}
+    for e in table[1:-1].split(";"):
+        f = e.split(":")
+        assert f[0] not in out, "key twice: %s" % f[0]
+        out[f[0]] = f[1:]
+    return out
+
+
+TABLES = (("layout.LABELS", LABELS), ("hazardtext.LABELS", hazardtext.LABELS),
+          ("layout.WORDS", WORDS), ("hazardtext.WORDS", hazardtext.WORDS))
+
+
+@pytest.mark.parametrize("name,table", TABLES)
+def test_every_entry_is_found_with_its_fields(name, table):
+    for key, fields in parse(table).items():
+        i = find(table, key)
+        assert i >= 0, key
+        assert field(table, i) == fields[0], key
+        if len(fields) > 1:
+            assert field(table, i + len(fields[0]) + 1) == fields[1], key
+
+
+@pytest.mark.parametrize("name,table", TABLES)
+def test_labels_and_words_are_no_keys(name, table):
+    # A label, a kind or a word text is never taken for a key, nor a piece of a key.
+    parsed = parse(table)
+    for key, fields in parsed.items():
+        for f in fields:
+            if f and f not in parsed:
+                assert find(table, f) == -1, f
+        for cut in (key[1:], key[:-1], key + "x", "x" + key):
+            if cut not in parsed:
+                assert find(table, cut) == -1, cut
+    assert find(table, "") == -1
+    assert find(table, "no_such_key") == -1
+
+
+def test_a_key_inside_another_key_is_found_alone():
+    # "t_c" sits inside "lcl_t_c", "td_c" and others: each finds its own entry.
+    assert find_label(LABELS, "t_c") == ("temp", "t")
+    assert find_label(LABELS, "lcl_t_c") == ("LCL temp", "t")
+    assert find_label(LABELS, "el_msl_m") == ("EL", "z")
+    assert find_label(LABELS, "lfc_msl_m") == ("LFC", "z")
+    # the first and the last entries
+    assert find_label(LABELS, "elevation_m") == ("elevation", "zt")
+    assert find_label(LABELS, "notes") == ("", "say-")
+    assert find_label(LABELS, "lapse_0_3km_class") == ("", "hide")
+
+
+def test_find_label_matches_the_parse_and_marks_the_quiet_keys():
+    for table in (LABELS, hazardtext.LABELS):
+        for key, f in parse(table).items():
+            want = (f[0], f[1], True) if f[2:] == ["q"] else (f[0], f[1])
+            assert find_label(table, key) == want, key
+    quiet = [k for k, f in parse(hazardtext.LABELS).items() if f[2:] == ["q"]]
+    # The hazards that say nothing when absent (lapsecalc.hazards: None = not present).
+    assert sorted(quiet) == sorted([
+        "warm_layer_bottom_msl_m", "warm_layer_top_msl_m", "warm_layer_max_t_c",
+        "cold_layer_below_depth_m", "capped_cloud_top_msl_m", "frost_point_c",
+        "rh_ice_pct", "icing_band_basis", "icing_layers_msl_m"])
+    assert find_label(LABELS, "cautions") is None
+
+
+def test_word_text_looks_in_the_table_then_in_words():
+    assert word_text(hazardtext.WORDS, "glaze") == "freezing rain"
+    assert word_text(hazardtext.WORDS, "parcel") == "parcel and air"
+    # not in the hazard words: the layout's words, then the value itself
+    assert word_text(hazardtext.WORDS, "absolutely_stable") == "abs stable"
+    assert word_text(WORDS, "capped") == "capped layer, not cumulus"
+    assert word_text(WORDS, "helium") == "helium"
+    assert word_text(WORDS, 3) == "3"
+    # a word's text is no value of its own
+    assert word_text(WORDS, "abs stable") == "abs stable"
+
+
+def test_every_report_key_of_a_group_has_a_label():
+    labels = parse(LABELS)
+    labels.update(parse(hazardtext.LABELS))
+    for word in groups.REPORT_GROUPS + ("da", "at", "iso"):
+        for k in groups.keys(word):
+            assert k in labels or k == "stability_layers", (word, k)
+
+
+def test_group_keys_are_a_fresh_list_each_time():
+    a = groups.keys("base")
+    assert a == ["cloud_base_agl_m", "cloud_base_msl_m", "lcl_t_c", "lcl_p_hpa",
+                 "cloud_layers_msl_m"]
+    a.append("x")
+    assert "x" not in groups.keys("base")
+
+
+def test_report_keys_order():
+    rep = {"zz_other": 1, "cautions": [], "t_c": 20.0, "aa_other": 2, "cloud_base_msl_m": 1.0,
+           "elevation_m": 0.0, "frost_point_c": 1.0, "trigger_t_c": 3.0}
+    # group order (obs, base, ..., frost, thermal), t_c once (obs and frost have it),
+    # then the others sorted, cautions last
+    assert groups.report_keys(rep) == ["elevation_m", "t_c", "cloud_base_msl_m",
+                                       "frost_point_c", "trigger_t_c", "aa_other",
+                                       "zz_other", "cautions"]
+    assert groups.report_keys({"t_c": 1.0}) == ["t_c"]
+    assert groups.report_keys({}) == []

@@ -4,10 +4,11 @@ section and the cold-air warning; loaded only by the lines that show them."""
 #   lapsecalc.altimetry). Every line fits a 40-column screen.
 from lapsecalc import units
 from lapsecalc.output import f_dt, ack
-from lapsecalc.typed import value, number, split_number, shown, no_args
+from lapsecalc.aliases import split_number, shown, no_args
 
 # The text layout (lapsecalc.layout) is imported by the functions that use its labels:
-# the cold word in kv mode needs none of it.
+# the cold word in kv mode needs none of it; lapsecalc.typed (a large module) only by
+# the functions that read a typed height.
 
 
 def _h_number(s, z_m):
@@ -167,6 +168,7 @@ def cold_word(s, w, args):
         raise ValueError("cold takes one height above the field, e.g. cold 1500ft; alone"
                          " it gives a few")
     if args:
+        from lapsecalc.typed import value
         hs = [value(args[0], "h", s.disp["h"], 0.0, room, w)]
     else:
         u = s.disp["h"]
@@ -215,4 +217,5 @@ def height_aloft(s, w, args, col):
         if len(args) > 1:
             raise ValueError("%s: nothing may follow a flight level, e.g. %s FL85" % (w, w))
         return z_at_flight_level(col, fl)
+    from lapsecalc.typed import number
     return true_altitude_of(col, number(args[0], "h", s.disp["h"]))

@@ -2,7 +2,6 @@
 kv and json form (runs on MicroPython; loaded only by their lines)."""
 # Sources: every number comes from lapsecalc.balloon and lapsecalc.loadtable; this
 #   module checks the settings the words need, picks and formats.
-from lapsecalc.typed import value
 from lapsecalc.queries import emit, assumed_text
 from lapsecalc.heights import height
 
@@ -89,23 +88,33 @@ def _c_loads(s, w, args):
         raise ValueError("loads takes at most an empty weight, e.g. loads 420kg")
     empty = None
     if args:
+        from lapsecalc.typed import value
         empty = value(args[0], "w", "kg", 1.0, 20000.0, w)
-    col = s.column(w)
-    from lapsecalc.balloon import working_envelope_t, DEFAULT_MARGIN_K
-    from lapsecalc.loadtable import load_table, load_table_text
-    t_work = working_envelope_t(st["tmax_c"], st.get("tenv_c"),
-                                st.get("margin_k", DEFAULT_MARGIN_K))
-    ft = s.disp["h"] == "ft"
-    tab = load_table(col, st["env_m3"], t_work, st["tmax_c"], empty, step_m=609.6 if ft else 500.0,
-                     depth_m=3048.0 if ft else 3000.0)
+    tab = _load_table(s, w, empty)
     if s.mode == "text":
+        s.release()  # the numbers are there: a board lets go of the physics first
+        from lapsecalc.loadtable import load_table_text
+        from lapsecalc.output import wrap
         out = assumed_text(s) + load_table_text(s, tab)
         if tab["oxygen_note"]:
-            from lapsecalc.layout import wrap
-            out.extend(wrap((tab["oxygen_note"],), "!"))
+            out.extend(wrap(tab["oxygen_note"], "! "))
         return out
     return emit(s, ("volume_m3", "envelope_t_c", "max_envelope_t_c", "empty_kg", "dewpoint_c",
                     "temps_c", "heights_msl_m", "gross_kg", "payload_kg", "oxygen_note"), tab)
+
+
+def _load_table(s, w, empty):
+    # The load table's numbers (its own function: the column and the balloon code are
+    # let go of before the text is laid out).
+    st = s.state
+    col = s.column(w)
+    from lapsecalc.balloon import working_envelope_t, DEFAULT_MARGIN_K
+    from lapsecalc.loadtable import load_table
+    t_work = working_envelope_t(st["tmax_c"], st.get("tenv_c"),
+                                st.get("margin_k", DEFAULT_MARGIN_K))
+    ft = s.disp["h"] == "ft"
+    return load_table(col, st["env_m3"], t_work, st["tmax_c"], empty,
+                      step_m=609.6 if ft else 500.0, depth_m=3048.0 if ft else 3000.0)
 
 
 # balloon word -> f(session, word, args) -> output lines

@@ -2,7 +2,8 @@
 session's display unit, AGL, MSL, indicated, a flight level or a pressure, inside the
 column (runs on MicroPython; loaded by the lines that take one)."""
 # Sources: none; the column gives the numbers (lapsecalc.column, lapsecalc.altitext).
-from lapsecalc.typed import number, said, unit_kind, shown
+# lapsecalc.typed is imported only when there is a height to read: a word without one
+# (balloon, sunset) computes without the number reader's heap.
 
 
 def height(s, w, args, col):
@@ -12,6 +13,7 @@ def height(s, w, args, col):
     the user's units when it is not in the column."""
     if not args:
         return col.elev_m
+    from lapsecalc.typed import number, said, unit_kind, shown
     if len(args) > 2:
         raise ValueError("%s takes a height, e.g. %s 8000ft, %s 2000ft agl, %s FL85, %s 700hPa"
                          % (w, w, w, w, w))

@@ -9,14 +9,12 @@ its 40-column text for the interpreter's loads word."""
 # Assumption: through the day the field temperature changes, the dewpoint stays (the
 #   air mass's moisture changes slowly; common practice), capped at the temperature;
 #   the field pressure and the ELR stay as observed and assumed.
+# The column and balloon code are imported by the functions that compute, the display
+# units by the text: on a board the loads word lets go of the physics (Session.release)
+# before it lays out the table, and a Column per field temperature is built, used for
+# its cells and let go of before the next.
 from math import floor
-from lapsecalc import units
 from lapsecalc.limits import check
-from lapsecalc.column import Column
-from lapsecalc.balloon import (_hot_lift, _z, working_envelope_t, oxygen_note,
-                               HOT_VOLUME_MIN_M3, HOT_VOLUME_MAX_M3, HOT_WEIGHT_MIN_KG,
-                               WEIGHT_MAX_KG, ENVELOPE_T_MAX_C)
-from lapsecalc.output import f_t
 
 # The load table: default field temperatures, degC, and row spacing, m; at most
 # TABLE_MAX rows or columns (a 40-column screen shows six temperatures).
@@ -31,6 +29,7 @@ def _field_column(col, t):
     # the same field pressure, elevation, ELR layers and top, the same dewpoint (capped
     # at t), so the same humidity rule aloft. The load table's columns; a Column, or
     # None when this ELR leaves no column above the field at t.
+    from lapsecalc.column import Column
     spec = [(z1 - col.elev_m, -1000.0 * grad) for _, z1, _, grad, _ in col.layers]
     try:
         return Column(t, col.td_c if col.td_c < t else t, col.p_hpa, col.elev_m, spec, col.top_m)
@@ -40,6 +39,7 @@ def _field_column(col, t):
 
 def _heights(col, heights_msl_m, step_m, depth_m):
     if heights_msl_m is not None:
+        from lapsecalc.balloon import _z
         hs = [_z(col, z) for z in heights_msl_m]
         if not hs or len(hs) > TABLE_MAX:
             raise ValueError("heights_msl_m has %d heights; allowed 1..%d" % (len(hs), TABLE_MAX))
@@ -80,6 +80,9 @@ def load_table(col, volume_m3, envelope_t_c, max_envelope_t_c=None, empty_kg=Non
     payload_kg (gross less empty_kg, same shape; None without empty_kg), volume_m3,
     envelope_t_c, max_envelope_t_c, empty_kg, dewpoint_c, oxygen_note.
     """
+    from lapsecalc.balloon import (_hot_lift, working_envelope_t, oxygen_note,
+                                   HOT_VOLUME_MIN_M3, HOT_VOLUME_MAX_M3, HOT_WEIGHT_MIN_KG,
+                                   WEIGHT_MAX_KG, ENVELOPE_T_MAX_C)
     v = check("volume_m3", volume_m3, HOT_VOLUME_MIN_M3, HOT_VOLUME_MAX_M3, "m3")
     if max_envelope_t_c is None:
         t_env = check("envelope_t_c", envelope_t_c, -90.0, ENVELOPE_T_MAX_C, "degC")
@@ -92,16 +95,17 @@ def load_table(col, volume_m3, envelope_t_c, max_envelope_t_c=None, empty_kg=Non
     if not temps or len(temps) > TABLE_MAX:
         raise ValueError("temps_c has %d temperatures; allowed 1..%d" % (len(temps), TABLE_MAX))
     temps = [check("t_c", t, -60.0, 60.0, "degC (field temperature)") for t in temps]
-    cols = [_field_column(col, t) for t in temps]
     if depth_m is None:
         depth_m = TABLE_DEPTH_M if empty is None else col.top_m - col.elev_m
     hs = _heights(col, heights_msl_m, step_m, depth_m)
-    gross = []
-    for z in hs:
-        row = []
-        for c in cols:
-            row.append(None if c is None or z > c.top_m else v * _hot_lift(c, z, t_env))
-        gross.append(row)
+    gross = [[] for z in hs]
+    for t in temps:
+        # One field temperature's column at a time (a board holds one, not six).
+        c = _field_column(col, t)
+        for i in range(len(hs)):
+            z = hs[i]
+            gross[i].append(None if c is None or z > c.top_m else v * _hot_lift(c, z, t_env))
+        c = None
     payload = None
     if empty is not None:
         if heights_msl_m is None:
@@ -128,6 +132,8 @@ def load_table_text(s, tab):
     MSL down, field temperatures across, kg in each cell; "-" cannot lift (payload
     or gross below zero), "." the column ends below that height. The oxygen note,
     when there is one, is the caller's to wrap."""
+    from lapsecalc import units
+    from lapsecalc.output import f_t
     ft, fahr = s.disp["h"] == "ft", s.disp["t"] == "f"
     head = "ft MSL" if ft else " m MSL"
     for t in tab["temps_c"]:

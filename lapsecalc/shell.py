@@ -35,14 +35,15 @@ PROMPT = "lc> "
 # dispatch layer and the session's state (measured: bench/mpy_budget.py). A new module
 # that only some lines need goes here. PHYSICS_MODULES: a board Session keeps no
 # Column between lines and lets go of it and of these once a line's numbers are
-# computed (Session.release), before the text layout loads.
+# computed (Session.release), before the text layout loads; so too of the number
+# readers (typed, heights), which the text does not use.
 PHYSICS_MODULES = ("parcel", "stability", "hazards", "aloft", "altimetry", "indicated",
                    "balloon", "adiabats", "column", "condensation", "standard", "moisture",
-                   "constants")
+                   "constants", "typed", "heights")
 WORD_MODULES = PHYSICS_MODULES + (
-    "settings", "commands", "typed", "units", "output", "machine", "groups", "helptext", "chart", "loadtable",
+    "settings", "commands", "units", "output", "machine", "groups", "helptext", "chart", "loadtable",
     "balloontext", "metar", "demo", "layout", "showword",
-    "balloonwords", "atwords", "heights", "hazardtext", "altitext", "aloftwords",
+    "balloonwords", "atwords", "hazardtext", "altitext", "aloftwords",
     "retell")
 # The words whose report carries the altimetry keys (isa_deviation_c,
 # density_altitude_dry_m, indicated_altitude_m: Column.report(altimetry=True)).

@@ -128,7 +128,8 @@ def test_word_modules_are_loaded_only_by_their_words():
 LINES = ("help", "help elr", "elev 1350ft", "temp 27C dew 13C", "chart", "help",
          "env 2800m3 wt 450kg tmax 120C", "balloon", "metar XXXX 021250Z 27/13 Q1016",
          "chart", "report", "base", "at 5000ft", "heights ind", "report", "stn 967.4hPa",
-         "report", "out kv", "report", "out json", "base", "out text")
+         "report", "out kv", "report", "out json", "base", "out text", "balloon 3000ft",
+         "loads 420kg", "unit m", "loads", "out kv", "loads", "out text")
 
 
 @pytest.fixture
@@ -253,3 +254,41 @@ def test_a_board_session_lets_go_of_the_report_before_a_line_that_never_reads_it
         kept = drop._rep
         assert drop.feed(line) == keep.feed(line), line
         assert drop._rep is kept, line
+
+
+def test_a_board_line_computes_before_its_text_loads(restore_word_modules):
+    # The balloon and loads words compute their numbers, then let go of the column,
+    # the balloon code and the number readers (Session.release) before the text; a
+    # balloon word without a height never loads the number reader (typed).
+    seen = []
+
+    class Board(shell.Session):
+        def release(self):
+            import gc
+            import weakref
+            before = set(m for m in sys.modules if m.startswith("lapsecalc."))
+            held = [weakref.ref(sys.modules["lapsecalc.column"].Column),
+                    weakref.ref(sys.modules["lapsecalc.balloon"].working_envelope_t)]
+            shell.Session.release(self)
+            gc.collect()
+            # Nothing left holds the column's or the balloon's code (a module dropped
+            # from sys.modules that a module-level import still refers to stays).
+            assert [r() for r in held] == [None, None]
+            seen.append((before, set(m for m in sys.modules if m.startswith("lapsecalc."))))
+
+    keep, drop = shell.Session(), Board()
+    drop.drop_word_modules = True
+    setup = ("temp 27C dew 13C elev 1350ft", "env 2800m3 wt 450kg tmax 120C")
+    lines = (("balloon", False), ("balloon 3000ft", True), ("loads 420kg", True),
+             ("loads", False))
+    want = [keep.feed(line) for line in setup] + [keep.feed(line) for line, _ in lines]
+    shell.drop_modules(shell.WORD_MODULES)  # what CPython's session loaded
+    assert [drop.feed(line) for line in setup] == want[:2]
+    for i, (line, read) in enumerate(lines):
+        seen[:] = []
+        assert drop.feed(line) == want[2 + i], line
+        before, after = seen[0]
+        assert ("lapsecalc.typed" in before) == read, line
+        assert "lapsecalc.balloon" in before and "lapsecalc.column" in before, line
+        for m in ("balloon", "column", "standard", "typed", "heights"):
+            assert "lapsecalc." + m not in after, (line, m)

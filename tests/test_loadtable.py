@@ -86,6 +86,12 @@ def test_empty_weight_rows_run_to_the_column_top():
     assert tab["heights_msl_m"] == [0.0, 1000.0, 2000.0, 3000.0, 4000.0, 5000.0, 6000.0]
     assert tab["empty_kg"] == 100.0 and tab["envelope_t_c"] == 100.0
     assert tab["dewpoint_c"] == col.td_c and tab["volume_m3"] == 2800.0
+    # A field below sea level: the rows still reach the top (the depth is the top less
+    # the field, 6400 m here, not the top plus it).
+    col = isa_from(-400.0, 6.5, 6000.0)
+    tab = load_table(col, 2800.0, 100.0, None, 100.0, [0.0], None, 1000.0)
+    assert tab["heights_msl_m"] == [-400.0, 0.0, 1000.0, 2000.0, 3000.0, 4000.0, 5000.0,
+                                    6000.0]
 
 
 def _cells(line):

@@ -15,6 +15,7 @@ package(
         "balloon.py",
         "balloontext.py",
         "chart.py",
+        "chartsvg.py",
         "commands.py",
         "demo.py",
         "fieldrisk.py",

@@ -145,7 +145,7 @@ def _c_svg(s, w, args):
 
 def chart_svg(s):
     """The profile chart of session s's state as SVG text."""
-    from lapsecalc.chart import svg
+    from lapsecalc.chartsvg import svg
     return svg(s.column("svg"), s.report("svg"), s.levels(), s.disp["h"], s.disp["t"])
 
 

@@ -2,7 +2,7 @@
 import xml.etree.ElementTree as ET
 
 from lapsecalc.column import Column
-from lapsecalc import chart, parcel
+from lapsecalc import chart, chartsvg, parcel
 
 SVG = "{http://www.w3.org/2000/svg}"
 # Half a pixel: positions in the SVG are written with one decimal.
@@ -109,7 +109,7 @@ def test_svg_parses_with_expected_elements():
     col = _isa_column()
     rep = col.report()
     levels = parcel.path(col, col.elev_m + rep["cloud_base_agl_m"])
-    text = chart.svg(col, rep, levels, "ft", "c", top_m=6000.0)
+    text = chartsvg.svg(col, rep, levels, "ft", "c", top_m=6000.0)
     root = ET.fromstring(text)
     assert root.tag == SVG + "svg"
     lines = {e.get("id"): e for e in root.iter(SVG + "polyline")}
@@ -140,7 +140,7 @@ def test_svg_icing_rect():
     col = _isa_column(t=30.0, td=22.0, lapse=8.0)
     rep = col.report()
     levels = parcel.path(col, col.elev_m + rep["cloud_base_agl_m"])
-    root = ET.fromstring(chart.svg(col, rep, levels, "m", "f"))
+    root = ET.fromstring(chartsvg.svg(col, rep, levels, "m", "f"))
     rects = [e for e in root.iter(SVG + "rect") if e.get("id") == "icing"]
     assert len(rects) == 1 and float(rects[0].get("height")) > 0.0
 
@@ -208,7 +208,7 @@ def test_svg_labels_do_not_overlap():
         rep = col.report(2.0)
         levels = parcel.path(col, col.elev_m + rep["cloud_base_agl_m"])
         for h_unit in ("ft", "m"):
-            boxes = _text_boxes(chart.svg(col, rep, levels, h_unit, "c"))
+            boxes = _text_boxes(chartsvg.svg(col, rep, levels, h_unit, "c"))
             for i, a in enumerate(boxes):
                 for b in boxes[i + 1:]:
                     apart = a[2] <= b[0] or b[2] <= a[0] or a[3] <= b[1] or b[3] <= a[1]
@@ -224,14 +224,14 @@ def test_points_aloft_and_tropopause_are_marked():
     rep, levels, lines = _draw(col, h_unit="m", top_m=6000.0)
     rows = lines[1:1 + chart.ROWS]
     assert [r for r in range(chart.ROWS) if "*" in _plot(rows[r])] == [7, 13]
-    t_lo, t_hi = chart._frame(col, levels, 0.0, 6000.0, "c", 2 * chart.ROWS)[3:5]
+    t_lo, t_hi = chart.frame(col, levels, 0.0, 6000.0, "c", 2 * chart.ROWS)[3:5]
     for r, t in ((13, 8.5), (7, -4.5)):
         assert _plot(rows[r]).index("*") == int(round((t - t_lo) / (t_hi - t_lo) * 26))
     assert [r for r in range(chart.ROWS) if "P" in _margin(rows[r])] == [2]
     assert lines[-1] == "* point aloft P tropopause" and len(lines) == 1 + chart.ROWS + 5
     # Without points and with the tropopause above the chart: no third legend line.
     assert len(_draw(_isa_column(), h_unit="m", top_m=6000.0)[2]) == 1 + chart.ROWS + 4
-    root = ET.fromstring(chart.svg(col, rep, levels, "m", "c", top_m=6000.0))
+    root = ET.fromstring(chartsvg.svg(col, rep, levels, "m", "c", top_m=6000.0))
     dots = [e for e in root.iter(SVG + "circle") if e.get("class") == "aloft-point"]
     # y = 34 + (6000 - z) / 6000 * 382 (the plot box of the SVG test above).
     assert sorted(float(e.get("cy")) for e in dots) == [
@@ -251,7 +251,7 @@ def test_svg_legend_shows_samples_and_names_no_colour():
     col = _isa_column(t=30.0, td=22.0, lapse=8.0)
     rep = col.report()
     levels = parcel.path(col, col.elev_m + rep["cloud_base_agl_m"])
-    root = ET.fromstring(chart.svg(col, rep, levels, "ft", "c"))
+    root = ET.fromstring(chartsvg.svg(col, rep, levels, "ft", "c"))
     words = " ".join((t.text or "") for t in root.iter(SVG + "text")).lower().split()
     assert not [w for w in words if w.strip(";:,()") in COLOUR_WORDS], words
     paint = ("fill", "stroke", "stroke-width", "stroke-dasharray", "fill-opacity")

@@ -139,7 +139,7 @@ INTERPRETER_LAYERS = (
     ("balloonwords", "showword", "atwords"),
     ("settings", "queries", "commands"),
     ("heights",),
-    ("altitext",),
+    ("altitext", "chartsvg"),
     ("layout", "chart", "metar", "helptext", "loadtable", "balloontext"),
     ("retell",),  # the library's sentences in the user's terms (layout says warnings)
     ("aloftwords",),

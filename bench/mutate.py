@@ -69,6 +69,7 @@ DEFAULT_TESTS = {
     "altimetry": ["test_altimetry_edges.py", "test_altimetry.py", "test_shell_altimetry.py",
                   "test_shell_values.py", "test_column.py"],
     "altitext": ["test_altimeter_words.py", "test_shell_altimetry.py", "test_shell_values.py"],
+    "altiwords": ["test_altimeter_words.py", "test_shell_altimetry.py", "test_shell_values.py"],
     "hazards": ["test_hazards.py", "test_report_keys.py", "test_shell.py"],
     "thermals": ["test_hazards.py", "test_report_keys.py", "test_stability.py"],
     "icing": ["test_hazards.py", "test_report_keys.py", "test_column_edges.py", "test_chart.py"],

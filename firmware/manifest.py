@@ -12,6 +12,7 @@ package(
         "aloftwords.py",
         "altimetry.py",
         "altitext.py",
+        "altiwords.py",
         "balloon.py",
         "balloontext.py",
         "chart.py",

@@ -19,7 +19,7 @@ def height(s, w, args, col):
                          % (w, w, w, w, w))
     where = args[1].lower() if len(args) > 1 else s.disp["z"]
     if args[0][:2].lower() == "fl" or where == "ind":
-        from lapsecalc.altitext import height_aloft
+        from lapsecalc.altiwords import height_aloft
         return height_aloft(s, w, args, col)
     if len(args) == 1 and unit_kind(args[0]) == "p":
         p = number(args[0], "p", "hpa")

@@ -161,8 +161,9 @@ def kv_report(s):
 
 
 def _c_altimeter(s, w, args):
-    # levels and cold: their work and text in lapsecalc.altitext (loaded for the line).
-    from lapsecalc.altitext import altimeter_word
+    # levels and cold: their numbers in lapsecalc.altiwords, then their text in
+    # lapsecalc.altitext (each loaded for the line).
+    from lapsecalc.altiwords import altimeter_word
     keys, vals, text = altimeter_word(s, w, args)
     if s.mode != "text":
         return emit(s, keys, vals)

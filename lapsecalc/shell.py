@@ -44,7 +44,7 @@ WORD_MODULES = PHYSICS_MODULES + (
     "settings", "commands", "units", "output", "machine", "groups", "helptext", "chart", "loadtable",
     "balloontext", "metar", "demo", "layout", "showword",
     "balloonwords", "atwords", "hazardtext", "altitext", "aloftwords",
-    "retell", "chartsvg")
+    "retell", "chartsvg", "altiwords")
 # The words whose report carries the altimetry keys (isa_deviation_c,
 # density_altitude_dry_m, indicated_altitude_m: Column.report(altimetry=True)).
 ALTIMETRY_WORDS = ("report", "obs", "da", "levels")

@@ -139,6 +139,7 @@ INTERPRETER_LAYERS = (
     ("balloonwords", "showword", "atwords"),
     ("settings", "queries", "commands"),
     ("heights",),
+    ("altiwords",),
     ("altitext", "chartsvg"),
     ("layout", "chart", "metar", "helptext", "loadtable", "balloontext"),
     ("retell",),  # the library's sentences in the user's terms (layout says warnings)

@@ -11,7 +11,7 @@ from lapsecalc.column import Column
 # public function without one as "not timed". Optional modules are skipped when they
 # do not import.
 COVERED_MODULES = ("moisture", "standard", "condensation", "adiabats", "column", "aloft",
-                   "parcel", "stability", "units", "metar", "balloon", "chart")
+                   "parcel", "stability", "units", "metar", "balloon", "chart", "chartsvg")
 
 # The benchmark column: an invented warm afternoon at an invented field (as the demo).
 BENCH_T_C = 27.0
@@ -256,13 +256,16 @@ def _optional_cases(col, levels):
     except ImportError:
         pass
     try:
-        from lapsecalc import chart
+        from lapsecalc import chart, chartsvg
         rep = col.report()
         out += [
             ("chart.top_of", chart.top_of, (col, rep), {}),
             ("chart.parcel_t", chart.parcel_t, (levels, col.elev_m + 3000.0), {}),
             ("chart.text", chart.text, (col, rep, levels), {}),
-            ("chart.svg", chart.svg, (col, rep, levels), {}),
+            ("chart.frame", chart.frame, (col, levels, col.elev_m, col.elev_m + 3000.0, "c", 32),
+             {}),
+            ("chart.icing_span", chart.icing_span, (rep,), {}),
+            ("chartsvg.svg", chartsvg.svg, (col, rep, levels), {}),
         ]
     except ImportError:
         pass

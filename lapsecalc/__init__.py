@@ -27,3 +27,19 @@ def __getattr__(name):
     except ImportError:
         raise AttributeError("lapsecalc has no %r" % (name,))
     return found if module is None else getattr(found, name)
+
+
+def _drop(*names):
+    # On a board (MicroPython): forget the submodules lapsecalc.<name> (the next
+    # import loads one afresh; until then it holds no heap) and collect, so that what
+    # comes next gets their room; no collection while the collector is off (an
+    # allocation count runs). Nothing on CPython.
+    import sys
+    if sys.implementation.name != "micropython":
+        return
+    for name in names:
+        sys.modules.pop("lapsecalc." + name, None)
+        globals().pop(name, None)
+    import gc
+    if gc.isenabled():
+        gc.collect()

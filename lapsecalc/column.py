@@ -11,7 +11,6 @@ from lapsecalc.moisture import (_es_water, _mixing_ratio_kg_kg, _dewpoint_from_e
                                 relative_humidity, wet_bulb)
 from lapsecalc.standard import (layer_pressure, layer_height, station_pressure, qnh,
                                 pressure_altitude, isa_height_of_density, _density)
-from lapsecalc.condensation import cloud_base
 
 TOP_MAX_M = 32000.0
 # Heights closer than this are one level (crossings found in two layers), m.
@@ -258,6 +257,7 @@ class Column:
 
     def cloud_base(self, method="exact"):
         """(height_agl_m, t_c, p_hpa) of the surface parcel's LCL (condensation.cloud_base)."""
+        from lapsecalc.condensation import cloud_base
         return cloud_base(self.t_c, self.td_c, self.p_hpa, method)
 
     def report(self, thermal_excess_c=0.0, altimetry=True):
@@ -270,17 +270,22 @@ class Column:
         altimetry: add the keys of lapsecalc.indicated (indicated_altitude_m,
         isa_deviation_c, density_altitude_dry_m) when that module is installed; they cost
         a board about 4 KB of heap."""
-        # On a board (MicroPython): collect the garbage of building the column, then
-        # load every module while the heap is still whole, before the parcel path cuts
-        # it up: a load (or a failed one: its message is a new interned string) needs
-        # large pieces (the core report's hard heap limit on the Unix port fell from
-        # 77 to 69 KiB with the collection alone). Not while the collector is off (an
-        # allocation count is running) and not on CPython (no gain, and slow).
-        import sys
-        if sys.implementation.name == "micropython":
-            import gc
-            if gc.isenabled():
-                gc.collect()
+        # On a board (MicroPython): the cloud bases first, with the condensation code
+        # loaded for them and let go of after (lapsecalc._drop; the core report's hard
+        # heap limit on the Unix port fell from 57 to 53 KiB), then a collection (the
+        # garbage of building the column and of the cloud bases) and every other
+        # module loaded while the heap is still whole, before the parcel path cuts it
+        # up: a load (or a failed one: its message is a new interned string) needs
+        # large pieces (the limit fell from 77 to 69 KiB with the collection alone).
+        excess_c = check("excess_c", thermal_excess_c, 0.0, 10.0, "K")
+        from lapsecalc.condensation import cloud_base
+        lcl_agl, lcl_t, lcl_p = cloud_base(self.t_c, self.td_c, self.p_hpa)
+        # The heated surface parcel's cloud base (stability.add_to_report's thermal kind).
+        heated_agl = lcl_agl if excess_c == 0.0 else cloud_base(
+            min(self.t_c + excess_c, T_MAX_C), self.td_c, self.p_hpa)[0]
+        cloud_base = None
+        from lapsecalc import _drop
+        _drop("condensation")
         from lapsecalc import stability, parcel
         try:
             from lapsecalc import hazards
@@ -297,7 +302,6 @@ class Column:
             keys += hazards.report_keys()
         r = dict.fromkeys(keys)
         keys = None
-        lcl_agl, lcl_t, lcl_p = self.cloud_base()
         lcl_msl = self.elev_m + lcl_agl
         path = parcel.path(self, lcl_msl)
         rho = self.density_at(self.elev_m)
@@ -329,7 +333,7 @@ class Column:
             r[level_key] = self.level(t, zs)
             r[levels_key] = zs
         r["tropopause_msl_m"] = self.tropopause_m
-        stability.add_to_report(self, path, r, thermal_excess_c)
+        stability.add_to_report(self, path, r, excess_c, heated_agl)
         if self.dews is None:
             r["cloud_layers_msl_m"] = None
         else:
@@ -339,6 +343,9 @@ class Column:
         if hazards is None:
             r["cautions"] = stability.CAUTIONS
         else:
+            # The heated parcel's cloud base for lapsecalc.thermals (the condensation
+            # code that gave it is gone on a board).
+            r["thermal_cloud_base_msl_m"] = self.elev_m + heated_agl
             hazards.add_to_report(self, path, r)
         # Last, so that it sees every height key: indicated altitudes, the ISA deviation
         # and the dry density altitude (indicated.py, an extra: a core-only board gets

@@ -66,35 +66,17 @@ def cautions(r):
     return out + list(CAUTIONS)
 
 
-def _drop(name):
-    # A board: forget lapsecalc.<name> (the next import loads it afresh) and collect.
-    import sys
-    import lapsecalc
-    sys.modules.pop("lapsecalc." + name, None)
-    try:
-        delattr(lapsecalc, name)
-    except AttributeError:
-        pass
-    collect = getattr(lapsecalc, "collect", None)
-    if collect is None:
-        import gc
-        collect = gc.collect
-    collect()
-
-
 def add_to_report(col, levels, r):
     """Add the hazard keys, the thermals' cloud base, usable top and capped decks
     (refining thermal_kind) and the cautions to report dict r (after the stability
     keys: the hazard modules read the cloud base, the LFC, the EL, the thermal keys,
     the parcel's 0 degC level and the cloud layers)."""
-    import sys
-    board = sys.implementation.name == "micropython"
+    from lapsecalc import _drop
     for name in PARTS:
         mod = __import__("lapsecalc." + name, None, None, ("add_keys",))
         try:
             mod.add_keys(col, levels, r)
         finally:
             mod = None
-            if board:
-                _drop(name)
+            _drop(name)
     r["cautions"] = cautions(r)

@@ -13,7 +13,6 @@ from lapsecalc.limits import check
 from lapsecalc.moisture import _dewpoint_from_e
 from lapsecalc.adiabats import moist_lapse_k_per_km
 from lapsecalc.standard import layer_pressure
-from lapsecalc.condensation import cloud_base
 from lapsecalc import parcel
 
 # A lapse rate this close to a reference rate is called neutral, K/km.
@@ -243,9 +242,11 @@ def report_keys():
             "cloud_layers_msl_m", "levels_above_top", "warnings", "cautions"]
 
 
-def add_to_report(col, levels, r, excess_c=0.0):
+def add_to_report(col, levels, r, excess_c=0.0, heated_base_agl_m=None):
     """Add the stability, parcel and thermal keys to report dict r (lapsecalc.hazards
-    adds the thermals' cloud base, usable top and capped decks)."""
+    adds the thermals' cloud base, usable top and capped decks). heated_base_agl_m:
+    the cloud base, m AGL, of the surface parcel heated by excess_c
+    (condensation.cloud_base), when the caller has it; else computed here."""
     excess_c = check("excess_c", excess_c, 0.0, 10.0, "K")
     lcl = r["cloud_base_msl_m"]
     per_layer = layers(col)
@@ -263,7 +264,10 @@ def add_to_report(col, levels, r, excess_c=0.0):
     top = thermal_top(col, excess_c)
     if excess_c == 0.0:
         th_lcl = col.elev_m + r["cloud_base_agl_m"]
+    elif heated_base_agl_m is not None:
+        th_lcl = col.elev_m + heated_base_agl_m
     else:
+        from lapsecalc.condensation import cloud_base
         th_lcl = col.elev_m + cloud_base(min(col.t_c + excess_c, 60.0), col.td_c, col.p_hpa)[0]
     if top is not None and top - col.elev_m < 1.0:
         kind = "none"

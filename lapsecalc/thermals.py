@@ -8,7 +8,6 @@ inversion, and the temperature dry thermals need."""
 from math import fabs
 from lapsecalc.constants import DRY_LAPSE_K_PER_KM
 from lapsecalc.stability import NEUTRAL_BAND_K_PER_KM
-from lapsecalc.condensation import cloud_base
 
 
 def capped_top(col, base_msl_m, pa):
@@ -37,10 +36,18 @@ def capped_top(col, base_msl_m, pa):
 def add_keys(col, levels, r):
     """Add thermal_cloud_base_msl_m, thermal_usable_top_msl_m, capped_cloud_top_msl_m
     and dry_thermals_from_t_c to report r and refine thermal_kind (none, blue,
-    cumulus, capped), from the keys stability.add_to_report set; levels is not used."""
-    excess = r["thermal_excess_c"]
-    th_lcl = col.elev_m + (r["cloud_base_agl_m"] if excess == 0.0 else
-                           cloud_base(min(col.t_c + excess, 60.0), col.td_c, col.p_hpa)[0])
+    cumulus, capped), from the keys stability.add_to_report set; levels is not used.
+    thermal_cloud_base_msl_m may hold on entry the heated surface parcel's cloud base,
+    m MSL (Column.report puts it there: a board has let go of the condensation code)."""
+    th_lcl = r.get("thermal_cloud_base_msl_m")
+    if th_lcl is None:
+        excess = r["thermal_excess_c"]
+        if excess == 0.0:
+            th_lcl = col.elev_m + r["cloud_base_agl_m"]
+        else:
+            from lapsecalc.condensation import cloud_base
+            th_lcl = col.elev_m + cloud_base(min(col.t_c + excess, 60.0), col.td_c,
+                                             col.p_hpa)[0]
     if th_lcl > col.top_m:
         th_lcl = None
     top = r["thermal_top_msl_m"]

@@ -35,7 +35,9 @@ def _lapsecalc_imports(module, optional_too=True):
             continue
         if isinstance(node, ast.ImportFrom) and node.module:
             if node.module == "lapsecalc":
-                out.update(a.name for a in node.names)
+                # Submodules only (a name defined in __init__.py, such as _drop, is none).
+                out.update(a.name for a in node.names
+                           if os.path.exists(os.path.join(boardset.PKG, a.name + ".py")))
             elif node.module.startswith("lapsecalc."):
                 out.add(node.module.split(".")[1])
         elif isinstance(node, ast.Import):

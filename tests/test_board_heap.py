@@ -1,0 +1,115 @@
+"""What Column.report() does for a board's heap: lapsecalc._drop lets go of a module
+on MicroPython only; the cloud base of the heated parcel, computed once with the
+condensation code (which a board then drops), reaches stability.add_to_report and
+lapsecalc.thermals unchanged."""
+import sys
+import types
+
+import pytest
+
+import lapsecalc
+from lapsecalc import stability, thermals
+from lapsecalc.column import Column, report_keys
+from lapsecalc.condensation import cloud_base
+from lapsecalc.parcel import path
+
+DEMO = (27.0, 13.0, 1016.0, 411.48, [(250.0, 9.5), (2400.0, 7.5), (None, 6.5)])
+
+
+@pytest.fixture
+def spare_modules():
+    # Two stand-in submodules, gone again afterwards whatever the test did.
+    names = ("_spare_a", "_spare_b")
+    for n in names:
+        mod = types.ModuleType("lapsecalc." + n)
+        sys.modules["lapsecalc." + n] = mod
+        setattr(lapsecalc, n, mod)
+    yield names
+    for n in names:
+        sys.modules.pop("lapsecalc." + n, None)
+        lapsecalc.__dict__.pop(n, None)
+
+
+def test_drop_keeps_modules_on_cpython(spare_modules):
+    lapsecalc._drop(*spare_modules)
+    for n in spare_modules:
+        assert "lapsecalc." + n in sys.modules and n in lapsecalc.__dict__
+
+
+def test_drop_forgets_each_module_named_on_a_board(spare_modules, monkeypatch):
+    monkeypatch.setattr(sys, "implementation", types.SimpleNamespace(name="micropython"))
+    lapsecalc._drop(*spare_modules)
+    for n in spare_modules:
+        assert "lapsecalc." + n not in sys.modules and n not in lapsecalc.__dict__
+    lapsecalc._drop("_never_loaded")  # nothing to forget is no error
+
+
+def _stability_keys(col, excess_c, heated):
+    r = dict.fromkeys(report_keys())
+    lcl_agl = col.cloud_base()[0]
+    r["cloud_base_agl_m"] = lcl_agl
+    r["cloud_base_msl_m"] = col.elev_m + lcl_agl
+    stability.add_to_report(col, path(col, col.elev_m + lcl_agl), r, excess_c, heated)
+    return r
+
+
+def test_heated_cloud_base_given_is_the_one_computed():
+    col = Column.from_qnh(*DEMO)
+    heated = cloud_base(col.t_c + 2.0, col.td_c, col.p_hpa)[0]
+    assert heated > col.cloud_base()[0] + 200.0  # 2 K of excess lifts it (about 125 m/K)
+    assert _stability_keys(col, 2.0, heated) == _stability_keys(col, 2.0, None)
+    assert col.report(2.0)["thermal_kind"] == _stability_keys(col, 2.0, None)["thermal_kind"]
+
+
+def test_heated_cloud_base_computed_when_not_given():
+    # Invented column whose dry thermals (2 K excess) top out at 2240 m AGL, between
+    # the cloud bases of the surface air 2 K cooler (2017 m) and 2 K warmer (2517 m):
+    # blue thermals only with the warmer parcel's base.
+    col = Column.from_qnh(30.0, 12.0, 1013.0, 200.0, [(2200.0, 9.0), (None, 2.0)])
+    r = _stability_keys(col, 2.0, None)
+    top_agl = r["thermal_top_msl_m"] - col.elev_m
+    warmer = cloud_base(col.t_c + 2.0, col.td_c, col.p_hpa)[0]
+    cooler = cloud_base(col.t_c - 2.0, col.td_c, col.p_hpa)[0]
+    assert cooler < top_agl < warmer and r["thermal_kind"] == "blue"
+    # Without excess the surface parcel's own base: over a superadiabatic first layer
+    # the dry thermals rise, to under that base here (blue).
+    col = Column.from_qnh(30.0, 12.0, 1013.0, 200.0, [(1500.0, 10.0), (None, 2.0)])
+    r = _stability_keys(col, 0.0, None)
+    assert col.elev_m + 1.0 < r["thermal_top_msl_m"] < r["cloud_base_msl_m"]
+    assert r["thermal_kind"] == "blue"
+
+
+def test_heated_cloud_base_given_is_used():
+    # The demo's dry thermals top out below the heated parcel's cloud base: cumulus
+    # when the base given lies below their top, blue thermals when above it.
+    col = Column.from_qnh(*DEMO)
+    r = _stability_keys(col, 2.0, None)
+    top_agl = r["thermal_top_msl_m"] - col.elev_m
+    assert r["thermal_kind"] == "blue"
+    assert _stability_keys(col, 2.0, top_agl - 1.0)["thermal_kind"] == "cumulus"
+    assert _stability_keys(col, 2.0, top_agl + 1.0)["thermal_kind"] == "blue"
+    # Without excess the surface parcel's own base counts, whatever is given.
+    assert _stability_keys(col, 0.0, 1.0) == _stability_keys(col, 0.0, None)
+
+
+def test_thermals_take_the_heated_base_from_the_report():
+    col = Column.from_qnh(*DEMO)
+    full = col.report(2.0)
+    heated = cloud_base(col.t_c + 2.0, col.td_c, col.p_hpa)[0]
+    assert full["thermal_cloud_base_msl_m"] == col.elev_m + heated
+    levels = path(col, full["cloud_base_msl_m"])
+    r = dict(full)
+    r["thermal_cloud_base_msl_m"] = None  # not given: computed (the same)
+    thermals.add_keys(col, levels, r)
+    assert r == full
+    bare = col.report(0.0)
+    r = dict(bare)
+    r["thermal_cloud_base_msl_m"] = None  # no excess: the surface parcel's own base
+    thermals.add_keys(col, levels, r)
+    assert r == bare and r["thermal_cloud_base_msl_m"] == bare["cloud_base_msl_m"]
+    r["thermal_cloud_base_msl_m"] = col.top_m + 1.0  # given above the top: none in it
+    thermals.add_keys(col, levels, r)
+    assert r["thermal_cloud_base_msl_m"] is None
+    r["thermal_cloud_base_msl_m"] = col.elev_m + 600.0
+    thermals.add_keys(col, levels, r)
+    assert r["thermal_cloud_base_msl_m"] == col.elev_m + 600.0

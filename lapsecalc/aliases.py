@@ -1,6 +1,7 @@
 """The words people type, before any number is read: other names of words (aliases),
-two-word names, a slip's nearest word, text safe to show, and where a typed number
-ends (runs on MicroPython; the shell holds it between lines: it is small)."""
+two-word names, text safe to show, and where a typed number ends (runs on MicroPython;
+the shell holds it between lines: it is small; a slip's nearest word is
+lapsecalc.typed's, loaded only for a line that needs one)."""
 # Sources: none. lapsecalc.typed (numbers with units) builds on it and re-exports it.
 
 
@@ -53,26 +54,3 @@ def no_args(word, args):
 
 def starts_number(tok):
     return tok != "" and tok[0] in "0123456789+-."
-
-
-def _edit_distance(a, b):
-    # Levenshtein distance of two short words (callers cap them at 16 characters).
-    prev = list(range(len(b) + 1))
-    for i in range(1, len(a) + 1):
-        cur = [i] + [0] * len(b)
-        for j in range(1, len(b) + 1):
-            cur[j] = min(prev[j] + 1, cur[j - 1] + 1, prev[j - 1] + (a[i - 1] != b[j - 1]))
-        prev = cur
-    return prev[-1]
-
-
-def nearest(word, known):
-    """The known word closest to word (at most 2 edits, fewer than its length), or None."""
-    w = word.lower()[:16]
-    best, best_d = None, 3
-    for k in sorted(known):
-        if abs(len(k) - len(w)) < best_d:
-            d = _edit_distance(w, k)
-            if d < best_d and d < len(w):
-                best, best_d = k, d
-    return best

@@ -8,7 +8,7 @@
 # State keys (lapsecalc.state): "aloft", a tuple of points (kind, level, t_c, td_c or
 # None), kind "z" (level m MSL), "p" (hPa) or "fl" (flight level); lowest first.
 # "trop_m": the tropopause, m MSL, or None (off); absent means the ICAO 11000 m.
-from lapsecalc.limits import T_MIN_C, T_MAX_C, DEW_SLACK_K
+from lapsecalc.limits import T_MIN_C, T_MAX_C, DEW_SLACK_K, TOP_MAX_M
 from lapsecalc.typed import value, said, shown
 from lapsecalc.output import f_h1, f_t, f_p
 from lapsecalc.state import DEFAULT_TOP_M, fl_pressure_hpa
@@ -74,7 +74,6 @@ def set_trop(s, new, args, echo):
     if args[0].lower() in ("none", "off"):
         new["trop_m"] = None
         return "tropopause none (no isothermal part)"
-    from lapsecalc.column import TOP_MAX_M
     new["trop_m"] = value(args[0], "h", s.disp["h"], 0.0, TOP_MAX_M)
     return "tropopause " + echo(s, args[0], "h", s.disp["h"], new["trop_m"])
 

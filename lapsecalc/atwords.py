@@ -41,7 +41,7 @@ def _parcel_t(s, col, z):
     levels = s.levels()
     for i in range(1, len(levels)):
         if z <= levels[i][0]:
-            lcl = col.elev_m + s.report("at")["cloud_base_agl_m"]
+            lcl = col.elev_m + col.cloud_base()[0]  # the report's cloud_base_agl_m
             return temperature_at(col, levels, i, z, lcl)
     return levels[-1][2]
 

@@ -6,13 +6,12 @@
 #     -20 degC (common practice).
 from lapsecalc.constants import T0_K, EPS
 from lapsecalc.limits import (check, check_p, check_elev, check_lapse, check_dew, finite,
-                              T_MIN_C, T_MAX_C)
+                              T_MIN_C, T_MAX_C, TOP_MAX_M)
 from lapsecalc.moisture import (_es_water, _mixing_ratio_kg_kg, _dewpoint_from_e,
                                 relative_humidity, wet_bulb)
 from lapsecalc.standard import (layer_pressure, layer_height, station_pressure, qnh,
                                 pressure_altitude, isa_height_of_density, _density)
 
-TOP_MAX_M = 32000.0
 # Heights closer than this are one level (crossings found in two layers), m.
 _SAME_LEVEL_M = 0.01
 def report_keys():

@@ -6,8 +6,15 @@ MicroPython)."""
 # change the session: it checks everything first and changes only at the end, so a
 # refused line leaves the session as it was.
 from lapsecalc.typed import ALIASES, shown, no_args
-from lapsecalc.state import CLEAR
 from lapsecalc.output import ack
+
+# clear WORD -> state keys it forgets (the keys: lapsecalc.state)
+CLEAR = {"temp": ("t_c",), "dew": ("hum",), "rh": ("hum",), "elev": ("elev_m",),
+         "qnh": ("press",), "stn": ("press",), "elr": ("lapse",), "top": ("top_m",),
+         "excess": ("excess_c",), "env": ("env_m3",), "wt": ("wt_kg",), "fill": ("fill_m3",),
+         "tmax": ("tmax_c",), "tenv": ("tenv_c",), "gas": ("gas",), "pure": ("purity",),
+         "margin": ("margin_k",), "superheat": ("superheat_k",),
+         "aloft": ("aloft",), "trop": ("trop_m",)}
 
 
 def _clear(s, w, args):

@@ -7,10 +7,10 @@
 # A setter is f(session, new_state, args) -> the words of the "ok" line. It writes
 # only into new_state (a copy; keys in lapsecalc.state); the shell commits the copy
 # once every setting of the line has passed. A new setting word: a setter here, its
-# entry in SETTINGS, its state keys in state.CLEAR (and state.AIR_KEYS when the column
+# entry in SETTINGS, its state keys in commands.CLEAR (and state.AIR_KEYS when the column
 # depends on them), its help in lapsecalc.helptext.
 from lapsecalc.limits import T_MIN_C, T_MAX_C, ELEV_MIN_M, ELEV_MAX_M, DEW_SLACK_K
-from lapsecalc.limits import QNH_MIN_HPA, QNH_MAX_HPA, P_MAX_HPA
+from lapsecalc.limits import QNH_MIN_HPA, QNH_MAX_HPA, P_MAX_HPA, TOP_MAX_M
 from lapsecalc.typed import number, shown, value, said, unit_of, digits, in_unit
 from lapsecalc.output import f_h1, f_t, f_dt, f_p, f_lapse
 
@@ -183,7 +183,6 @@ def _s_elr(s, new, args):
                 raise ValueError("layer top %s is not above %s" % (
                     said(parts[1], s.disp["h"]),
                     "the field" if not below else "the layer below (%s AGL)" % f_h1(s, below)))
-            from lapsecalc.column import TOP_MAX_M  # (the column's code: only when needed)
             top = below = value(parts[1], "h", s.disp["h"], below + 1.0, TOP_MAX_M)
         elif k != len(args) - 1:
             raise ValueError("'%s' has no @top; only the last layer runs to the column top"
@@ -194,7 +193,6 @@ def _s_elr(s, new, args):
 
 
 def _s_top(s, new, args):
-    from lapsecalc.column import TOP_MAX_M
     new["top_m"] = value(args[0], "h", s.disp["h"], -400.0, TOP_MAX_M)
     return "top " + echo(s, args[0], "h", s.disp["h"], new["top_m"]) + " MSL"
 

@@ -14,8 +14,7 @@
 # keys), lapsecalc.output (display units, acks, kv values), lapsecalc.state (state
 # keys, defaults, the Column), lapsecalc.typed (numbers, units; loaded by the lines
 # that read one), lapsecalc.aliases (other names of words, slips) -> the library.
-from lapsecalc.aliases import (ALIASES, AMBIGUOUS, PAIRS, shown, split_number, starts_number,
-                               nearest)
+from lapsecalc.aliases import ALIASES, PAIRS, shown, split_number, starts_number
 from lapsecalc.state import AIR_KEYS, missing, build_column, dewpoint_of, settle
 from lapsecalc.queries import QUERIES
 
@@ -41,10 +40,13 @@ PHYSICS_MODULES = ("parcel", "stability", "hazards", "aloft", "altimetry", "indi
                    "balloon", "adiabats", "column", "condensation", "standard", "moisture",
                    "constants", "typed", "heights")
 WORD_MODULES = PHYSICS_MODULES + (
-    "settings", "commands", "units", "output", "machine", "groups", "helptext", "chart", "loadtable",
+    "limits", "settings", "commands", "units", "output", "machine", "groups", "helptext", "chart", "loadtable",
     "balloontext", "metar", "demo", "layout", "showword",
     "balloonwords", "atwords", "hazardtext", "altitext", "aloftwords",
     "retell", "chartsvg", "altiwords")
+# The setting words' modules: let go of on a board once a line's settings are read,
+# before the new state's Column is built.
+SETTING_MODULES = ("settings", "aloftwords", "metar", "typed", "heights")
 # The words whose report carries the altimetry keys (isa_deviation_c,
 # density_altitude_dry_m, indicated_altitude_m: Column.report(altimetry=True)).
 ALTIMETRY_WORDS = ("report", "obs", "da", "levels")
@@ -69,36 +71,21 @@ def split_line(line):
 # the report kept for the session is let go of before such a line (the next line that
 # reads it computes it again; measured: the balloon, loads and sunset lines' hard heap
 # limit fell by about 9 KiB). A word missing here costs heap, one too many a recompute.
-_NO_REPORT = ("balloon", "loads", "sunset", "show", "iso", "help")
+_NO_REPORT = ("balloon", "loads", "sunset", "show", "iso", "at", "help")
 # Query words that take a number after them (a first word followed by a number is
 # one of these or a setting).
 _TAKE_NUMBER = ("at", "da", "iso", "balloon", "chart")
 
 
 def _unknown(word, settings_only=False, number_next=False, after=None):
-    # The error for a word no table has. A suggestion is only of the same kind: a unit
-    # is said to be one; right after a number a slip of a unit is a unit ("6500 fet");
-    # in a line of settings only settings are suggested; a first word followed by a
-    # number, only words that take one.
-    from lapsecalc.typed import is_unit, near_unit
-    if is_unit(word):
-        return "'%s' is a unit: write it after its number, e.g. elev 6500 ft" % shown(word)
-    if word.lower() in AMBIGUOUS:
-        return AMBIGUOUS[word.lower()]
-    unit = near_unit(word) if after is not None and starts_number(after) else None
-    if unit is not None:
-        return "unknown word '%s' after %s; did you mean the unit: %s %s?" % (
-            shown(word), shown(after), shown(after), unit)
+    # The error for a word no table has (lapsecalc.typed.unknown, loaded only then):
+    # in a line of settings only settings are suggested; after a first word followed by
+    # a number, only words that take one.
+    from lapsecalc.typed import unknown
     known = list(SETTING_WORDS)
     if not settings_only:
         known += list(_TAKE_NUMBER) if number_next else list(_WORDS)
-    for a in ALIASES:
-        if ALIASES[a] in known and len(a) > 2:
-            known.append(a)
-    near = nearest(word, known)
-    near = ALIASES.get(near, near)
-    return "unknown word '%s'; %s(help lists the words)" % (
-        shown(word), "did you mean '%s'? " % near if near else "")
+    return unknown(word, known, after)
 
 
 def joined(words):
@@ -233,7 +220,8 @@ class Session:
             return []
         w = words[0].lower()
         w = ALIASES.get(w, w)
-        if self.drop_word_modules and w in _NO_REPORT and self._rep is not None:
+        if self.drop_word_modules and self._rep is not None and (
+                w in _NO_REPORT or w == "da" and len(words) > 1):  # da H: as at H
             self._rep = None
             self.collect()
         if w in SETTING_WORDS:
@@ -282,6 +270,13 @@ class Session:
             i = j
         try:
             whole(self, new)
+            if self.drop_word_modules:
+                # On a board the setting words' code is let go of before the new
+                # state's Column is built (commit), as a query lets go of the physics
+                # before its text.
+                fn = whole = SETTINGS = None
+                drop_modules(SETTING_MODULES)
+                self.collect()
             self.commit(new)
         except ValueError as e:
             # What only the library finds (the new state's column) in the user's terms.
@@ -366,7 +361,9 @@ class Session:
         if self._levels is None:
             from lapsecalc.parcel import path
             col = self.column()
-            self._levels = path(col, col.elev_m + self.report("parcel")["cloud_base_agl_m"])
+            # The report's cloud base (Column.report() takes it from cloud_base() too),
+            # without computing the whole report for the words that need only the path.
+            self._levels = path(col, col.elev_m + col.cloud_base()[0])
         return self._levels
 
 

@@ -9,20 +9,15 @@ and the Column it describes (runs on MicroPython)."""
 # purity (0.5..1), superheat_k (the gas over the air); aloft (points, lapsecalc.aloftwords),
 # trop_m (tropopause m MSL or None: off).
 # The setting words (lapsecalc.settings) write them into a copy; the shell commits it.
-from lapsecalc.limits import check_dew
+# The shell holds this module between lines: what only some lines need is imported
+# inside them (lapsecalc.limits, the column), and the clear word's table of state keys
+# is lapsecalc.commands.CLEAR.
 
 ISA_LAPSE_K_PER_KM = 6.5  # ICAO standard atmosphere below 11 km (common practice)
 STANDARD_QNH_HPA = 1013.25  # ICAO standard sea-level pressure (common practice)
 DEFAULT_TOP_M = 16000.0
 DEFAULT_TROP_M = 11000.0  # ICAO standard atmosphere tropopause (common practice)
 
-# clear WORD -> state keys it forgets
-CLEAR = {"temp": ("t_c",), "dew": ("hum",), "rh": ("hum",), "elev": ("elev_m",),
-         "qnh": ("press",), "stn": ("press",), "elr": ("lapse",), "top": ("top_m",),
-         "excess": ("excess_c",), "env": ("env_m3",), "wt": ("wt_kg",), "fill": ("fill_m3",),
-         "tmax": ("tmax_c",), "tenv": ("tenv_c",), "gas": ("gas",), "pure": ("purity",),
-         "margin": ("margin_k",), "superheat": ("superheat_k",),
-         "aloft": ("aloft",), "trop": ("trop_m",)}
 # State keys the air column depends on (others leave the cached report alone).
 AIR_KEYS = ("t_c", "hum", "elev_m", "press", "lapse", "top_m", "excess_c", "aloft", "trop_m")
 
@@ -31,6 +26,7 @@ def dewpoint_of(st):
     """The dewpoint of state dict st, degC (from rh when rh was set)."""
     kind, v = st["hum"]
     if kind == "td":
+        from lapsecalc.limits import check_dew
         return check_dew(st["t_c"], v)[1]
     from lapsecalc.moisture import dewpoint
     return dewpoint(st["t_c"], v)

@@ -1,12 +1,13 @@
-"""What people type into the interpreter: numbers with units, and the words of a line
-joined (a unit after a space, two-word names); the aliases of words and the nearest
-known word to a slip are in lapsecalc.aliases, named here too (runs on MicroPython)."""
+"""What people type into the interpreter: numbers with units, the words of a line
+joined (a unit after a space, two-word names), the nearest known word to a slip and
+the refusal of a word no table has; the aliases of words are in lapsecalc.aliases,
+named here too (runs on MicroPython)."""
 # Sources: unit conversions by exact definition (lapsecalc.units). Nothing here knows
 #   the session; the word modules (settings, queries, commands) and the shell use it.
 from math import isfinite
 from lapsecalc import units
 from lapsecalc.aliases import (ALIASES, AMBIGUOUS, PAIRS, shown, split_number,  # noqa: F401
-                               no_args, starts_number, nearest)
+                               no_args, starts_number)
 
 # Unit suffix (lower case) -> (quantity, converter to the library's unit or None).
 # Quantities: t degC, h m, p hPa, l K/km, rh %, v m3, w kg.
@@ -172,3 +173,48 @@ def near_unit(word):
     """The unit (as written: "ft", "hPa") closest to word, or None (nearest())."""
     u = nearest(word, list(_UNITS) + ["feet"])
     return None if u is None else _WRITTEN.get(u, u)
+
+
+def _edit_distance(a, b):
+    # Levenshtein distance of two short words (callers cap them at 16 characters).
+    prev = list(range(len(b) + 1))
+    for i in range(1, len(a) + 1):
+        cur = [i] + [0] * len(b)
+        for j in range(1, len(b) + 1):
+            cur[j] = min(prev[j] + 1, cur[j - 1] + 1, prev[j - 1] + (a[i - 1] != b[j - 1]))
+        prev = cur
+    return prev[-1]
+
+
+def nearest(word, known):
+    """The known word closest to word (at most 2 edits, fewer than its length), or None."""
+    w = word.lower()[:16]
+    best, best_d = None, 3
+    for k in sorted(known):
+        if abs(len(k) - len(w)) < best_d:
+            d = _edit_distance(w, k)
+            if d < best_d and d < len(w):
+                best, best_d = k, d
+    return best
+
+
+def unknown(word, known, after=None):
+    """The error for word, which no table has. A suggestion is only of the same kind:
+    a unit is said to be one; right after a number (after, the word before it) a slip
+    of a unit is a unit ("6500 fet"); else the nearest of known (the words that may
+    stand there, the caller's list: it is extended by their aliases)."""
+    if is_unit(word):
+        return "'%s' is a unit: write it after its number, e.g. elev 6500 ft" % shown(word)
+    if word.lower() in AMBIGUOUS:
+        return AMBIGUOUS[word.lower()]
+    unit = near_unit(word) if after is not None and starts_number(after) else None
+    if unit is not None:
+        return "unknown word '%s' after %s; did you mean the unit: %s %s?" % (
+            shown(word), shown(after), shown(after), unit)
+    for a in ALIASES:
+        if ALIASES[a] in known and len(a) > 2:
+            known.append(a)
+    near = nearest(word, known)
+    near = ALIASES.get(near, near)
+    return "unknown word '%s'; %s(help lists the words)" % (
+        shown(word), "did you mean '%s'? " % near if near else "")

@@ -220,9 +220,9 @@ def test_line_need_table_under_the_unix_port(tmp_path):
     need = [int(r[5]) for r in rows]
     held = [float(r[3]) for r in rows]
     assert 0 < need[0] < need[2]          # a unit line vs a query computing the report
-    # The same query in the same state: the same room, within the 1 KiB step (the
-    # ballast meets the heap's holes a little differently each time).
-    assert abs(need[2] - need[4]) <= 1
+    # The same query in the same state: the same room, within 2 KiB (1 KiB steps, and
+    # the ballast meets the heap's holes a little differently each time).
+    assert abs(need[2] - need[4]) <= 2
     assert held[2] > held[0] > 0
     worst = max(h + n for h, n in zip(held, need))
     assert ("lines_worst_total_kib=%.1f" % worst) in proc.stdout
@@ -231,14 +231,15 @@ def test_line_need_table_under_the_unix_port(tmp_path):
 def test_a_board_session_lets_go_of_the_report_before_a_line_that_never_reads_it(
         restore_word_modules):
     # The report is kept between lines for the words that read it, and let go of
-    # before a balloon, loads, sunset, show, iso or help line (shell._NO_REPORT); the
-    # output is the same as a CPython session's, which keeps it.
+    # before a balloon, loads, sunset, show, iso, at, da H or help line (shell._NO_REPORT);
+    # the output is the same as a CPython session's, which keeps it.
     keep, drop = shell.Session(), shell.Session()
     drop.drop_word_modules = True
     lines = ("temp 27C dew 13C elev 1350ft", "env 2800m3 wt 450kg tmax 120C")
     for line in lines:
         assert drop.feed(line) == keep.feed(line)
-    for word in ("balloon", "loads", "sunset", "show", "iso -15C", "help", "?", "bal"):
+    for word in ("balloon", "loads", "sunset", "show", "iso -15C", "help", "?", "bal",
+                 "at 5000ft", "da 9500ft"):
         for line in ("base", word, "report"):
             assert drop.feed(line) == keep.feed(line), line
             if line == "base":
@@ -250,7 +251,7 @@ def test_a_board_session_lets_go_of_the_report_before_a_line_that_never_reads_it
             else:
                 assert drop._rep is not None and drop._rep is not kept  # computed again
     # A word that reads the report keeps the one there, and so does a setting.
-    for line in ("report", "base", "stab", "levels", "at 5000ft", "unit m", "out text"):
+    for line in ("report", "base", "stab", "levels", "da", "unit m", "out text"):
         kept = drop._rep
         assert drop.feed(line) == keep.feed(line), line
         assert drop._rep is kept, line
@@ -292,3 +293,58 @@ def test_a_board_line_computes_before_its_text_loads(restore_word_modules):
         assert "lapsecalc.balloon" in before and "lapsecalc.column" in before, line
         for m in ("balloon", "column", "standard", "typed", "heights"):
             assert "lapsecalc." + m not in after, (line, m)
+
+
+def test_the_parcel_path_and_at_need_no_report():
+    # Session.levels() (the at word's parcel temperature, the chart) takes the surface
+    # parcel's cloud base from the Column itself, as Column.report() does: the same
+    # path, without computing the whole report.
+    from lapsecalc.parcel import path
+    s = shell.Session()
+    s.feed("temp 27C dew 13C elev 1350ft")
+    levels = s.levels()
+    assert s._rep is None and len(levels) > 2
+    s.feed("at 5000ft")
+    assert s._rep is None
+    col = s.column()
+    assert levels == path(col, col.elev_m + s.report("report")["cloud_base_agl_m"])
+
+
+def test_a_board_settings_line_lets_go_of_the_setting_words_before_the_column(
+        restore_word_modules):
+    # The setting words' code (settings, aloftwords, metar, typed: shell.SETTING_MODULES)
+    # is let go of once the line's values are read and checked, before commit builds
+    # the new state's Column; no setter loads the column's code for its bounds.
+    import gc
+    import types
+    seen = []
+
+    def setters():
+        # The functions of the setting words' modules alive now (other tests hold
+        # their own imports of them: only those made since `before` count).
+        gc.collect()
+        return dict((id(f), f.__module__) for f in gc.get_objects()
+                    if isinstance(f, types.FunctionType)
+                    and f.__module__ in ("lapsecalc.settings", "lapsecalc.aloftwords",
+                                         "lapsecalc.metar", "lapsecalc.typed"))
+
+    class Board(shell.Session):
+        def commit(self, new):
+            live = set(m for i, m in setters().items() if i not in before)
+            seen.append((live, "lapsecalc.column" in sys.modules))
+            return shell.Session.commit(self, new)
+
+    lines = ("elev 1350ft", "temp 27C dew 13C", "elr -4@200m 9.5@820ft 6.5", "top 30000ft",
+             "trop 11km", "aloft 1500m 16C FL180 -14C/-30C",
+             "metar XXXX 021250Z 24008KT 9999 FEW045 27/13 Q1016")
+    keep = shell.Session()
+    want = [keep.feed(line) for line in lines]
+    keep = None
+    shell.drop_modules(shell.WORD_MODULES)  # what CPython's session loaded
+    before = setters()
+    drop = Board()
+    drop.drop_word_modules = True
+    for line, out in zip(lines, want):
+        seen[:] = []
+        assert drop.feed(line) == out, line
+        assert seen == [(set(), False)], line

@@ -7,7 +7,7 @@ import re
 import pytest
 
 from lapsecalc.typed import split_number, number, shown, nearest
-from lapsecalc.aliases import _edit_distance
+from lapsecalc.typed import _edit_distance
 
 # A decimal number with an optional sign, at least one digit, at most one point and an
 # optional exponent (the grammar float() accepts, without inf/nan/underscores).
@@ -183,3 +183,26 @@ def test_exponent_digits_and_nearest_ties():
     assert nearest("abcdefghijklmnxyz", ["abcdefghijklmnop"]) == "abcdefghijklmnop"
     # not as many edits as the word has letters: "ab" is not a slip of "xy"
     assert nearest("ab", ["xy"]) is None and nearest("abc", ["xyc"]) == "xyc"
+
+
+def test_unknown_word_suggests_aliases_of_three_letters_or_more_of_the_words_allowed():
+    # An alias joins the suggestions when it stands for an allowed word and has more
+    # than two letters: "oat" (temp) does, "sh" (superheat) does not (too short to
+    # tell a slip from another word), "frz" (ice) not where only settings may stand.
+    from lapsecalc.typed import unknown
+    settings = ["temp", "dew", "rh", "superheat", "fill", "trop"]
+    assert unknown("oatt", list(settings)) == \
+        "unknown word 'oatt'; did you mean 'temp'? (help lists the words)"
+    assert unknown("sj", list(settings)) == "unknown word 'sj'; (help lists the words)"
+    assert unknown("frzz", list(settings)) == "unknown word 'frzz'; (help lists the words)"
+    assert unknown("frzz", settings + ["ice"]) == \
+        "unknown word 'frzz'; did you mean 'ice'? (help lists the words)"
+    # Right after a number a slip of a unit is a unit; elsewhere it is only a word.
+    assert unknown("fet", list(settings), "6500") == \
+        "unknown word 'fet' after 6500; did you mean the unit: 6500 feet?"
+    assert unknown("fet", list(settings), "elev") == \
+        "unknown word 'fet'; did you mean 'dew'? (help lists the words)"
+    # A unit alone, and a name of two words, are said to be what they are.
+    assert unknown("ft", list(settings)) == \
+        "'ft' is a unit: write it after its number, e.g. elev 6500 ft"
+    assert unknown("ALT", list(settings)) == AMBIGUOUS["alt"]

@@ -55,6 +55,8 @@ DEFAULT_TESTS = {
     "adiabats": ["test_adiabats.py", "test_parcel.py", "test_stability.py", "test_column.py"],
     "column": ["test_column.py", "test_column_edges.py", "test_report_keys.py", "test_parcel.py",
                "test_stability.py", "test_balloon.py", "test_station.py", "test_board_heap.py"],
+    "profile": ["test_column.py", "test_column_edges.py", "test_report_keys.py", "test_aloft.py",
+                "test_errors.py", "test_board_heap.py"],
     "parcel": ["test_parcel.py", "test_report_keys.py", "test_stability.py", "test_column.py"],
     "stability": ["test_stability.py", "test_parcel.py", "test_report_keys.py",
                   "test_column_edges.py", "test_column.py", "test_board_heap.py"],

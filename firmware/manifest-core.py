@@ -14,6 +14,7 @@ package(
         "condensation.py",
         "adiabats.py",
         "column.py",
+        "profile.py",
         "parcel.py",
         "stability.py",
         "station.py",

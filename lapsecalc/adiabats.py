@@ -45,7 +45,7 @@ def moist_lapse_rate(t_c, p_hpa):
 def moist_lapse_k_per_km(t_k, p_hpa):
     """moist_lapse_rate without the input checks (t in K), for callers that have them."""
     rs = _rs(t_k, p_hpa)
-    return 1000.0 * G0 * (1.0 + LV0 * rs / (R_DRY * t_k)) / \
+    return 1000 * G0 * (1 + LV0 * rs / (R_DRY * t_k)) / \
         (CP_DRY + _LV2_EPS_RD * rs / (t_k * t_k))
 
 
@@ -65,7 +65,7 @@ def moist_step(t_k, p0_hpa, p1_hpa):
     k2 = _dt_dlnp(t_k + half * k1, ph)
     k3 = _dt_dlnp(t_k + half * k2, ph)
     k4 = _dt_dlnp(t_k + h * k3, p1_hpa)
-    return t_k + h * (k1 + 2.0 * (k2 + k3) + k4) / 6.0
+    return t_k + h * (k1 + 2 * (k2 + k3) + k4) / 6
 
 
 def saturated_ascent(t_c, p_from_hpa, p_to_hpa, dlnp=DEFAULT_DLNP):

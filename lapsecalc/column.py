@@ -5,11 +5,9 @@
 #   Freezing and icing levels: airframe icing is most likely in cloud between 0 and
 #     -20 degC (common practice).
 from lapsecalc.constants import T0_K, EPS
-from lapsecalc.limits import (check, check_p, check_elev, check_lapse, check_dew, finite,
-                              T_MIN_C, T_MAX_C, TOP_MAX_M)
-from lapsecalc.moisture import (_es_water, _mixing_ratio_kg_kg, _dewpoint_from_e,
-                                relative_humidity, wet_bulb)
-from lapsecalc.standard import (layer_pressure, layer_height, station_pressure, qnh,
+from lapsecalc.limits import check, finite, T_MAX_C
+from lapsecalc.moisture import _es_water, _dewpoint_from_e, relative_humidity, wet_bulb
+from lapsecalc.standard import (layer_pressure, layer_height, station_pressure,
                                 pressure_altitude, isa_height_of_density, _density)
 
 # Heights closer than this are one level (crossings found in two layers), m.
@@ -30,40 +28,6 @@ def report_keys():
             "freezing_level_msl_m", "freezing_levels_msl_m", "minus10_level_msl_m",
             "minus10_levels_msl_m", "minus20_level_msl_m", "minus20_levels_msl_m",
             "tropopause_msl_m"] + stability.report_keys()
-
-
-def _layer_tops(lapse, elev_m, top_m):
-    # [(top_msl_m, k_per_km), ...] from a number or from [(top_agl_m or None, k_per_km), ...].
-    if isinstance(lapse, (int, float)):
-        return [(top_m, check_lapse("lapse", lapse))]
-    try:
-        items = list(None if isinstance(lapse, str) else lapse)
-    except TypeError:
-        raise ValueError("lapse=%r must be a number in K/km (allowed -30..30) or a list of"
-                         " (top_agl_m, k_per_km)" % (lapse,))
-    if not items:
-        raise ValueError("lapse=[] is empty; give at least one layer (top_agl_m, k_per_km)")
-    tops = []
-    below = 0.0
-    for i, item in enumerate(items):
-        try:
-            top_agl, rate = item
-        except (TypeError, ValueError):
-            raise ValueError("lapse layer %d=%r must be a pair (top_agl_m, k_per_km)" % (i + 1, item))
-        rate = check_lapse("lapse layer %d rate" % (i + 1), rate)
-        if top_agl is None:
-            if i != len(items) - 1:
-                raise ValueError("lapse layer %d has no top; only the last layer may run to"
-                                 " the column top" % (i + 1))
-            tops.append((top_m, rate))
-            break
-        top_agl = check("lapse layer %d top_agl_m" % (i + 1), top_agl, below + 1.0,
-                        TOP_MAX_M, "m (above the layer below)")
-        below = top_agl
-        tops.append((min(elev_m + top_agl, top_m), rate))
-        if elev_m + top_agl >= top_m:
-            break
-    return tops
 
 
 class Column:
@@ -87,76 +51,22 @@ class Column:
     Heights are geopotential metres MSL unless a name says agl.
     """
 
-    def __init__(self, t_c, td_c, p_hpa, elev_m, lapse=6.5, top_m=16000.0, aloft=None,
-                 tropopause_m=11000.0):
-        self.t_c, self.td_c = check_dew(t_c, td_c)
-        self.p_hpa = check_p("p_hpa", p_hpa)
-        self.elev_m = check_elev("elev_m", elev_m)
-        # A station pressure that implies an impossible QNH is a mistake (often QNH or
-        # an altimeter setting typed as station pressure): qnh() refuses it.
-        self.qnh_hpa = qnh(self.p_hpa, self.elev_m)
-        unit = "m MSL (at least 100 m above the elevation)"
-        top = check("top_m", top_m, self.elev_m + 100.0, TOP_MAX_M, unit)
-        trop = None if tropopause_m is None else check(
-            "tropopause_m", tropopause_m, self.elev_m + 100.0, TOP_MAX_M, unit)
-        self.top_asked_m = top
-        self.tropopause_m = None
-        self.end_why = None
-        self.r_kg_kg = _mixing_ratio_kg_kg(_es_water(self.td_c), self.p_hpa)
-        # Points aloft (lapsecalc.aloft.build): their heights aloft_m, m MSL, and the
-        # dewpoints given, dews [(z_m, td_c), ...] from the surface up; else None.
-        self.aloft_m = self.dews = None
-        layers = []
-        z, t, p = self.elev_m, self.t_c + T0_K, self.p_hpa
-        if aloft is not None:
-            from lapsecalc.aloft import build
-            z, t, p = build(self, aloft, layers, top)
-        tops = _layer_tops(lapse, self.elev_m, top)
-        if trop is not None:
-            # Isothermal above the tropopause, unless a layer starts above it (or the
-            # points go past it: then from the last point).
-            below = self.elev_m
-            for i in range(len(tops)):
-                z_top, rate = tops[i]
-                if below < trop < z_top:
-                    tops[i:i + 1] = [(trop, rate), (z_top, 0.0)]
-                    self.tropopause_m = trop if trop > z else z
-                    break
-                below = z_top
-        for z_top, rate in tops:
-            if z_top <= z:
-                continue
-            grad = -rate / 1000.0
-            t_top = t + grad * (z_top - z)
-            if t_top - T0_K > T_MAX_C:
-                raise ValueError("the ELR warms the air above %g degC at %.6g m MSL; allowed"
-                                 " -90..%g degC throughout: lower top_m or change the layers"
-                                 % (T_MAX_C, z + (T_MAX_C + T0_K - t) / grad, T_MAX_C))
-            if t_top - T0_K < T_MIN_C:
-                # The column ends where the air would pass the coldest temperature allowed.
-                self.end_why = "the air reaches -90 degC, the coldest handled" + (
-                    "" if trop else " (no tropopause)")
-                z_top = z + (T_MIN_C + T0_K - t) / grad
-                if z_top - z > 1.0:
-                    layers.append((z, z_top, t, grad, p))
-                    z = z_top
-                break
-            layers.append((z, z_top, t, grad, p))
-            p = layer_pressure(p, t, grad, z_top - z)
-            z, t = z_top, t_top
-        if not layers:
-            raise ValueError("t_c=%s with this ELR leaves no column above the surface; allowed"
-                             " a surface above %g degC" % (self.t_c, T_MIN_C))
-        if z < top and self.end_why is None:
-            self.end_why = "its last layer ends there"
-        if self.tropopause_m is not None and self.tropopause_m >= z:
-            self.tropopause_m = None
-        self.layers = layers
-        self.top_m = z
+    def __init__(self, t_c, td_c, p_hpa, elev_m, lapse=6.5, top_m=16000, aloft=None,
+                 tropopause_m=11000):
+        # The building code is loaded for this and, on a board, let go of after (even
+        # when it refuses an input): the report's heap never holds it.
+        from lapsecalc import _drop
+        build = None
+        try:
+            from lapsecalc.profile import build
+            build(self, t_c, td_c, p_hpa, elev_m, lapse, top_m, aloft, tropopause_m)
+        finally:
+            build = None
+            _drop("profile")
 
     @classmethod
-    def from_qnh(cls, t_c, td_c, qnh_hpa, elev_m, lapse=6.5, top_m=16000.0, aloft=None,
-                 tropopause_m=11000.0):
+    def from_qnh(cls, t_c, td_c, qnh_hpa, elev_m, lapse=6.5, top_m=16000, aloft=None,
+                 tropopause_m=11000):
         """The same column built from QNH (hPa) instead of station pressure."""
         return cls(t_c, td_c, station_pressure(qnh_hpa, elev_m), elev_m, lapse, top_m, aloft,
                    tropopause_m)
@@ -187,7 +97,7 @@ class Column:
     def z_at(self, p_hpa):
         """Height, m MSL, where the environment pressure is p_hpa (inside the column)."""
         layers = self.layers
-        p = check("p_hpa", p_hpa, 1.0, self.p_hpa, "hPa (the column)")
+        p = check("p_hpa", p_hpa, 1, self.p_hpa, "hPa (the column)")
         # The layer that holds p: the first whose top (the next one's foot) is not
         # above it; only the last one's top pressure is computed.
         i = 0
@@ -197,7 +107,7 @@ class Column:
         z = z0 + layer_height(p0, t0, grad, p)
         if z > z1:
             lo = layer_pressure(p0, t0, grad, z1 - z0)
-            check("p_hpa", p, lo * (1.0 - 1e-9), self.p_hpa, "hPa (the column)")
+            check("p_hpa", p, lo * (1 - 1e-9), self.p_hpa, "hPa (the column)")
             z = z1
         return z
 
@@ -236,7 +146,7 @@ class Column:
         t_k = finite("t_c", t_c) + T0_K
         out = []
         for z0, z1, t0, grad, _ in self.layers:
-            if grad == 0.0:
+            if grad == 0:
                 continue
             z = z0 + (t_k - t0) / grad
             if z0 <= z <= z1 and not (out and z - out[-1] < _SAME_LEVEL_M):
@@ -257,9 +167,17 @@ class Column:
     def cloud_base(self, method="exact"):
         """(height_agl_m, t_c, p_hpa) of the surface parcel's LCL (condensation.cloud_base)."""
         from lapsecalc.condensation import cloud_base
-        return cloud_base(self.t_c, self.td_c, self.p_hpa, method)
+        out = cloud_base(self.t_c, self.td_c, self.p_hpa, method)
+        cloud_base = None
+        # A board lets go of that code again (a Column holds none of it), unless an
+        # allocation count runs (the collector off: loading again would count twice).
+        import gc
+        if gc.isenabled():
+            from lapsecalc import _drop
+            _drop("condensation")
+        return out
 
-    def report(self, thermal_excess_c=0.0, altimetry=True):
+    def report(self, thermal_excess_c=0, altimetry=True):
         """Every result for this column as a dict of plain values with units in the keys;
         None where a level does not exist in the column. The hazard keys and a caution
         per hazard (lapsecalc.hazards) come when that module is installed (always on
@@ -269,21 +187,23 @@ class Column:
         altimetry: add the keys of lapsecalc.indicated (indicated_altitude_m,
         isa_deviation_c, density_altitude_dry_m) when that module is installed; they cost
         a board about 4 KB of heap."""
-        # On a board (MicroPython): the cloud bases first, with the condensation code
-        # loaded for them and let go of after (lapsecalc._drop; the core report's hard
-        # heap limit on the Unix port fell from 57 to 53 KiB), then a collection (the
-        # garbage of building the column and of the cloud bases) and every other
-        # module loaded while the heap is still whole, before the parcel path cuts it
-        # up: a load (or a failed one: its message is a new interned string) needs
-        # large pieces (the limit fell from 77 to 69 KiB with the collection alone).
-        excess_c = check("excess_c", thermal_excess_c, 0.0, 10.0, "K")
+        # On a board (MicroPython): a collection (the garbage of building the column),
+        # the cloud bases with the condensation code loaded for them and let go of
+        # after (lapsecalc._drop, which collects again), then every other module
+        # loaded while the heap is still whole, before the parcel path cuts it up: a
+        # load (or a failed one: its message is a new interned string) needs large
+        # pieces. (The core report's hard heap limit on the Unix port: 77 -> 69 KiB
+        # with the first collection, 57 -> 49 KiB with the condensation and building
+        # code let go of and fewer float constants.)
+        excess_c = check("excess_c", thermal_excess_c, 0, 10, "K")
+        from lapsecalc import _drop
+        _drop()
         from lapsecalc.condensation import cloud_base
         lcl_agl, lcl_t, lcl_p = cloud_base(self.t_c, self.td_c, self.p_hpa)
         # The heated surface parcel's cloud base (stability.add_to_report's thermal kind).
-        heated_agl = lcl_agl if excess_c == 0.0 else cloud_base(
+        heated_agl = lcl_agl if excess_c == 0 else cloud_base(
             min(self.t_c + excess_c, T_MAX_C), self.td_c, self.p_hpa)[0]
         cloud_base = None
-        from lapsecalc import _drop
         _drop("condensation")
         from lapsecalc import stability, parcel
         try:
@@ -309,7 +229,7 @@ class Column:
         r["t_c"] = self.t_c
         r["td_c"] = self.td_c
         r["rh_pct"] = relative_humidity(self.t_c, self.td_c)
-        r["mixing_ratio_g_kg"] = 1000.0 * self.r_kg_kg
+        r["mixing_ratio_g_kg"] = 1000 * self.r_kg_kg
         r["wet_bulb_c"] = wet_bulb(self.t_c, self.td_c, self.p_hpa)
         r["station_pressure_hpa"] = self.p_hpa
         r["qnh_hpa"] = self.qnh_hpa
@@ -321,13 +241,13 @@ class Column:
         r["lcl_t_c"] = lcl_t
         r["lcl_p_hpa"] = lcl_p
         r["warm_layer_aloft"] = warm_layer_aloft(self)
-        r["parcel_freezing_level_msl_m"] = parcel.level(self, path, 0.0, lcl_msl)
+        r["parcel_freezing_level_msl_m"] = parcel.level(self, path, 0, lcl_msl)
         # Lists, not constant tuples: a .mpy keeps a tuple's strings as copies of its
         # own, while these names are shared with report_keys().
         for t, level_key, levels_key in (
-                [0.0, "freezing_level_msl_m", "freezing_levels_msl_m"],
-                [-10.0, "minus10_level_msl_m", "minus10_levels_msl_m"],
-                [-20.0, "minus20_level_msl_m", "minus20_levels_msl_m"]):
+                [0, "freezing_level_msl_m", "freezing_levels_msl_m"],
+                [-10, "minus10_level_msl_m", "minus10_levels_msl_m"],
+                [-20, "minus20_level_msl_m", "minus20_levels_msl_m"]):
             zs = self.crossings(t)
             r[level_key] = self.level(t, zs)
             r[levels_key] = zs
@@ -358,7 +278,7 @@ class Column:
 def warm_layer_aloft(col):
     """True when air above 0 degC lies over air at or below 0 degC somewhere in the
     column (the freezing-rain set-up)."""
-    cold_below = col.t_c <= 0.0
+    cold_below = col.t_c <= 0
     for z0, z1, t0, grad, _ in col.layers:
         t1 = t0 + grad * (z1 - z0)
         if cold_below and (t0 > T0_K or t1 > T0_K):

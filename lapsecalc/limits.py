@@ -12,7 +12,7 @@ LAPSE_MIN_K_PER_KM = -30.0
 LAPSE_MAX_K_PER_KM = 30.0
 # How far a dewpoint may exceed the temperature before it is an error (rounding), K.
 DEW_SLACK_K = 0.05
-# The highest column top, m MSL (lapsecalc.column; here so that the setting words check
+# The highest column top, m MSL (lapsecalc.profile; here so that the setting words check
 # a top without loading the column's code).
 TOP_MAX_M = 32000.0
 

@@ -31,7 +31,7 @@ def saturation_vapour_pressure(t_c, ice=False):
     """
     t_c = check_t("t_c", t_c)
     if ice:
-        if t_c > 0.0:
+        if t_c > 0:
             raise ValueError("t_c=%s is above 0 degC with ice=True; allowed -90..0 degC over ice"
                              % t_c)
         a, b, c = _AE_ICE
@@ -53,11 +53,11 @@ def dewpoint(t_c, rh_pct):
     -90 degC is refused.
     """
     t_c = check_t("t_c", t_c)
-    rh = check("rh_pct", rh_pct, 0.0, 100.0, "%")
-    if rh <= 0.0:
+    rh = check("rh_pct", rh_pct, 0, 100, "%")
+    if rh <= 0:
         raise ValueError("rh_pct=0 has no dewpoint; allowed above 0 up to 100 %")
-    td = _dewpoint_from_e(rh / 100.0 * _es_water(t_c))
-    if td < -90.0:
+    td = _dewpoint_from_e(rh / 100 * _es_water(t_c))
+    if td < -90:
         raise ValueError("rh_pct=%s at t_c=%s gives a dewpoint below -90 degC; allowed 0..100 %%"
                          " with a dewpoint of at least -90 degC" % (rh, t_c))
     return min(td, t_c)
@@ -66,7 +66,7 @@ def dewpoint(t_c, rh_pct):
 def relative_humidity(t_c, td_c):
     """Relative humidity over liquid water, %, from t_c and dewpoint td_c (degC, -90..60)."""
     t_c, td_c = check_dew(t_c, td_c)
-    rh = 100.0 * _es_water(td_c) / _es_water(t_c)
+    rh = 100 * _es_water(td_c) / _es_water(t_c)
     return 100.0 if rh > 100.0 else rh
 
 
@@ -86,8 +86,8 @@ def mixing_ratio(td_c, p_hpa):
     e = _es_water(td_c)
     if e > 0.5 * p_hpa:
         raise ValueError("p_hpa=%s is too low for td_c=%s (vapour pressure %.1f hPa);"
-                         " allowed p_hpa above %.1f hPa" % (p_hpa, td_c, e, 2.0 * e))
-    return 1000.0 * _mixing_ratio_kg_kg(e, p_hpa)
+                         " allowed p_hpa above %.1f hPa" % (p_hpa, td_c, e, 2 * e))
+    return 1000 * _mixing_ratio_kg_kg(e, p_hpa)
 
 
 def wet_bulb(t_c, td_c, p_hpa):
@@ -139,4 +139,4 @@ def wet_bulb(t_c, td_c, p_hpa):
 
 def virtual_temperature_k(t_k, e_hpa, p_hpa):
     """Virtual temperature, K: T / (1 - (e/p)(1 - eps)) (Wallace & Hobbs eq. 3.60)."""
-    return t_k / (1.0 - e_hpa / p_hpa * (1.0 - EPS))
+    return t_k / (1 - e_hpa / p_hpa * (1 - EPS))

@@ -65,7 +65,7 @@ def path(col, lcl_msl_m, max_step_m=MAX_STEP_M):
                     # exact over any step: the rest of the interval in levels four
                     # times as far apart.
                     cold = True
-                    a, n, i = z, int(ceil((b - z) / (4.0 * max_step_m))), 1
+                    a, n, i = z, int(ceil((b - z) / (4 * max_step_m))), 1
     return out
 
 

@@ -18,7 +18,7 @@ from lapsecalc import parcel
 # A lapse rate this close to a reference rate is called neutral, K/km.
 NEUTRAL_BAND_K_PER_KM = 0.1
 # Deepest band one stability class speaks for, m (the saturated rate varies with height).
-BAND_M = 2000.0
+BAND_M = 2000
 # The general cautions of every full report (lapsecalc.hazards puts one line per hazard
 # present before them).
 CAUTIONS = (
@@ -55,8 +55,8 @@ def layers(col, max_depth_m=BAND_M):
     an inversion is absolutely stable at any depth and stays whole."""
     out = []
     for z0, z1, t0, grad, p0 in col.layers:
-        n = 1 if grad >= 0.0 else int(ceil((z1 - z0) / max_depth_m))
-        lapse = -1000.0 * grad
+        n = 1 if grad >= 0 else int(ceil((z1 - z0) / max_depth_m))
+        lapse = -1000 * grad
         a = z0
         for i in range(n):
             b = z1 if i == n - 1 else z0 + (z1 - z0) * (i + 1) / n
@@ -77,16 +77,16 @@ def lapse_measures(col):
     below 3 km above the field or below 500 hPa)."""
     out = []
     z7 = z5 = None
-    if col.p_hpa > 700.0:
+    if col.p_hpa > 700:
         try:
-            z7, z5 = col.z_at(700.0), col.z_at(500.0)
+            z7, z5 = col.z_at(700), col.z_at(500)
         except ValueError:  # 500 hPa above the column top
             pass
-    for a, b in ((col.elev_m, col.elev_m + 3000.0), (z7, z5)):
+    for a, b in ((col.elev_m, col.elev_m + 3000), (z7, z5)):
         if a is None or b > col.top_m:
             out += [None, None]
             continue
-        lapse = 1000.0 * (col.t_at(a) - col.t_at(b)) / (b - a)
+        lapse = 1000 * (col.t_at(a) - col.t_at(b)) / (b - a)
         zm = 0.5 * (a + b)
         out += [lapse, classify(lapse, moist_lapse_k_per_km(col.t_at(zm) + T0_K, col.p_at(zm)))]
     return out
@@ -105,23 +105,23 @@ def _refined_crossing(col, levels, i, lcl_msl_m, b0, b1):
     zc = _crossing(z0, b0, z1, b1)
     te = col.t_at(zc) + T0_K
     bc = (parcel.temperature_at(col, levels, i, zc, lcl_msl_m) + T0_K - te) / te
-    if bc == 0.0:
+    if bc == 0:
         return zc
-    if (bc > 0.0) == (b0 > 0.0):
+    if (bc > 0) == (b0 > 0):
         return _crossing(zc, bc, z1, b1)
     return _crossing(z0, b0, zc, bc)
 
 
 def _area(z0, b0, z1, b1):
     # Trapezoid of g*b over [z0, z1], split at a sign change: (positive, negative), J/kg.
-    if b0 >= 0.0 and b1 >= 0.0:
+    if b0 >= 0 and b1 >= 0:
         return 0.5 * G0 * (b0 + b1) * (z1 - z0), 0.0
-    if b0 <= 0.0 and b1 <= 0.0:
+    if b0 <= 0 and b1 <= 0:
         return 0.0, 0.5 * G0 * (b0 + b1) * (z1 - z0)
     zc = _crossing(z0, b0, z1, b1)
     a0 = 0.5 * G0 * b0 * (zc - z0)
     a1 = 0.5 * G0 * b1 * (z1 - zc)
-    return (a0, a1) if b0 > 0.0 else (a1, a0)
+    return (a0, a1) if b0 > 0 else (a1, a0)
 
 
 def parcel_analysis(col, levels, lcl_msl_m):
@@ -139,15 +139,15 @@ def parcel_analysis(col, levels, lcl_msl_m):
         z1, _, tp, te = levels[i]
         b1 = (tp - te) / (te + T0_K)
         if z0 >= lcl_msl_m:
-            if lfc is None and (b0 > 0.0 or b1 > 0.0):
-                lfc = z0 if b0 > 0.0 else _refined_crossing(col, levels, i, lcl_msl_m, b0, b1)
-                cin += _area(z0, b0, lfc, 0.0)[1] if lfc > z0 else 0.0
+            if lfc is None and (b0 > 0 or b1 > 0):
+                lfc = z0 if b0 > 0 else _refined_crossing(col, levels, i, lcl_msl_m, b0, b1)
+                cin += _area(z0, b0, lfc, 0)[1] if lfc > z0 else 0
             if lfc is not None:
                 cape += _area(z0, b0, z1, b1)[0]
-                if b0 > 0.0 and b1 <= 0.0:
+                if b0 > 0 and b1 <= 0:
                     el = _refined_crossing(col, levels, i, lcl_msl_m, b0, b1)
                     in_positive = False
-                elif b1 > 0.0:
+                elif b1 > 0:
                     in_positive = True
         if lfc is None:
             cin += _area(z0, b0, z1, b1)[1]
@@ -162,7 +162,7 @@ def parcel_analysis(col, levels, lcl_msl_m):
             "lifted_index_c": lifted_index(col, levels, lcl_msl_m)}
 
 
-def lifted_index(col, levels, lcl_msl_m, p_hpa=500.0):
+def lifted_index(col, levels, lcl_msl_m, p_hpa=500):
     """Environment minus parcel temperature, degC, at p_hpa (the parcel recomputed at
     that height, parcel.temperature_at); None when the column does not reach it."""
     for i in range(1, len(levels)):
@@ -172,17 +172,17 @@ def lifted_index(col, levels, lcl_msl_m, p_hpa=500.0):
     return None
 
 
-def thermal_top(col, excess_c=0.0):
+def thermal_top(col, excess_c=0):
     """Top, m MSL, of dry thermals: where a surface parcel at t_c + excess_c rising
     dry-adiabatically (9.77 K/km) meets the environment; the elevation when it cannot
     rise; None when it is still warmer at the column top."""
-    excess = check("excess_c", excess_c, 0.0, 10.0, "K")
+    excess = check("excess_c", excess_c, 0, 10, "K")
     tp0 = col.t_c + excess + T0_K
     for z0, z1, t0, grad, _ in col.layers:
-        d0 = tp0 - DRY_LAPSE_K_PER_KM / 1000.0 * (z0 - col.elev_m) - t0
-        d1 = tp0 - DRY_LAPSE_K_PER_KM / 1000.0 * (z1 - col.elev_m) - (t0 + grad * (z1 - z0))
-        if d1 <= 0.0:
-            return z0 if d0 <= 0.0 else _crossing(z0, d0, z1, d1)
+        d0 = tp0 - DRY_LAPSE_K_PER_KM / 1000 * (z0 - col.elev_m) - t0
+        d1 = tp0 - DRY_LAPSE_K_PER_KM / 1000 * (z1 - col.elev_m) - (t0 + grad * (z1 - z0))
+        if d1 <= 0:
+            return z0 if d0 <= 0 else _crossing(z0, d0, z1, d1)
     return None
 
 
@@ -192,7 +192,7 @@ def ccl(col, levels):
     Bracketed on the path's levels, then Illinois (regula falsi) steps, at most 40,
     to 0.5 m."""
     r = col.r_kg_kg
-    if col.t_c - col.td_c <= 0.0:
+    if col.t_c - col.td_c <= 0:
         return col.elev_m
 
     def gap(p_hpa, t_c):
@@ -203,7 +203,7 @@ def ccl(col, levels):
     g0 = gap(p0, te0)
     for z1, p1, _, te1 in levels[1:]:
         g1 = gap(p1, te1)
-        if g1 <= 0.0:
+        if g1 <= 0:
             return _illinois(lambda z: gap(col.p_at(z), col.t_at(z)), z0, g0, z1, g1)
         z0, g0 = z1, g1
     return None
@@ -216,7 +216,7 @@ def _illinois(f, a, fa, b, fb, what="the convective condensation level"):
     for _ in range(_CCL_CAP):
         c = (a * fb - b * fa) / (fb - fa)
         fc = f(c)
-        if fc > 0.0:
+        if fc > 0:
             a, fa = c, fc
             if side == 1:
                 fb *= 0.5
@@ -226,7 +226,7 @@ def _illinois(f, a, fa, b, fb, what="the convective condensation level"):
             if side == -1:
                 fa *= 0.5
             side = -1
-        if b - a < _CCL_TOL_M or fc == 0.0:
+        if b - a < _CCL_TOL_M or fc == 0:
             return c
     raise ValueError("%s did not converge" % what)
 
@@ -305,7 +305,7 @@ def add_warnings(col, r):
               "thermal_top_msl_m", "ccl_msl_m", "lapse_0_3km_k_per_km", "lapse_700_500_k_per_km"]:
         if r[k] is not None or (k == "el_msl_m" and not r["el_above_top"]) or \
                 (k == "lfc_msl_m" and (col.tropopause_m is not None or not col.end_why)) or \
-                (k == "lapse_700_500_k_per_km" and col.p_hpa <= 700.0):
+                (k == "lapse_700_500_k_per_km" and col.p_hpa <= 700):
             continue
         keys.append(k)
         w = k.split("_msl")[0].split("_k_per")[0].replace("_", " ")

@@ -12,16 +12,16 @@ from lapsecalc.limits import (check, check_t, check_p, check_elev, check_dew,
                               QNH_MIN_HPA, QNH_MAX_HPA)
 from lapsecalc.moisture import _es_water, virtual_temperature_k
 
-ISA_MIN_M = -1000.0
-ISA_MAX_M = 32000.0
+ISA_MIN_M = -1000
+ISA_MAX_M = 32000
 # Densities isa_height_of_density accepts, kg/m3: about the ISA density at 32000 m
 # (0.01323; the exact limit is checked after solving) up to more than air at -90 degC
 # and 1100 hPa (2.09).
 _RHO_MIN_KG_M3 = 0.0132
 _RHO_MAX_KG_M3 = 2.5
 # Layer bases, m, and temperature gradients dT/dh, K per m (ICAO Doc 7488/3).
-_BASES_M = (-1000.0, 11000.0, 20000.0)
-_GRADS_K_PER_M = (-0.0065, 0.0, 0.001)
+_BASES_M = (-1000, 11000, 20000)
+_GRADS_K_PER_M = (-0.0065, 0, 0.001)
 # Exponent n = R L / g0 of the altimeter relation (about 0.190263).
 _N = R_DRY * ISA_LAPSE_K_PER_M / G0
 
@@ -29,15 +29,15 @@ _N = R_DRY * ISA_LAPSE_K_PER_M / G0
 def ratio_ln(u):
     """ln(1 + u) / u, without cancellation near u = 0 (|u| < 1)."""
     if -0.01 < u < 0.01:
-        return 1.0 - u * (0.5 - u * (1.0 / 3.0 - 0.25 * u))
-    return log(1.0 + u) / u
+        return 1 - u * (0.5 - u * (1 / 3 - 0.25 * u))
+    return log(1 + u) / u
 
 
 def ratio_exp(x):
     """(exp(x) - 1) / x, without cancellation near x = 0."""
     if -0.01 < x < 0.01:
-        return 1.0 + x * (0.5 + x * (1.0 / 6.0 + x / 24.0))
-    return (exp(x) - 1.0) / x
+        return 1 + x * (0.5 + x * (1 / 6 + x / 24))
+    return (exp(x) - 1) / x
 
 
 def layer_pressure(p0_hpa, t0_k, grad_k_per_m, dz_m):
@@ -56,8 +56,8 @@ def layer_height(p0_hpa, t0_k, grad_k_per_m, p_hpa):
 def _isa_layer(h_m):
     # (base_m, base_t_k, grad, base_p_hpa) of the ISA layer holding h_m; walks up from
     # sea level (three layers: no table is stored).
-    base, t, p = 0.0, ISA_T0_K, ISA_P0_HPA
-    if h_m < 11000.0:
+    base, t, p = 0, ISA_T0_K, ISA_P0_HPA
+    if h_m < 11000:
         return base, t, -ISA_LAPSE_K_PER_M, p
     for i in (1, 2):
         top = _BASES_M[i]
@@ -78,7 +78,7 @@ def isa(h_m):
     base, t0, grad, p0 = _isa_layer(h)
     t = t0 + grad * (h - base)
     p = layer_pressure(p0, t0, grad, h - base)
-    return t - T0_K, p, 100.0 * p / (R_DRY * t)
+    return t - T0_K, p, 100 * p / (R_DRY * t)
 
 
 def pressure_altitude(p_hpa):
@@ -106,7 +106,7 @@ def station_pressure(qnh_hpa, elev_m):
     """
     q = check("qnh_hpa", qnh_hpa, QNH_MIN_HPA, QNH_MAX_HPA, "hPa")
     h = check_elev("elev_m", elev_m)
-    return pow(pow(q, _N) - pow(ISA_P0_HPA, _N) * ISA_LAPSE_K_PER_M * h / ISA_T0_K, 1.0 / _N)
+    return pow(pow(q, _N) - pow(ISA_P0_HPA, _N) * ISA_LAPSE_K_PER_M * h / ISA_T0_K, 1 / _N)
 
 
 def qnh(p_station_hpa, elev_m):
@@ -116,7 +116,7 @@ def qnh(p_station_hpa, elev_m):
     """
     p = check_p("p_station_hpa", p_station_hpa)
     h = check_elev("elev_m", elev_m)
-    q = pow(pow(p, _N) + pow(ISA_P0_HPA, _N) * ISA_LAPSE_K_PER_M * h / ISA_T0_K, 1.0 / _N)
+    q = pow(pow(p, _N) + pow(ISA_P0_HPA, _N) * ISA_LAPSE_K_PER_M * h / ISA_T0_K, 1 / _N)
     if q < QNH_MIN_HPA or q > QNH_MAX_HPA:
         # A thousandth of a hectopascal is rounding of a QNH at the limit (the round
         # trip through station_pressure, in float32 too), not a QNH outside it.
@@ -129,7 +129,7 @@ def qnh(p_station_hpa, elev_m):
 
 def _density(p_hpa, t_c, e_hpa):
     # Ideal gas with the virtual temperature, kg/m3.
-    return 100.0 * p_hpa / (R_DRY * virtual_temperature_k(t_c + T0_K, e_hpa, p_hpa))
+    return 100 * p_hpa / (R_DRY * virtual_temperature_k(t_c + T0_K, e_hpa, p_hpa))
 
 
 def air_density(p_hpa, t_c, td_c=None):
@@ -137,7 +137,7 @@ def air_density(p_hpa, t_c, td_c=None):
     virtual temperature when the dewpoint td_c is given, dry air otherwise."""
     p = check_p("p_hpa", p_hpa)
     if td_c is None:
-        return _density(p, check_t("t_c", t_c), 0.0)
+        return _density(p, check_t("t_c", t_c), 0)
     t, td = check_dew(t_c, td_c)
     return _density(p, t, min(_es_water(td), 0.5 * p))
 
@@ -145,11 +145,11 @@ def air_density(p_hpa, t_c, td_c=None):
 def _height_of_density(rho_kg_m3, h_m):
     # The height, m, of density rho_kg_m3 by the equation of the ISA layer holding h_m.
     base, t0, grad, p0 = _isa_layer(h_m)
-    rho0 = 100.0 * p0 / (R_DRY * t0)
-    if grad == 0.0:
+    rho0 = 100 * p0 / (R_DRY * t0)
+    if grad == 0:
         return base + R_DRY * t0 / G0 * log(rho0 / rho_kg_m3)
     # rho = rho0 (T/T0)^(-g/(R grad) - 1), solved for T, then z from T.
-    return base + (t0 * pow(rho_kg_m3 / rho0, -1.0 / (G0 / (R_DRY * grad) + 1.0)) - t0) / grad
+    return base + (t0 * pow(rho_kg_m3 / rho0, -1 / (G0 / (R_DRY * grad) + 1)) - t0) / grad
 
 
 def isa_height_of_density(rho_kg_m3):

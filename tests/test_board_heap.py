@@ -94,8 +94,8 @@ def test_heated_cloud_base_given_is_used():
 
 def test_thermals_take_the_heated_base_from_the_report():
     col = Column.from_qnh(*DEMO)
-    full = col.report(2.0)
-    heated = cloud_base(col.t_c + 2.0, col.td_c, col.p_hpa)[0]
+    full = col.report(1.0)
+    heated = cloud_base(col.t_c + 1.0, col.td_c, col.p_hpa)[0]
     assert full["thermal_cloud_base_msl_m"] == col.elev_m + heated
     levels = path(col, full["cloud_base_msl_m"])
     r = dict(full)
@@ -113,3 +113,50 @@ def test_thermals_take_the_heated_base_from_the_report():
     r["thermal_cloud_base_msl_m"] = col.elev_m + 600.0
     thermals.add_keys(col, levels, r)
     assert r["thermal_cloud_base_msl_m"] == col.elev_m + 600.0
+
+
+@pytest.fixture
+def board(monkeypatch):
+    # CPython standing in for a board (sys.implementation.name "micropython"): the
+    # lapsecalc modules and the package's names are put back afterwards.
+    saved = dict((k, v) for k, v in sys.modules.items() if k.startswith("lapsecalc."))
+    names = dict(lapsecalc.__dict__)
+    impl = dict(vars(sys.implementation), name="micropython")
+    monkeypatch.setattr(sys, "implementation", types.SimpleNamespace(**impl))
+    yield
+    monkeypatch.undo()
+    for k in [k for k in sys.modules if k.startswith("lapsecalc.")]:
+        if k not in saved:
+            del sys.modules[k]
+    sys.modules.update(saved)
+    lapsecalc.__dict__.clear()
+    lapsecalc.__dict__.update(names)
+
+
+def _loaded(name):
+    return "lapsecalc." + name in sys.modules
+
+
+def test_a_board_column_holds_neither_its_building_nor_the_cloud_base_code(board):
+    import gc
+    col = Column.from_qnh(*DEMO)
+    assert not _loaded("profile")
+    assert col.cloud_base() == cloud_base(col.t_c, col.td_c, col.p_hpa)
+    assert not _loaded("condensation")
+    r = col.report(2.0)
+    assert not _loaded("condensation") and _loaded("stability") and _loaded("parcel")
+    assert r["thermal_cloud_base_msl_m"] == col.elev_m + cloud_base(
+        col.t_c + 2.0, col.td_c, col.p_hpa)[0]
+    # An allocation count (the collector off) keeps what the count would load twice.
+    gc.disable()
+    try:
+        col.cloud_base("bolton")
+        assert _loaded("condensation")
+    finally:
+        gc.enable()
+
+
+def test_a_refused_column_lets_go_of_the_building_code_too(board):
+    with pytest.raises(ValueError, match="top_m"):
+        Column.from_qnh(27.0, 13.0, 1016.0, 411.48, 6.5, 100.0)
+    assert not _loaded("profile")

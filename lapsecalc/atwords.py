@@ -2,8 +2,8 @@
 temperature (runs on MicroPython; loaded only by their lines)."""
 # Sources: every number comes from the Column, lapsecalc.parcel and lapsecalc.altimetry;
 #   this module only picks them.
-from lapsecalc.limits import T_MIN_C, T_MAX_C
-from lapsecalc.typed import value
+# lapsecalc.typed (iso's temperature) and lapsecalc.limits are imported inside the
+# words: a module-level name would keep the number reader alive through the text.
 from lapsecalc.heights import height
 from lapsecalc.queries import emit, _c_group
 
@@ -50,7 +50,10 @@ def _c_iso(s, w, args):
     if len(args) != 1:
         raise ValueError("iso needs one temperature, e.g. iso -15C")
     col = s.column(w)
+    from lapsecalc.typed import value
+    from lapsecalc.limits import T_MIN_C, T_MAX_C
     t = value(args[0], "t", s.disp["t"], T_MIN_C, T_MAX_C, w)
+    value = None
     vals = {"iso_t_c": t, "iso_level_msl_m": col.level(t), "iso_levels_msl_m": col.crossings(t)}
     col = None  # let go of before the text is laid out
     return emit(s, "iso", vals)

@@ -125,6 +125,9 @@ WORD_FACTOR = 1.5
 # resident core modules written as ints where the result stays a float (each float
 # literal is a heap object per module): core report (b) 53 -> 49 KiB, session (b) 131
 # -> 126 KiB, (a) 178.2 -> 177.9 KiB; report (a) 89.2 -> 89.5 KiB (ceiling kept).
+# Then the text chart without the SVG code (chartsvg.py), the altimeter words' numbers
+# apart from their text (altiwords.py), text_lines reading labels in place and wrap
+# slicing single-spaced text: MEASURE
 CEILINGS = {"board_session_heap_bytes": 182 * KIB, "board_report_heap_bytes": 92 * KIB,
             "unix_session_kib": 130, "unix_report_kib": 53}
 SESSION_FILE = os.path.join(MPY_DIR, "board_session.txt")

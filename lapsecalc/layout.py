@@ -198,40 +198,57 @@ def warning_lines(s, rep, keys):
     return wrap(said, "!")
 
 
+# No lines (one shared empty tuple: a board allocates every new list).
+_NONE = ()
+
+
 def text_lines(s, key, v, label_kind=None, rep=None):
-    """Text-mode lines of one result key and value for session s (its display units);
-    rep, when given, is the whole result (some lines depend on another key). The
-    hazard keys' labels and words are in lapsecalc.hazardtext, loaded only for them."""
+    """Text-mode lines of one result key and value for session s (its display units),
+    a list or, for none, an empty tuple; rep, when given, is the whole result (some
+    lines depend on another key). The hazard keys' labels and words are in
+    lapsecalc.hazardtext, loaded only for them."""
     if key == "stability_layers":
         return layer_lines(s, v)
     words = WORDS
-    lk = label_kind or find_label(LABELS, key)  # balloon: balloontext.LABELS
-    if lk is None and key != "cautions":
-        try:
-            from lapsecalc import hazardtext
-        except (ImportError, AttributeError):  # a board without the hazard modules
-            hazardtext = None
-        if hazardtext is not None:
-            lk = find_label(hazardtext.LABELS, key)
-            if v is None and lk is not None and len(lk) > 2:
-                return []  # quiet when None: a hazard not present
-            words = hazardtext.WORDS
-    label, kind = (lk[0], lk[1]) if lk else (key, "?")
+    if label_kind:  # balloon: balloontext.LABELS
+        label, kind = label_kind
+    else:
+        # The label and kind read from the table in place (no tuple: a board counts
+        # every allocation of a line).
+        table = LABELS
+        i = find(table, key)
+        if i < 0 and key != "cautions":
+            try:
+                from lapsecalc import hazardtext
+            except (ImportError, AttributeError):  # a board without the hazard modules
+                hazardtext = None
+            if hazardtext is not None:
+                table = hazardtext.LABELS
+                i = find(table, key)
+                words = hazardtext.WORDS
+        if i < 0:
+            label, kind = key, "?"
+        else:
+            label = field(table, i)
+            i += len(label) + 1
+            kind = field(table, i)
+            if v is None and table.startswith(":q", i + len(kind)):
+                return _NONE  # quiet when None: a hazard not present
     if kind == "until":
-        return [] if v is None else wrap(
+        return _NONE if v is None else wrap(
             ["no dry thermals until the surface reaches %s" % f_t(s, v, True)], "-")
     if kind == "ztop":
         if v is None and rep is not None and rep.get("icing_band_basis") is not None:
             return ["%-13s%s" % (label, "   unknown")]
         kind = "z"
     if kind == "hide" or (key == "warnings" and rep is not None and "levels_above_top" in rep):
-        return []
+        return _NONE
     if isinstance(v, dict):
-        return []  # indicated_altitude_m: the levels word and "heights ind" show it
+        return _NONE  # indicated_altitude_m: the levels word and "heights ind" show it
     if key == "cautions" or kind == "say!":
         return wrap(v, "!")
     if kind == "say1":
-        return []  # said among the warnings
+        return _NONE  # said among the warnings
     if kind == "say-":
         return wrap(v, "-")
     if v is None and rep is not None and key in rep.get("levels_above_top", ()):
@@ -242,7 +259,7 @@ def text_lines(s, key, v, label_kind=None, rep=None):
         return ["%-13s%7.1f K/km %s" % (label, v, word_text(WORDS, c) if c else "")]
     if kind == "zz":
         if v is None:
-            return []  # no dewpoints aloft: the assumed humidity places no layers
+            return _NONE  # no dewpoints aloft: the assumed humidity places no layers
         if not v:
             return ["%-13s%s" % (label + "s", "   none (spread > 3 K)")]
         return ["%-13s%s" % (label if i == 0 else "", "%s-%s" % (
@@ -250,7 +267,7 @@ def text_lines(s, key, v, label_kind=None, rep=None):
     if kind == "zl":
         # Every pass only when there is more than one (else the level line says it).
         if len(v) < 2:
-            return []
+            return _NONE
         return ["%-13s%s" % (label if i == 0 else "", level(s, z)) for i, z in enumerate(v)]
     if v is None:
         return ["%-13s%s" % (label, "   none in column" if kind == "z" else "   none")]

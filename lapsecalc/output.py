@@ -53,12 +53,42 @@ def f_lapse(s, lapse):
         round(units.m_to_ft(t) if h == "ft" else t), h)) for t, r in lapse) + " K/km"
 
 
+def _plain(text):
+    # True when text is printable ASCII with its words separated by single spaces:
+    # then its words are the runs between its spaces, in CPython as on a board.
+    prev = 32
+    for b in text.encode():
+        if b < 32 or b > 126 or (b == 32 and prev == 32):
+            return False
+        prev = b
+    return prev != 32
+
+
 def wrap(text, first, rest="  ", width=40):
     """text as lines of at most width columns (a word longer than a line is cut), the
     first starting with first, the others with rest (first and rest end in a space or
-    are empty). Each line is made once from its words (a board counts every string a
+    are empty). Each line is made once: from a slice of text when its words are
+    separated by single spaces, else from its words (a board counts every string a
     line allocates)."""
     cut = max(1, width - len(rest))  # a hard bound: at least a character a piece
+    if _plain(text):
+        out = []
+        line, a, n = first, 0, len(first)  # the line's start, its first word, its length
+        i, end = 0, len(text)
+        while i < end:
+            j = text.find(" ", i)
+            if j < 0:
+                j = end
+            if j - i > cut:
+                break  # a word longer than a line: cut, below
+            if i > a and n + 1 + j - i > width:
+                out.append(line + text[a:i - 1])
+                line, a, n = rest, i, len(rest)
+            n += j - i + (i > a)
+            i = j + 1
+        else:
+            out.append(line + text[a:])
+            return out
     words = []
     for word in text.split():
         while len(word) > cut:  # a word longer than a line: cut

@@ -116,6 +116,31 @@ def test_wrap_matches_the_word_by_word_rule():
         rest = r.choice(("  ", "    "))
         width = r.choice((12, 20, 40))
         assert wrap(text, first, rest, width) == _wrap_by_words(text, first, rest, width)
+    # Single spaces only (wrap then slices the text itself), with words up to 45 letters
+    # (longer than a line: cut) and punctuation.
+    for _ in range(3000):
+        text = " ".join(r.choice(("a", "bb", "de,", "(f)", "g;h", "x" * r.randint(1, 45)))
+                        for _ in range(r.randint(1, 25)))
+        first = r.choice(("! ", "error: ", "check: ", "> "))
+        rest = r.choice(("  ", "    "))
+        width = r.choice((12, 20, 40))
+        assert wrap(text, first, rest, width) == _wrap_by_words(text, first, rest, width)
+    # a width under the indent: still at least a character a piece, never a loop
+    assert wrap("abc", "> ", "  ", 2) == ["> abc"[:3], "  b", "  c"]
+    # non-ASCII and control characters take the word-by-word way: the same lines
+    assert wrap("caf\xe9 au lait", "> ", "  ", 10) == ["> caf\xe9 au", "  lait"]
+    assert wrap("a\x1fb c", "> ", "  ", 10) == _wrap_by_words("a\x1fb c", "> ", "  ", 10)
+
+
+def test_plain_text_is_printable_ascii_with_single_spaces():
+    # wrap slices such a text in place (its words are the runs between its spaces, in
+    # CPython as on a board); any other text is wrapped from text.split().
+    from lapsecalc.output import _plain
+    for text in ("a b", "!a ~", "x", "a (b) c; d, e.", "-10..60 C"):
+        assert _plain(text) is True, text
+    for text in ("", " ", "a  b", " a", "a ", "a\tb", "a\nb", "a\x1fb", "a\x7fb",
+                 "caf\xe9", "a\xa0b", "a\x00b"):
+        assert _plain(text) is False, text
 
 
 def test_messages_in_each_mode():

@@ -113,3 +113,19 @@ def test_report_keys_order():
                                        "zz_other", "cautions"]
     assert groups.report_keys({"t_c": 1.0}) == ["t_c"]
     assert groups.report_keys({}) == []
+
+
+def test_the_text_report_says_each_key_once():
+    # t_c and td_c belong to the surface and the frost groups, the parcel's freezing
+    # level to the icing and the parcel groups: the report says each once, in its first
+    # section; every label of the report's keys appears on one line only.
+    from lapsecalc.shell import Session
+    s = Session()
+    s.feed("temp 27C dew 13C elev 1350ft qnh 1016")
+    got = s.feed("report")
+    rep = s.report()
+    for key, label in (("t_c", "temp"), ("td_c", "dewpoint"),
+                       ("parcel_freezing_level_msl_m", "parcel 0C")):
+        assert key in rep
+        assert sum(1 for line in got if line.startswith("%-13s" % label)) == 1, label
+    assert got.index("%-13s%s" % ("temp", "   27.0 C")) < got.index("-- cloud base")

@@ -45,10 +45,10 @@ def emit(s, keys, values, balloon=False, word=None, rest=True, plus=()):
             # written; collecting first leaves it the largest free run of the heap.
             s.collect()
         return [s.json.dumps(obj)]
-    from lapsecalc.layout import text_lines, text_keys, warning_lines
+    from lapsecalc.layout import text_lines, text_keys, warning_lines, find_label
     if word is not None:
         keys = text_keys(word)
-    labels, heads = {}, {}
+    labels, heads = "", {}
     if balloon:
         from lapsecalc.balloontext import LABELS as labels, HEADINGS as heads
     out = ["assumed " + n for n in notes]
@@ -58,7 +58,7 @@ def emit(s, keys, values, balloon=False, word=None, rest=True, plus=()):
         if k in heads:
             out.append(heads[k])
         if k in values:   # a board without the hazards module has no hazard keys
-            out.extend(text_lines(s, k, values[k], labels.get(k), values))
+            out.extend(text_lines(s, k, values[k], find_label(labels, k), values))
     return out
 
 

@@ -9,7 +9,7 @@
 # None), kind "z" (level m MSL), "p" (hPa) or "fl" (flight level); lowest first.
 # "trop_m": the tropopause, m MSL, or None (off); absent means the ICAO 11000 m.
 from lapsecalc.limits import T_MIN_C, T_MAX_C, DEW_SLACK_K, TOP_MAX_M
-from lapsecalc.typed import value, said, shown
+from lapsecalc.aliases import shown
 from lapsecalc.output import f_h1, f_t, f_p
 from lapsecalc.state import DEFAULT_TOP_M, fl_pressure_hpa
 
@@ -19,14 +19,37 @@ MAX_POINTS = 24
 _SAME = 0.01
 
 
-def _key(pt):
-    # (0, z m) for a height point, (1, -p hPa) for a pressure point: lowest first.
+def _level(pt, by_p=True):
+    # A point's place among its kind, lowest first: m for a height point, -p hPa for a
+    # pressure level. A flight level is a pressure (state.fl_pressure_hpa: the standard
+    # atmosphere's code) when by_p; against another flight level (not by_p) its number
+    # places it the same way, and two are one level only when their numbers are
+    # (flight levels 100 ft apart differ by more than 0.05 hPa; _SAME is 0.01).
     kind, level = pt[0], pt[1]
-    if kind == "z":
-        return 0, level
     if kind == "fl":
-        level = fl_pressure_hpa(level)
-    return 1, -level
+        return -fl_pressure_hpa(level) if by_p else level
+    return level if kind == "z" else -level
+
+
+def _apart(a, b):
+    # The keys' difference of points a and b (b less a; None when one is a height and
+    # the other a pressure level): a flight level's pressure only against a pressure.
+    if (a[0] == "z") != (b[0] == "z"):
+        return None
+    by_p = a[0] != b[0]
+    return _level(b, by_p) - _level(a, by_p)
+
+
+def _below(a, b):
+    # Whether point a lies below point b (a height point below every pressure level).
+    d = _apart(a, b)
+    return a[0] == "z" if d is None else d > 0.0
+
+
+def _same(a, b):
+    # Whether points a and b are at one level (the new one replaces the old).
+    d = _apart(a, b)
+    return d is not None and abs(d) < _SAME
 
 
 def set_aloft(s, new, args, parse_level):
@@ -35,6 +58,7 @@ def set_aloft(s, new, args, parse_level):
     new is then left as it was."""
     if not args or len(args) % 2:
         raise ValueError("takes pairs LEVEL TEMP[/DEW], e.g. aloft 6000ft 9C/2C FL180 -14C")
+    from lapsecalc.typed import value, said
     pts = list(new.get("aloft", ()))
     told = []
     bare = s.disp["t"]
@@ -56,14 +80,17 @@ def set_aloft(s, new, args, parse_level):
                                                    said(parts[0], bare)))
             td = t if td > t else td
         pt = (kind, level, t, td)
-        k = _key(pt)
-        pts = [q for q in pts if not (_key(q)[0] == k[0] and abs(_key(q)[1] - k[1]) < _SAME)]
-        pts.append(pt)
+        # The points stay in order, lowest first: the new one replaces one at its
+        # level and goes in before the first above it.
+        pts = [q for q in pts if not _same(q, pt)]
+        j = 0
+        while j < len(pts) and _below(pts[j], pt):
+            j += 1
+        pts.insert(j, pt)
         told.append("%s %s" % (shown(lev), shown(tt)))
     if len(pts) > MAX_POINTS:
         raise ValueError("%d points; accepted at most %d (clear aloft forgets them)"
                          % (len(pts), MAX_POINTS))
-    pts.sort(key=_key)
     new["aloft"] = tuple(pts)
     return "aloft %s, %d point%s set" % (", ".join(told), len(pts),
                                           "" if len(pts) == 1 else "s")
@@ -74,6 +101,7 @@ def set_trop(s, new, args, echo):
     if args[0].lower() in ("none", "off"):
         new["trop_m"] = None
         return "tropopause none (no isothermal part)"
+    from lapsecalc.typed import value
     new["trop_m"] = value(args[0], "h", s.disp["h"], 0.0, TOP_MAX_M)
     return "tropopause " + echo(s, args[0], "h", s.disp["h"], new["trop_m"])
 
@@ -112,10 +140,25 @@ def check(s, new, p_stn):
             if pt[1] > top:
                 raise ValueError("aloft %s is above the column top (top %s)"
                                  % (level_text(s, pt), f_h1(s, top)))
-        elif p_stn is not None and -_key(pt)[1] >= p_stn:
+        elif p_stn is not None and -_level(pt) >= p_stn:
             raise ValueError("aloft %s is not above the field: its pressure is not under"
                              " the station pressure %s" % (level_text(s, pt), f_p(s, p_stn, True)))
     trop = new.get("trop_m")
     if trop is not None and elev is not None and trop < elev + 100.0:
         raise ValueError("trop %s is less than 100 m (328 ft) above the field (%s)"
                          % (f_h1(s, trop), f_h1(s, elev)))
+
+
+def check_whole(s, new):
+    """check() for the state new with the station pressure it gives (None without a
+    field elevation): settings.whole leaves it to the caller (lapsecalc.shell), which
+    runs it once the setting words' code is let go of."""
+    press, elev = new.get("press"), new.get("elev_m")
+    p_stn = None
+    if press is not None and press[0] == "stn":
+        p_stn = press[1]
+    elif elev is not None:
+        from lapsecalc.standard import station_pressure
+        from lapsecalc.state import STANDARD_QNH_HPA
+        p_stn = station_pressure(press[1] if press is not None else STANDARD_QNH_HPA, elev)
+    check(s, new, p_stn)

@@ -292,7 +292,11 @@ def whole(s, new):
     """Check what one setting alone cannot (ValueError in the user's words and display
     units): a dewpoint above the temperature, a station pressure without a QNH in
     range, a column top too close to the field, a working envelope temperature above
-    the maximum."""
+    the maximum. Returns None; for a state with points aloft or a tropopause, a pair
+    ("aloft", late): the caller then runs lapsecalc.aloftwords.check_whole (which
+    loads the standard atmosphere's code: on a board after the setting words' code is
+    let go of) and raises late, the working temperature's error or None, only if that
+    finds nothing (the order of the checks stays)."""
     t, hum = new.get("t_c"), new.get("hum")
     if t is not None and hum is not None and hum[0] == "td" and hum[1] > t + DEW_SLACK_K:
         raise ValueError("dew %s is above temp %s; a dewpoint cannot exceed the temperature"
@@ -310,20 +314,16 @@ def whole(s, new):
     if top is not None and elev is not None and top < elev + 100.0:
         raise ValueError("top %s is less than 100 m (328 ft) above the field (%s)"
                          % (f_h1(s, top), f_h1(s, elev)))
-    if "aloft" in new or new.get("trop_m") is not None:
-        p_stn = None
-        if press is not None and press[0] == "stn":
-            p_stn = press[1]
-        elif elev is not None:
-            from lapsecalc.standard import station_pressure
-            from lapsecalc.state import STANDARD_QNH_HPA
-            p_stn = station_pressure(press[1] if press is not None else STANDARD_QNH_HPA, elev)
-        from lapsecalc.aloftwords import check
-        check(s, new, p_stn)
+    late = None
     tmax, tenv = new.get("tmax_c"), new.get("tenv_c")
     if tmax is not None and tenv is not None and tenv > tmax:
-        raise ValueError("working temp tenv %s is above the maximum tmax %s; allowed up to"
-                         " tmax" % (f_t(s, tenv, True), f_t(s, tmax, True)))
+        late = ValueError("working temp tenv %s is above the maximum tmax %s; allowed up to"
+                          " tmax" % (f_t(s, tenv, True), f_t(s, tmax, True)))
+    if "aloft" in new or new.get("trop_m") is not None:
+        return "aloft", late
+    if late is not None:
+        raise late
+    return None
 
 
 # What a setting word takes: one value, a run of numbers, or the rest of the line.

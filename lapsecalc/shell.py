@@ -269,14 +269,19 @@ class Session:
                 raise ValueError("%s %s" % (w, e))
             i = j
         try:
-            whole(self, new)
+            rest = whole(self, new)
             if self.drop_word_modules:
-                # On a board the setting words' code is let go of before the new
-                # state's Column is built (commit), as a query lets go of the physics
-                # before its text.
+                # On a board the setting words' code is let go of before the points
+                # aloft are checked and the new state's Column is built (commit), as
+                # a query lets go of the physics before its text.
                 fn = whole = SETTINGS = None
                 drop_modules(SETTING_MODULES)
                 self.collect()
+            if rest is not None:  # ("aloft", late): settings.whole
+                from lapsecalc.aloftwords import check_whole
+                check_whole(self, new)
+                if rest[1] is not None:
+                    raise rest[1]
             self.commit(new)
         except ValueError as e:
             # What only the library finds (the new state's column) in the user's terms.

@@ -102,3 +102,66 @@ def test_ends_of_the_column_are_taken():
     assert said(s, "trop 100m") == "ok: tropopause 100 m (328 ft)"
     assert said(s, "trop 99.9m").startswith("error: trop 328 ft is less than 100 m (328 ft)")
     assert s.state["trop_m"] == 100.0
+
+
+def test_points_in_order_lowest_first_and_the_same_level_replaced():
+    # Heights first (lowest first), then pressure levels from the highest pressure; a
+    # flight level among them at its standard-atmosphere pressure (FL180 = 18000 ft,
+    # about 506 hPa in the ICAO standard atmosphere, from memory; checked here only
+    # against 500 and 510 hPa).
+    s = session()
+    assert s.feed("aloft FL180 -14C 500hPa -15C 4000ft 15C 510hPa -13C FL80 5C 800hPa 2C"
+                  " 2000ft 20C")[0].startswith("ok")
+    assert [pt[:2] for pt in s.state["aloft"]] == [
+        ("z", 2000 * FT), ("z", 4000 * FT), ("p", 800.0), ("fl", 80), ("p", 510.0),
+        ("fl", 180), ("p", 500.0)]
+    # One more at a time goes in its place; a flight level and a pressure at one level
+    # are one point (the later replaces the earlier), so are two equal flight levels.
+    from lapsecalc.state import fl_pressure_hpa
+    assert s.feed("aloft 3000ft 17C FL100 -2C")[0].startswith("ok")
+    assert s.feed("aloft %.4fhPa -14.5C" % fl_pressure_hpa(180))[0].startswith("ok")
+    assert s.feed("aloft FL80 4C")[0].startswith("ok")
+    assert [pt[:3] for pt in s.state["aloft"]] == [
+        ("z", 2000 * FT, 20.0), ("z", 3000 * FT, 17.0), ("z", 4000 * FT, 15.0),
+        ("p", 800.0, 2.0), ("fl", 80, 4.0), ("fl", 100, -2.0), ("p", 510.0, -13.0),
+        ("p", round(fl_pressure_hpa(180), 4), -14.5), ("p", 500.0, -15.0)]
+
+
+def test_height_and_flight_level_points_need_no_standard_atmosphere(monkeypatch):
+    # Heights and flight levels alone are ordered and merged by their numbers: the
+    # standard atmosphere's code (state.fl_pressure_hpa) is not called for them (the
+    # whole state's check, later, needs their pressures: not counted here).
+    from lapsecalc import aloftwords
+    from lapsecalc.settings import parse_level
+    called = []
+    monkeypatch.setattr(aloftwords, "fl_pressure_hpa", lambda fl: called.append(fl) or 0.0)
+    s = Session()
+    new = {}
+    aloftwords.set_aloft(s, new, "FL180 -14C 3000ft 15C FL50 5C FL100 -2C FL50 4C".split(),
+                         parse_level)
+    assert [pt[:3] for pt in new["aloft"]] == [
+        ("z", 3000 * FT, 15.0), ("fl", 50, 4.0), ("fl", 100, -2.0), ("fl", 180, -14.0)]
+    assert called == []
+    # A pressure among them: each flight level it meets is converted.
+    aloftwords.set_aloft(s, new, ["700hPa", "2C"], parse_level)
+    assert called and set(called) <= {50, 100, 180}
+
+
+def test_heights_exactly_a_hundredth_apart_are_two_points_in_order():
+    # 0.02 - 0.01 is exactly 0.01 in binary: not under 0.01, so two levels, the
+    # higher after the lower whichever comes first.
+    s = session("elev -300m")
+    assert s.feed("aloft 0.01m 14C")[0].startswith("ok")
+    assert s.feed("aloft 0.02m 13C")[0].startswith("ok")
+    assert [pt[:2] for pt in s.state["aloft"]] == [("z", 0.01), ("z", 0.02)]
+
+
+def test_a_pressure_point_against_the_station_pressure():
+    # With a station pressure set, a pressure point is above the field when its
+    # pressure is under the station's (967.4 hPa here), not under the pressure that
+    # 967.4 hPa as a QNH would give at 411 m (about 918 hPa).
+    s = session("elev 411m", "stn 967.4hPa")
+    assert s.feed("aloft 950hPa 20C")[0].startswith("ok")
+    assert said(s, "aloft 980hPa 20C") == ("error: aloft 980.0 hPa is not above the field:"
+                                            " its pressure is not under the station pressure"
+                                            " 967.4 hPa")

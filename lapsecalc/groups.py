@@ -62,6 +62,18 @@ def keys(word):
     return _GROUPS[word].split()
 
 
+def has(word, key):
+    """Whether key is one of query word's keys (allocates nothing)."""
+    g = _GROUPS[word]
+    n = len(key)
+    i = g.find(key)
+    while i >= 0 and n:
+        if (i == 0 or g.startswith(" ", i - 1)) and (i + n == len(g) or g.startswith(" ", i + n)):
+            return True
+        i = g.find(key, i + 1)
+    return False
+
+
 def report_keys(rep):
     """Report keys in display order: the groups' order, then any others sorted."""
     seen = []

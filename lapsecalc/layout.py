@@ -342,32 +342,53 @@ def text_keys(word):
     return keys
 
 
-def report_text(s, rep, extra=()):
+def _before(n, key, has):
+    # Whether a section of the text report before the n-th (SECTIONS) shows key: as
+    # text_keys says (the column top with the stability, not the surface); has is
+    # lapsecalc.groups.has (imported once by the caller: an import allocates).
+    for m in range(n):
+        if has(SECTIONS[m][1], key) if key != "top_msl_m" else SECTIONS[m][1] == "stab":
+            return True
+    return False
+
+
+def report_text(s, rep, extra=(), head=()):
     """The whole report in sections (the groups of lapsecalc.groups.REPORT_GROUPS),
-    warnings first, then the keys of no group (sorted), cautions last; extra, when
-    given, are the altimeter section's lines (lapsecalc.altitext)."""
-    out = []
-    done = ["warnings", "levels_above_top", "cautions"]
+    after the lines head: warnings first, then the keys of no group (sorted), cautions
+    last; extra, when given, are the altimeter section's lines (lapsecalc.altitext). A
+    key of two sections is said in the first. Each section is gathered apart and the
+    list returned is made once at its length (on a board the output list is one of a
+    line's largest pieces of heap; a list grown line by line doubles)."""
+    from lapsecalc.groups import has
+    parts = [head]
     said = warning_lines(s, rep, rep)
     if said:
-        out.append("-- warnings")
-        out.extend(said)
-    for heading, word in SECTIONS:
-        out.append(heading)
+        parts.append(["-- warnings"] + said)
+    for n in range(len(SECTIONS)):
+        heading, word = SECTIONS[n]
+        sec = [heading]
         for k in text_keys(word):
-            if k in rep and k not in done:
-                out.extend(text_lines(s, k, rep[k], rep=rep))
-                done.append(k)
+            if k in rep and not _before(n, k, has):
+                sec.extend(text_lines(s, k, rep[k], rep=rep))
         if word == "parcel":
-            out.append(PARCEL_NOTE)
+            sec.append(PARCEL_NOTE)
+        parts.append(sec)
     if extra:
-        out.append("-- altimeter")
-        out.extend(extra)
-    more = []
-    for k in sorted(k for k in rep if k not in done):
-        more.extend(text_lines(s, k, rep[k], rep=rep))
-    if more:
-        out.append("-- more")
-        out.extend(more)
-    out.append("-- cautions")
-    return out + wrap(rep.get("cautions", ()), "!")
+        parts.append(["-- altimeter"] + list(extra))
+    sec = ["-- more"]
+    for k in sorted(k for k in rep if k != "warnings" and k != "levels_above_top" and
+                    k != "cautions" and not _before(len(SECTIONS), k, has)):
+        sec.extend(text_lines(s, k, rep[k], rep=rep))
+    if len(sec) > 1:
+        parts.append(sec)
+    parts.append(["-- cautions"] + wrap(rep.get("cautions", ()), "!"))
+    n = 0
+    for sec in parts:
+        n += len(sec)
+    out = [None] * n
+    n = 0
+    for sec in parts:
+        for line in sec:
+            out[n] = line
+            n += 1
+    return out

@@ -97,7 +97,7 @@ def _c_report(s, w, args):
     extra = _altimeter_section(s, rep)
     s.release()
     from lapsecalc.layout import report_text
-    return assumed_text(s) + report_text(s, rep, extra)
+    return report_text(s, rep, extra, assumed_text(s))
 
 
 def _altimeter_section(s, rep):

@@ -103,6 +103,21 @@ def test_group_keys_are_a_fresh_list_each_time():
     assert "x" not in groups.keys("base")
 
 
+def test_has_finds_whole_keys_only():
+    for word in ("obs", "base", "ice", "frost", "stab", "parcel", "thermal", "at", "hot", "gas"):
+        keys = groups.keys(word)
+        for k in keys:
+            assert groups.has(word, k), (word, k)
+        # a key's pieces and extensions are no keys (the groups' keys share many)
+        for k in keys:
+            for cut in (k[1:], k[:-1], k + "_x", "x_" + k):
+                assert groups.has(word, cut) == (cut in keys), (word, cut)
+    # "t_c" is inside "lcl_t_c" (base) and "td_c" is no part of "t_c": whole keys only
+    assert not groups.has("base", "t_c") and groups.has("frost", "t_c")
+    assert groups.has("obs", "elevation_m") and groups.has("obs", "top_msl_m")  # both ends
+    assert not groups.has("obs", "") and not groups.has("obs", " ")
+
+
 def test_report_keys_order():
     rep = {"zz_other": 1, "cautions": [], "t_c": 20.0, "aa_other": 2, "cloud_base_msl_m": 1.0,
            "elevation_m": 0.0, "frost_point_c": 1.0, "trigger_t_c": 3.0}
@@ -129,3 +144,40 @@ def test_the_text_report_says_each_key_once():
         assert key in rep
         assert sum(1 for line in got if line.startswith("%-13s" % label)) == 1, label
     assert got.index("%-13s%s" % ("temp", "   27.0 C")) < got.index("-- cloud base")
+
+
+class _S:
+    # The parts of a Session the text layout reads.
+    def __init__(self):
+        self.disp = {"h": "ft", "t": "c", "p": "hpa", "z": "msl"}
+        self.state = {}
+
+
+def test_report_text_sections_more_and_head():
+    # A made-up result: two surface keys (t_c also in the frost group), one key of no
+    # group (said under "-- more", "%.6g"), a caution; the head lines come first.
+    rep = {"t_c": 20.0, "td_c": 10.0, "zz_extra": 1.5, "cautions": ["Mind the gap."],
+           "warnings": [], "levels_above_top": []}
+    got = layout.report_text(_S(), rep, (), ["assumed x"])
+    assert got == ["assumed x", "-- surface", "temp            20.0 C",
+                   "dewpoint        10.0 C", "-- cloud base", "-- freezing and icing",
+                   "-- frost, fog, carb icing", "-- stability", "-- parcel",
+                   layout.PARCEL_NOTE, "-- thermals", "-- more", "zz_extra     1.5",
+                   "-- cautions", "! Mind the gap."]
+    # nothing of no group: no "-- more"; the altimeter lines after the thermals
+    del rep["zz_extra"]
+    got = layout.report_text(_S(), rep, ["cold corr x"])
+    assert "-- more" not in got
+    assert got[got.index("-- thermals") + 1:] == ["-- altimeter", "cold corr x", "-- cautions",
+                                                  "! Mind the gap."]
+
+
+def test_report_text_says_warnings_first():
+    from lapsecalc.shell import Session
+    s = Session()
+    s.feed("temp 27C dew 13C elev 1350ft qnh 1016")
+    s.feed("top 3000ft")  # the cloud base and the 0C level lie above this top
+    got = s.feed("report")
+    heads = [line for line in got if line.startswith("-- ")]
+    assert heads[:2] == ["-- warnings", "-- surface"]
+    assert got[got.index("-- warnings") + 1].startswith("! base: above the column top")

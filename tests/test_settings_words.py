@@ -269,3 +269,22 @@ def test_points_aloft_against_the_station_pressure():
         ("qnh 1030", ["ok: QNH 1030 hPa"]),
         ("aloft 1020hPa 10C", ["ok: aloft 1020hPa 10C, 2 points set"]),
     ])
+
+
+def test_whole_state_checks_at_their_edges():
+    # settings.whole: a dewpoint up to 0.05 K over the temperature is rounding (limits
+    # DEW_SLACK_K); a column top exactly 100 m above the field is allowed; a working
+    # envelope temperature equal to the maximum is allowed.
+    from lapsecalc.shell import Session
+    s = Session()
+    assert s.feed("temp 20C")[0].startswith("ok")
+    assert s.feed("dew 20.05C") == ["ok: dew 20.05 C"]
+    assert s.feed("dew 20.06C")[0] == "error: dew 20.1 C is above temp 20.0 C;"
+    assert s.feed("elev 1000m") == ["ok: elev 1000 m (3281 ft) MSL"]
+    assert s.feed("top 1100m") == ["ok: top 1100 m (3609 ft) MSL"]
+    assert s.feed("top 1099m")[0] == "error: top 3606 ft is less than 100 m"
+    assert s.feed("tmax 120C tenv 120C") == ["ok: tmax 120 C, tenv 120 C"]
+    assert s.feed("tenv 120.1C")[0] == "error: working temp tenv 120.1 C is"
+    # Points aloft are checked whether or not a tropopause is set.
+    assert s.feed("aloft 900m 20C")[0] == "error: aloft 2953 ft is not above the"
+    assert s.feed("trop 1050m")[0].startswith("error: trop")

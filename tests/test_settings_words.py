@@ -288,3 +288,14 @@ def test_whole_state_checks_at_their_edges():
     # Points aloft are checked whether or not a tropopause is set.
     assert s.feed("aloft 900m 20C")[0] == "error: aloft 2953 ft is not above the"
     assert s.feed("trop 1050m")[0].startswith("error: trop")
+
+
+def test_elr_takes_the_run_of_numbers_after_it():
+    # elr reads every number after it and no word: the next setting starts there.
+    from lapsecalc.shell import Session
+    s = Session()
+    assert s.feed("elr 6.5 temp 20C") == ["ok: ELR 6.5 K/km (1.98 C/1000ft),", "    temp 20 C"]
+    assert s.feed("elr -4@200m 9.5@820ft 6.5 excess 2C")[0].startswith("ok: ELR")
+    assert s.state["excess_c"] == 2.0 and len(s.state["lapse"]) == 3
+    assert s.feed("elr excess 2C") == ["error: elr needs a rate, e.g. elr 6.5 or",
+                                       "  elr -5@300m 8@2km 6.5"]

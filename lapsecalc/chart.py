@@ -50,14 +50,22 @@ def frame(col, levels, lo, hi, t_unit, n):
     and the rounded temperature range that holds them (5-degree steps): (heights,
     environment, parcel, low, high)."""
     conv = c_to_f if t_unit == "f" else float
-    zs = [lo + (hi - lo) * i / n for i in range(n + 1)]
-    env = [conv(col.t_at(z)) for z in zs]
-    par = [conv(parcel_t(levels, z)) for z in zs]
+    # Lists made at their length and the range found without joining them (on a
+    # board a list built item by item doubles, and every list is one piece of heap).
+    zs, env, par = [0.0] * (n + 1), [0.0] * (n + 1), [0.0] * (n + 1)
+    for i in range(n + 1):
+        z = zs[i] = lo + (hi - lo) * i / n
+        env[i] = conv(col.t_at(z))
+        par[i] = conv(parcel_t(levels, z))
+    t_min, t_max = min(min(env), min(par)), max(max(env), max(par))
     # The points aloft shown are corners of the environment between the heights
     # sampled: the range holds them too.
-    pts = [conv(col.t_at(z)) for z in (col.aloft_m or ()) if lo <= z <= hi]
-    t_lo = 5.0 * floor((min(env + par + pts) - 1.0) / 5.0)
-    t_hi = 5.0 * ceil((max(env + par + pts) + 1.0) / 5.0)
+    for z in col.aloft_m or ():
+        if lo <= z <= hi:
+            t = conv(col.t_at(z))
+            t_min, t_max = min(t_min, t), max(t_max, t)
+    t_lo = 5.0 * floor((t_min - 1.0) / 5.0)
+    t_hi = 5.0 * ceil((t_max + 1.0) / 5.0)
     return zs, env, par, t_lo, t_hi
 
 

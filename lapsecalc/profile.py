@@ -76,11 +76,12 @@ def build(col, t_c, td_c, p_hpa, elev_m, lapse, top_m, aloft, tropopause_m):
     tops = _tops(lapse, col.elev_m, top)
     if trop is not None:
         # Isothermal above the tropopause, unless a layer starts above it (or the
-        # points go past it: then from the last point).
+        # points go past it: then from the last point). A tropopause on a layer's foot
+        # makes that layer isothermal (its zero-length part below is skipped).
         below = col.elev_m
         for i in range(len(tops)):
             z_top, rate = tops[i]
-            if below < trop < z_top:
+            if below <= trop < z_top:
                 tops[i:i + 1] = [(trop, rate), (z_top, 0.0)]
                 col.tropopause_m = trop if trop > z else z
                 break

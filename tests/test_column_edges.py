@@ -201,3 +201,38 @@ def test_warm_layer_over_a_surface_at_zero():
     # Air warming upward from a surface at exactly 0 degC: warm air over air at 0 degC.
     assert Column(0.0, -2.0, 1000.0, 0.0, -5.0, top_m=2000.0).report()["warm_layer_aloft"]
     assert not Column(0.5, -2.0, 1000.0, 0.0, -5.0, top_m=2000.0).report()["warm_layer_aloft"]
+
+
+def test_tropopause_on_a_layer_foot_makes_the_air_above_isothermal():
+    # A tropopause exactly where an ELR layer starts (ICAO standard atmosphere: 6.5 K/km
+    # to 11000 m, isothermal above) is the same column as one layer run through it; a
+    # layer that starts above the tropopause keeps its rate. (It was ignored, and the
+    # air above went on cooling to -90 degC.)
+    split = Column(15.0, 5.0, 1013.25, 0.0, [(11000.0, 6.5), (None, 6.5)], 20000.0)
+    whole = Column(15.0, 5.0, 1013.25, 0.0, 6.5, 20000.0)
+    assert split.layers == whole.layers and split.tropopause_m == 11000.0
+    assert split.top_m == 20000.0 and split.end_why is None
+    assert split.t_at(19000.0) == split.t_at(11000.0) == pytest.approx(-56.5, abs=1e-9)
+    above = Column(15.0, 5.0, 1013.25, 0.0, [(11000.0, 6.5), (12000.0, -2.0), (None, 6.5)],
+                   20000.0)
+    assert above.tropopause_m == 11000.0 and above.t_at(12000.0) == above.t_at(11000.0)
+    assert above.t_at(13000.0) < above.t_at(12000.0) - 6.0  # 6.5 K/km again above
+    # No zero-thickness layer at the foot (a stability band of no depth).
+    assert [lay[:2] for lay in above.layers] == [(0.0, 11000.0), (11000.0, 12000.0),
+                                                 (12000.0, above.top_m)]
+
+
+def test_layers_past_the_column_top_are_not_read():
+    # A layer that reaches the column top ends the list: what follows it (here a top
+    # below the layer before, which would be refused) is left out.
+    col = Column(15.0, 5.0, 1013.25, 0.0, [(20000.0, 6.5), (100.0, 5.0)], 9000.0)
+    assert col.top_m == 9000.0 and len(col.layers) == 1
+
+
+def test_no_tropopause_when_the_points_end_the_column_past_it():
+    # Points aloft up to 12500 m over ELR layers that end lower: the column ends at the
+    # last point, above the tropopause asked for; no isothermal part is left in it.
+    col = Column(15.0, 5.0, 1013.25, 0.0, [(12000.0, 6.5)], 16000.0,
+                 aloft=[(12500.0, -60.0, None)], tropopause_m=11000.0)
+    assert col.top_m == 12500.0 and col.tropopause_m is None
+    assert col.end_why == "its last layer ends there"

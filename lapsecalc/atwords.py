@@ -15,6 +15,7 @@ def _c_at(s, w, args):
         raise ValueError("at needs a height, e.g. at 8000ft, at 2000ft agl, at 700hPa")
     col = s.column(w)
     z = height(s, w, args, col)
+    s.read_done()
     p = col.p_at(z)
     vals = {"at_msl_m": z, "at_t_c": col.t_at(z), "at_p_hpa": p,
             "at_vapour_pressure_hpa": col.vapour_pressure_at(z),
@@ -54,6 +55,7 @@ def _c_iso(s, w, args):
     from lapsecalc.limits import T_MIN_C, T_MAX_C
     t = value(args[0], "t", s.disp["t"], T_MIN_C, T_MAX_C, w)
     value = None
+    s.read_done()
     vals = {"iso_t_c": t, "iso_level_msl_m": col.level(t), "iso_levels_msl_m": col.crossings(t)}
     col = None  # let go of before the text is laid out
     return emit(s, "iso", vals)

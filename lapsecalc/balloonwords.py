@@ -35,6 +35,7 @@ def _gas_report(s, w, args, gas):
     st = s.state
     col = s.column(w)
     z = height(s, w, args, col)
+    s.read_done()
     from lapsecalc.balloon import gas_report
     return gas_report(col, gas, st.get("purity", 1.0), st["fill_m3"], st["env_m3"],
                       st["wt_kg"], z, st.get("superheat_k", 0.0))
@@ -55,6 +56,7 @@ def _hot_report(s, w, args):
     st = s.state
     col = s.column(w)
     z = height(s, w, args, col)
+    s.read_done()
     from lapsecalc import balloon
     _hot_needs(s, w, col, z, balloon.working_envelope_t(
         st["tmax_c"], st.get("tenv_c"), st.get("margin_k", balloon.DEFAULT_MARGIN_K)))
@@ -90,6 +92,8 @@ def _c_loads(s, w, args):
     if args:
         from lapsecalc.typed import value
         empty = value(args[0], "w", "kg", 1.0, 20000.0, w)
+        value = None
+        s.read_done()
     tab = _load_table(s, w, empty)
     if s.mode == "text":
         s.release()  # the numbers are there: a board lets go of the physics first

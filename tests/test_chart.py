@@ -1,6 +1,8 @@
 """Profile chart (lapsecalc.chart): the 40-column text art and the SVG text."""
 import xml.etree.ElementTree as ET
 
+import pytest
+
 from lapsecalc.column import Column
 from lapsecalc import chart, chartsvg, parcel
 
@@ -264,3 +266,51 @@ def test_svg_legend_shows_samples_and_names_no_colour():
     texts = [t.text for t in root.iter(SVG + "text")]
     assert "environment (ELR)" in texts and "surface parcel" in texts
     assert "icing band (0 to -20 C in cloud)" in texts
+
+
+class _Line:
+    # A made-up column for chart.frame: temperature falling linearly from t0 at z = 0
+    # by rate K per metre, with points aloft at the heights given.
+    def __init__(self, t0, rate, aloft=None):
+        self.t0, self.rate, self.aloft_m = t0, rate, aloft
+
+    def t_at(self, z):
+        return self.t0 - self.rate * z
+
+
+def test_frame_samples_evenly_and_rounds_the_range_outward():
+    # Heights lo..hi in n equal steps; environment and parcel at each; the range: the
+    # lowest value less 1 degree down to a multiple of 5, the highest plus 1 up to one.
+    col = _Line(20.5, 0.004)  # 20.5 C at 0 m, 8.5 C at 3000 m
+    levels = [(0.0, 0.0, 24.0, 0.0), (3000.0, 0.0, 12.5, 0.0)]  # parcel 24 -> 12.5 C
+    zs, env, par, t_lo, t_hi = chart.frame(col, levels, 0.0, 3000.0, "c", 6)
+    assert zs == [0.0, 500.0, 1000.0, 1500.0, 2000.0, 2500.0, 3000.0]
+    assert env == [pytest.approx(20.5 - 0.004 * z) for z in zs]
+    assert par == [pytest.approx(24.0 - 11.5 * z / 3000.0) for z in zs]
+    # lowest 8.5 -> 7.5 -> 5; highest 24 -> 25 -> 25
+    assert (t_lo, t_hi) == (5.0, 25.0)
+    # a field above sea level: the heights start there
+    zs = chart.frame(col, levels, 400.0, 1000.0, "c", 2)[0]
+    assert zs == [400.0, 700.0, 1000.0]
+    # highest 24.2 -> 25.2 -> 30 (one more step up), lowest 20.6 -> 19.6 -> 15
+    col = _Line(20.6, 0.0)
+    levels = [(0.0, 0.0, 24.2, 0.0), (3000.0, 0.0, 24.2, 0.0)]
+    assert chart.frame(col, levels, 0.0, 3000.0, "c", 4)[3:] == (15.0, 30.0)
+    # F: the same values converted (24.2 C = 75.56 F -> 80; 20.6 C = 69.08 F -> 65)
+    assert chart.frame(col, levels, 0.0, 3000.0, "f", 4)[3:] == (65.0, 80.0)
+    # the edges of a step: 21 - 1 = 20 is a multiple of 5 itself; 6.02 - 1 = 5.02 is just
+    # above one (the step is 5 degrees, not a little more)
+    for t, want in ((21.0, 20.0), (6.02, 5.0)):
+        assert chart.frame(_Line(t, 0.0), levels, 0.0, 3000.0, "c", 4)[3] == want, t
+
+
+def test_frame_range_holds_the_points_aloft_it_shows():
+    # A point aloft is a corner of the environment between the samples: the range
+    # holds it when it lies within lo..hi, not otherwise (one at an end is a sample).
+    class Corner(_Line):
+        def t_at(self, z):
+            return -31.0 if z == 1234.0 else 0.0 if z == 3000.0 or z == 0.0 else 10.0
+
+    levels = [(0.0, 0.0, 10.0, 0.0), (3000.0, 0.0, 10.0, 0.0)]
+    assert chart.frame(Corner(0, 0, [1234.0]), levels, 0.0, 3000.0, "c", 4)[3] == -35.0
+    assert chart.frame(Corner(0, 0, [5000.0]), levels, 0.0, 3000.0, "c", 4)[3] == -5.0

@@ -2,9 +2,9 @@
 temperature (runs on MicroPython; loaded only by their lines)."""
 # Sources: every number comes from the Column, lapsecalc.parcel and lapsecalc.altimetry;
 #   this module only picks them.
-# lapsecalc.typed (iso's temperature) and lapsecalc.limits are imported inside the
-# words: a module-level name would keep the number reader alive through the text.
-from lapsecalc.heights import height
+# lapsecalc.typed (iso's temperature), lapsecalc.heights and lapsecalc.limits are
+# imported inside the words: a module-level name would keep their code alive through
+# the text.
 from lapsecalc.queries import emit, _c_group
 
 
@@ -14,7 +14,9 @@ def _c_at(s, w, args):
     if not args:
         raise ValueError("at needs a height, e.g. at 8000ft, at 2000ft agl, at 700hPa")
     col = s.column(w)
+    from lapsecalc.heights import height
     z = height(s, w, args, col)
+    height = None  # no name of it kept: release() lets go of its code
     s.read_done()
     p = col.p_at(z)
     vals = {"at_msl_m": z, "at_t_c": col.t_at(z), "at_p_hpa": p,

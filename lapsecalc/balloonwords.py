@@ -3,7 +3,6 @@ kv and json form (runs on MicroPython; loaded only by their lines)."""
 # Sources: every number comes from lapsecalc.balloon and lapsecalc.loadtable; this
 #   module checks the settings the words need, picks and formats.
 from lapsecalc.queries import emit, assumed_text
-from lapsecalc.heights import height
 
 
 def _balloon_needs(s, w, gas):
@@ -34,7 +33,9 @@ def _hot_needs(s, w, col, z, t_work):
 def _gas_report(s, w, args, gas):
     st = s.state
     col = s.column(w)
+    from lapsecalc.heights import height
     z = height(s, w, args, col)
+    height = None  # no name of it kept: release() lets go of its code
     s.read_done()
     from lapsecalc.balloon import gas_report
     return gas_report(col, gas, st.get("purity", 1.0), st["fill_m3"], st["env_m3"],
@@ -55,7 +56,9 @@ def _hot_report(s, w, args):
     # is laid out.)
     st = s.state
     col = s.column(w)
+    from lapsecalc.heights import height
     z = height(s, w, args, col)
+    height = None  # no name of it kept: release() lets go of its code
     s.read_done()
     from lapsecalc import balloon
     _hot_needs(s, w, col, z, balloon.working_envelope_t(

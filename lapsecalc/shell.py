@@ -221,7 +221,7 @@ class Session:
         w = words[0].lower()
         w = ALIASES.get(w, w)
         if self.drop_word_modules and self._rep is not None and (
-                w in _NO_REPORT or w == "da" and len(words) > 1):  # da H: as at H
+                w in _NO_REPORT or (w == "da" and len(words) > 1)):  # da H: as at H
             self._rep = None
             self.collect()
         if w in SETTING_WORDS:

@@ -210,8 +210,10 @@ def text_lines(s, key, v, label_kind=None, rep=None):
     if key == "stability_layers":
         return layer_lines(s, v)
     words = WORDS
-    if label_kind:  # balloon: balloontext.LABELS
-        label, kind = label_kind
+    if label_kind:  # (label, kind) or find_label's (label, kind, True): balloon, show
+        label, kind = label_kind[0], label_kind[1]
+        if v is None and len(label_kind) > 2:
+            return _NONE
     else:
         # The label and kind read from the table in place (no tuple: a board counts
         # every allocation of a line).
@@ -347,7 +349,11 @@ def _before(n, key, has):
     # text_keys says (the column top with the stability, not the surface); has is
     # lapsecalc.groups.has (imported once by the caller: an import allocates).
     for m in range(n):
-        if has(SECTIONS[m][1], key) if key != "top_msl_m" else SECTIONS[m][1] == "stab":
+        word = SECTIONS[m][1]
+        if key == "top_msl_m":
+            if word == "stab":
+                return True
+        elif has(word, key):
             return True
     return False
 

@@ -58,7 +58,8 @@ def emit(s, keys, values, balloon=False, word=None, rest=True, plus=()):
         if k in heads:
             out.append(heads[k])
         if k in values:   # a board without the hazards module has no hazard keys
-            out.extend(text_lines(s, k, values[k], find_label(labels, k), values))
+            out.extend(text_lines(s, k, values[k], find_label(labels, k) if balloon else None,
+                                  values))
     return out
 
 

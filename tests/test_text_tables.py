@@ -5,7 +5,7 @@
 against the documented rules (group order, then the others sorted, cautions last)."""
 import pytest
 
-from lapsecalc import groups, hazardtext, layout
+from lapsecalc import balloontext, groups, hazardtext, layout
 from lapsecalc.layout import find, field, find_label, word_text, LABELS, WORDS
 
 
@@ -21,7 +21,8 @@ def parse(table):
 
 
 TABLES = (("layout.LABELS", LABELS), ("hazardtext.LABELS", hazardtext.LABELS),
-          ("layout.WORDS", WORDS), ("hazardtext.WORDS", hazardtext.WORDS))
+          ("layout.WORDS", WORDS), ("hazardtext.WORDS", hazardtext.WORDS),
+          ("balloontext.LABELS", balloontext.LABELS))
 
 
 @pytest.mark.parametrize("name,table", TABLES)
@@ -181,3 +182,15 @@ def test_report_text_says_warnings_first():
     heads = [line for line in got if line.startswith("-- ")]
     assert heads[:2] == ["-- warnings", "-- surface"]
     assert got[got.index("-- warnings") + 1].startswith("! base: above the column top")
+
+
+def test_text_lines_takes_a_label_with_or_without_the_quiet_mark():
+    # A label found by find_label in a table of its own (the balloon's) may carry the
+    # third item (quiet when None): no line then; a plain (label, kind) says the value.
+    from lapsecalc.shell import Session
+    s = Session()
+    assert layout.text_lines(s, "x_m", None, ("float", "z", True)) == ()
+    plain = layout.text_lines(s, "x_m", None, ("float", "z"))
+    assert len(plain) == 1 and plain[0].startswith("float")
+    assert layout.text_lines(s, "x_m", 1000.0, ("float", "z", True)) == \
+        layout.text_lines(s, "x_m", 1000.0, ("float", "z"))

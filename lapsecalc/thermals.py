@@ -5,9 +5,7 @@ inversion, and the temperature dry thermals need."""
 #   the LCL of a heated surface parcel (condensation.cloud_base), the dry-thermal top
 #   and the convective (trigger) temperature (lapsecalc.stability).
 # An extra on a board, loaded by lapsecalc.hazards for one report and dropped after it.
-from math import fabs
-from lapsecalc.constants import DRY_LAPSE_K_PER_KM
-from lapsecalc.stability import NEUTRAL_BAND_K_PER_KM
+from lapsecalc.stability import classify
 
 
 def capped_top(col, base_msl_m, pa):
@@ -56,9 +54,9 @@ def add_keys(col, levels, r):
     reach = top
     if still:
         # Unless the lowest layer is dry-neutral: a mixed layer, stirred to its top.
-        z1, grad = col.layers[0][1], col.layers[0][3]
-        mixed = fabs(-1000.0 * grad - DRY_LAPSE_K_PER_KM) <= NEUTRAL_BAND_K_PER_KM
-        reach = z1 if mixed else col.elev_m
+        # (stability.classify's dry-neutral test: the saturated rate plays no part).
+        mixed = classify(-1000 * col.layers[0][3], 0) == "dry_neutral"
+        reach = col.layers[0][1] if mixed else col.elev_m
     if th_lcl is not None and (reach is None or reach > th_lcl):
         cap = capped_top(col, th_lcl, r)
         kind = "capped" if cap is not None else "none" if still else "cumulus"

@@ -474,6 +474,37 @@ def test_icing_band_function_matches_the_report():
                         r["icing_band_basis"])
 
 
+def test_two_icing_layers_and_the_public_functions_match_the_report():
+    # Invented: MOIST_POINTS' cloud, dry at 3000 m, cloud again 3500-4500 m, dry above.
+    pts = [(1500.0, 2.0, 1.0), (2500.0, -5.0, -6.5), (3000.0, -8.0, -20.0),
+           (3500.0, -11.0, -12.0), (4500.0, -17.0, -18.0), (5000.0, -20.0, -35.0),
+           (7000.0, -35.0, -50.0)]
+    from lapsecalc import icing
+    col = Column(8.0, 6.0, 1000.0, 100.0, 6.5, 12000.0, aloft=pts)
+    r = col.report()
+    # By hand (linear between points): 0 degC at 1500 + 2/7 km; the spread 3 K at
+    # 2500 + 1.5/10.5 * 500 m, at 3000 + 9/11 * 500 m and at 4500 + 2/14 * 500 m; -20
+    # degC at 5000 m, above the second layer: the band's top is that layer's.
+    want = [[1500.0 + 2.0 / 7.0 * 1000.0, 2500.0 + 1.5 / 10.5 * 500.0],
+            [3000.0 + 9.0 / 11.0 * 500.0, 4500.0 + 2.0 / 14.0 * 500.0]]
+    assert r["icing_layers_msl_m"] == [pytest.approx(w, abs=1e-6) for w in want]
+    assert (r["icing_band_bottom_msl_m"], r["icing_band_top_msl_m"]) == pytest.approx(
+        (want[0][0], want[1][1]), abs=1e-6)
+    # The public functions (crossings found by themselves) give the same.
+    assert icing.icing_layers(col) == r["icing_layers_msl_m"]
+    assert icing.icing_band(col, None, r["cloud_base_msl_m"], None,
+                            r["parcel_freezing_level_msl_m"]) == (
+        r["icing_band_bottom_msl_m"], r["icing_band_top_msl_m"], "layers")
+    # A field just above 0 degC under a cloud base lower than the 0 degC level: the
+    # band starts at the air's 0 degC level, 0.8 / 6.5 km up (by hand), not at the field.
+    col = Column(0.8, 0.75, 1000.0, 0.0, 6.5, 9000.0)
+    r = col.report()
+    band = icing.icing_band(col, None, r["cloud_base_msl_m"], None,
+                            r["parcel_freezing_level_msl_m"])
+    assert band == (pytest.approx(800.0 / 6.5, abs=1e-6), None, "air")
+    assert band == (r["icing_band_bottom_msl_m"], None, r["icing_band_basis"])
+
+
 def test_a_point_at_exactly_0_c_does_not_split_an_icing_layer():
     # Invented: -5 degC at the field, a point at exactly 0 degC at 1500 m, colder above;
     # the air touches 0 degC there and turns back: one cloud layer (spread 1 K up to

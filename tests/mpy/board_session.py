@@ -44,6 +44,18 @@ def held():
     return gc.mem_alloc()
 
 
+def numbered_lines(f):
+    """(number, line without its newline) of each line of file f, read one at a time
+    (the script holds one line, not the file)."""
+    n = 0
+    while True:
+        line = f.readline()
+        if not line:
+            return
+        n += 1
+        yield n, line.rstrip("\n")
+
+
 def main(args):
     if args:
         sys.path.insert(0, args[0])
@@ -66,12 +78,7 @@ def main(args):
         s.collect = collect
         print("import_heap_bytes=%d" % (held() - base))
     worst = worst_line = n = bad = 0
-    while True:
-        line = f.readline()
-        if not line:
-            break
-        n += 1
-        line = line.rstrip("\n")
+    for n, line in numbered_lines(f):
         if account:
             h = held() - base
             gc.disable()

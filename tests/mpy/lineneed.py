@@ -18,12 +18,6 @@ import sys
 _MAX_KIB = 512
 
 
-def held():
-    gc.collect()
-    gc.collect()
-    return gc.mem_alloc()
-
-
 def ballast(free_bytes):
     """Allocations that leave about free_bytes of the heap free."""
     gc.collect()
@@ -70,18 +64,13 @@ def main(args):
         sys.path.insert(0, args[0])
     here = __file__.rsplit("/", 1)[0] if "/" in __file__ else "."
     sys.path.insert(0, here)
-    from board_session import line_failed
+    from board_session import line_failed, held, numbered_lines
     f = open(args[1] if len(args) > 1 else here + "/board_session.txt")
     base = held()
     from lapsecalc.shell import Session
     s = Session()
-    worst = n = 0
-    while True:
-        line = f.readline()
-        if not line:
-            break
-        n += 1
-        line = line.rstrip("\n")
+    worst = 0
+    for n, line in numbered_lines(f):
         if not line.strip() or line[0] == "#":
             s.feed(line)
             continue

@@ -46,18 +46,20 @@ def icing_band(col, levels, lcl_msl_m, cloud_top_msl_m, parcel_z0_msl_m):
     higher) and its top is unknown (None): basis "air". None when there is no cloud
     base in the column, the air never reaches 0 degC, or the cloud base is above the
     air's -20 degC level."""
+    zs = col.crossings(0.0)
+    z20s = col.crossings(ICING_COLDEST_C)
     return _icing_band(col, levels, lcl_msl_m, cloud_top_msl_m, parcel_z0_msl_m,
-                       col.level(0.0), col.level(ICING_COLDEST_C))
+                       col.level(0.0, zs), col.level(ICING_COLDEST_C, z20s), None, zs + z20s)
 
 
-def _icing_air(col, a, b):
+def _icing_air(col, a, b, crossings):
     # [[bottom, top], ...] of [a, b] where the air is at 0 to -20 degC, lowest first:
-    # cut at the 0 and -20 degC crossings (linear layers: one side between two cuts).
+    # cut at the 0 and -20 degC crossings (given in one list; linear layers: one side
+    # between two cuts).
     marks = [a, b]
-    for t in (0.0, ICING_COLDEST_C):
-        for z in col.crossings(t):
-            if a < z < b:
-                marks.append(z)
+    for z in crossings:
+        if a < z < b:
+            marks.append(z)
     marks.sort()
     out = []
     for i in range(len(marks) - 1):
@@ -73,22 +75,26 @@ def _icing_air(col, a, b):
     return out
 
 
-def icing_layers(col, clouds=None):
+def icing_layers(col, clouds=None, crossings=None):
     """[[bottom_m, top_m], ...] MSL, lowest first: the parts of the cloud layers from
     dewpoints aloft (clouds, lapsecalc.aloft.cloud_layers; found when not given) where
-    the air is at 0 to -20 degC (common practice); None without dewpoints aloft."""
+    the air is at 0 to -20 degC (common practice); None without dewpoints aloft.
+    crossings: the column's crossings(0) and crossings(-20) in one list (found when
+    not given)."""
     if clouds is None:
         if col.dews is None:
             return None
         from lapsecalc.aloft import cloud_layers
         clouds = cloud_layers(col)
+    if crossings is None:
+        crossings = col.crossings(0.0) + col.crossings(ICING_COLDEST_C)
     out = []
     for a, b in clouds:
-        out.extend(_icing_air(col, a, b))
+        out.extend(_icing_air(col, a, b, crossings))
     return out
 
 
-def _layers_band(col, pieces, convective):
+def _layers_band(col, pieces, convective, crossings):
     # The band from icing_layers pieces, the air above the highest dewpoint and the
     # convective band (or None): (bottom, top or None, "layers") or None.
     bottom = top = None
@@ -99,7 +105,7 @@ def _layers_band(col, pieces, convective):
         if top is None or top < convective[1]:
             top = convective[1]
     z_dew = col.dews[-1][0]
-    above = _icing_air(col, z_dew, col.top_m) if z_dew < col.top_m else []
+    above = _icing_air(col, z_dew, col.top_m, crossings) if z_dew < col.top_m else []
     if above:
         # Humidity not given there: cloud can exist, top unknown.
         bottom, top = _lower(bottom, above[0][0]), None
@@ -109,9 +115,9 @@ def _layers_band(col, pieces, convective):
 
 
 def _icing_band(col, levels, lcl_msl_m, cloud_top_msl_m, parcel_z0_msl_m, z0a, z20a,
-                pieces=None):
-    # icing_band with the air's 0 and -20 degC levels (col.level) given; pieces:
-    # icing_layers(col), when at hand.
+                pieces, crossings):
+    # icing_band with the air's 0 and -20 degC levels (col.level) and crossings (as
+    # icing_layers takes them) given; pieces: icing_layers(col), when at hand.
     convective = None
     if lcl_msl_m is not None and z0a is not None and (z20a is None or lcl_msl_m < z20a) \
             and cloud_top_msl_m is not None:
@@ -123,7 +129,9 @@ def _icing_band(col, levels, lcl_msl_m, cloud_top_msl_m, parcel_z0_msl_m, z0a, z
         if bottom < top:
             convective = (bottom, top, "parcel")
     if col.dews is not None:
-        return _layers_band(col, icing_layers(col) if pieces is None else pieces, convective)
+        if pieces is None:
+            pieces = icing_layers(col, None, crossings)
+        return _layers_band(col, pieces, convective, crossings)
     if convective is not None:
         return convective
     if lcl_msl_m is None or z0a is None or (z20a is not None and lcl_msl_m >= z20a):
@@ -142,9 +150,13 @@ def add_keys(col, levels, r):
     if r["lfc_msl_m"] is not None:
         cloud_top = col.top_m if r["el_above_top"] else r["el_msl_m"]
     clouds = r.get("cloud_layers_msl_m")
-    pieces = None if clouds is None else icing_layers(col, clouds)
+    crossings = pieces = None
+    if clouds is not None:
+        # Found once for every cloud layer (and the air above the highest dewpoint).
+        crossings = col.crossings(0.0) + col.crossings(ICING_COLDEST_C)
+        pieces = icing_layers(col, clouds, crossings)
     band = _icing_band(col, levels, lcl, cloud_top, r["parcel_freezing_level_msl_m"],
-                       r["freezing_level_msl_m"], r["minus20_level_msl_m"], pieces)
+                       r["freezing_level_msl_m"], r["minus20_level_msl_m"], pieces, crossings)
     r["icing_layers_msl_m"] = pieces or None
     r["icing_band_bottom_msl_m"] = None if band is None else band[0]
     r["icing_band_top_msl_m"] = None if band is None else band[1]

@@ -12,7 +12,7 @@ level)."""
 # An extra on a board, loaded by lapsecalc.hazards for one report and dropped after it.
 from lapsecalc.constants import G0, T0_K, EPS
 from lapsecalc.standard import ratio_ln, layer_pressure
-from lapsecalc.moisture import _es_water, _AE_A
+from lapsecalc.moisture import _es_water, _AE_A, _mixing_ratio_kg_kg
 from lapsecalc.stability import _illinois
 
 # Bourgouin (2000) thresholds, J/kg (from memory): a warm layer aloft with less
@@ -145,7 +145,9 @@ def _wb_excess(col, z):
     # while the wet bulb there is above 0 degC (the balance grows with the wet bulb).
     # The air's vapour as Column.vapour_pressure_at: with dewpoints aloft from them
     # (lapsecalc.aloft), else from the surface mixing ratio, capped at saturation,
-    # computed here with one layer lookup (a board allocates per float).
+    # computed here with one layer lookup (a board allocates per float; calling it
+    # would look the layer up twice more per Illinois step). The first term is
+    # wet_bulb's balance at 0 degC, written out (its saturation pressure is _AE_A).
     for z0, z1, t0, grad, p0 in col.layers:
         if z <= z1:
             break
@@ -160,7 +162,7 @@ def _wb_excess(col, z):
     else:
         e = col.vapour_pressure_at(z)
     return (2501.0 * EPS * _AE_A / (p - _AE_A) - 1.006 * t) / (2501.0 + 1.86 * t) \
-        - EPS * e / (p - e)
+        - _mixing_ratio_kg_kg(e, p)
 
 
 def wet_bulb_zero(col):

@@ -197,6 +197,23 @@ def test_z_at_edges():
     assert col.z_at(col.p_at(3000.0) * (1.0 - 1e-11)) == 3000.0
 
 
+def test_warm_layer_over_a_surface_below_zero():
+    # An invented inversion from -3 degC at the surface to +7 degC 2 km up: warm air
+    # over freezing air (the layer's top, not its foot, is above 0 degC).
+    col = Column(-3.0, -6.0, 1000.0, 0.0, -5.0, top_m=2000.0)
+    assert col.t_at(2000.0) == pytest.approx(7.0)
+    assert col.report()["warm_layer_aloft"] is True
+
+
+def test_a_crossing_on_a_layer_boundary_is_one_level_after_another_crossing():
+    # 0 degC is passed at 500 m, then reached again exactly where an inversion (to
+    # 2000 m) meets the layer above it: both layers find 2000 m, said once (invented).
+    col = Column(10.0, 0.0, 1000.0, 0.0, [(1000.0, 20.0), (2000.0, -10.0), (None, 6.5)],
+                 top_m=5000.0)
+    assert col.t_at(2000.0) == pytest.approx(0.0, abs=1e-9)
+    assert col.crossings(0.0) == pytest.approx([500.0, 2000.0])
+
+
 def test_warm_layer_over_a_surface_at_zero():
     # Air warming upward from a surface at exactly 0 degC: warm air over air at 0 degC.
     assert Column(0.0, -2.0, 1000.0, 0.0, -5.0, top_m=2000.0).report()["warm_layer_aloft"]

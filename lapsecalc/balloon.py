@@ -252,15 +252,19 @@ def _narrow(f, lo, hi, f_lo, f_hi):
 
 def _air(col, z_m):
     # (p_hpa, t_c, e_hpa, rho_kg_m3) of the column at z_m, each computed once; the
-    # vapour pressure by the column's rule (Column.vapour_pressure_at: the surface
-    # mixing ratio, capped at saturation) without computing p and T twice (boards).
+    # vapour pressure by the column's rule (Column.vapour_pressure_at): with dewpoints
+    # aloft, from them; else the surface mixing ratio, capped at saturation, without
+    # computing p and T twice (boards).
     p = col.p_at(z_m)
     t = col.t_at(z_m)
-    r = col.r_kg_kg
-    e = r * p / (EPS + r)
-    es = _es_water(t)
-    if e > es:
-        e = es
+    if col.dews is not None:
+        e = col.vapour_pressure_at(z_m)
+    else:
+        r = col.r_kg_kg
+        e = r * p / (EPS + r)
+        es = _es_water(t)
+        if e > es:
+            e = es
     return p, t, e, _density(p, t, e)
 
 

@@ -135,3 +135,22 @@ def test_the_working_note_gives_the_margin_under_the_maximum():
     assert "The 120 degC maximum" in note
     note = hot_air_report(col, 2800.0, 500.0, 120.0)["notes"][0]
     assert "100 degC (the default, 20 K under the maximum)" in note
+
+
+def test_balloon_air_takes_the_humidity_aloft_the_column_has():
+    # With dewpoints aloft (an invented moist layer at 1500 m over a dry field) the
+    # balloon's ambient air is the column's own: the same density as Column.density_at,
+    # which differs from the surface mixing ratio carried up.
+    moist = Column(25.0, 2.0, 1000.0, 200.0, 6.5, top_m=8000.0,
+                   aloft=[(1500.0, 16.0, 15.0), (3000.0, 6.0, 0.0)])
+    for z in (200.0, 1000.0, 1500.0, 2200.0, 5000.0):
+        rep = hot_air_report(moist, 2800.0, 450.0, 120.0, 100.0, z)
+        assert rep["ambient_density_kg_m3"] == pytest.approx(moist.density_at(z), rel=1e-12)
+        rep = gas_report(moist, "helium", 1.0, 6.0, 10.0, 4.0, z)
+        assert rep["ambient_density_kg_m3"] == pytest.approx(moist.density_at(z), rel=1e-12)
+    # At 1500 m the air holds much more vapour than the dry field's mixing ratio
+    # carried up (EPS 0.622, common practice).
+    r_surface = moist.r_kg_kg
+    p = moist.p_at(1500.0)
+    e_surface = r_surface * p / (0.622 + r_surface)
+    assert moist.vapour_pressure_at(1500.0) > 2.0 * e_surface

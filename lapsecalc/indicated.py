@@ -37,12 +37,18 @@ def _reading(col, r, ind, z, pa_qnh_m):
     if z == col.elev_m:
         return col.elev_m
     for k in ind:
-        if r[k] == z:
+        if r[k] == z and ind[k] is not None:
             return ind[k]
     try:
         return indicated_altitude_at(col, z, pa_qnh_m)
     except ValueError:
         return None
+
+
+def report_keys():
+    """The keys add_to_report adds, in its order (a list made afresh: see
+    column.report_keys)."""
+    return ["indicated_altitude_m", "isa_deviation_c", "density_altitude_dry_m"]
 
 
 def add_to_report(col, r):
@@ -53,15 +59,12 @@ def add_to_report(col, r):
     pressure and temperature, which is what flight-manual charts and hand calculators
     give (density_altitude_m counts the humidity: humid air is lighter, so it is higher)."""
     pa_qnh = pressure_altitude(col.qnh_hpa)
-    ind = {}
-    for k in r:
-        if not k.endswith("_msl_m"):
-            continue
-        z = r[k]
-        if z is None:
-            ind[k] = None
-        elif isinstance(z, float) or isinstance(z, int) and z is not True and z is not False:
-            ind[k] = _reading(col, r, ind, z, pa_qnh)
+    # Made with room for every key at the start (see column.report_keys).
+    ind = dict.fromkeys([k for k in r if k.endswith("_msl_m") and (r[k] is None or isinstance(
+        r[k], float) or isinstance(r[k], int) and r[k] is not True and r[k] is not False)])
+    for k in ind:
+        if r[k] is not None:
+            ind[k] = _reading(col, r, ind, r[k], pa_qnh)
     r["indicated_altitude_m"] = ind
     pa = r.get("pressure_altitude_m")
     r["isa_deviation_c"] = col.t_c - isa_t_c(pressure_altitude(col.p_hpa) if pa is None else pa)

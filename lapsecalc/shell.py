@@ -339,6 +339,9 @@ class Session:
             self._col = self._levels = None
             drop_modules(PHYSICS_MODULES)
             self.collect()
+            if self._rep is not None:
+                settle(self._rep)  # into the holes the physics code left
+                self.collect()
 
     def report(self, word="report"):
         """The current Column.report() (computed once per state)."""

@@ -174,3 +174,78 @@ def test_a_refused_column_lets_go_of_the_building_code_too(board):
     with pytest.raises(ValueError, match="top_m"):
         Column.from_qnh(27.0, 13.0, 1016.0, 411.48, 6.5, 100.0)
     assert not _loaded("profile")
+
+
+def _same_values_new_objects(old, new):
+    # Equal values; every float, list and dict a new object; strings and None kept.
+    assert new == old
+    if isinstance(old, (float, list, dict)):
+        assert new is not old
+    if isinstance(old, list):
+        for a, b in zip(old, new):
+            _same_values_new_objects(a, b)
+    elif isinstance(old, dict):
+        assert list(new) == list(old)
+        for k in old:
+            _same_values_new_objects(old[k], new[k])
+    elif not isinstance(old, float):
+        assert new is old
+
+
+def test_settle_makes_a_kept_report_afresh_on_a_board(board):
+    # state.settle: each float, list and dict of a kept report made again (it lands in
+    # the lowest free space of a board's heap), values and key order unchanged.
+    from lapsecalc.state import settle
+    r = Column.from_qnh(*DEMO).report(2.0)
+    before = dict(r)
+    settle(r)
+    assert list(r) == list(before)
+    for k in before:
+        _same_values_new_objects(before[k], r[k])
+    assert isinstance(r["stability_layers"], list) and isinstance(r["indicated_altitude_m"], dict)
+
+
+def test_settle_moves_nothing_on_cpython_or_with_the_collector_off(board, monkeypatch):
+    import gc
+    from lapsecalc.state import settle
+    r = Column.from_qnh(*DEMO).report(2.0)
+    before = dict(r)
+    gc.disable()
+    try:
+        settle(r)  # an allocation count: no old place would be freed
+    finally:
+        gc.enable()
+    assert all(r[k] is before[k] for k in before)
+    monkeypatch.setattr(sys, "implementation", types.SimpleNamespace(name="cpython"))
+    settle(r)
+    assert all(r[k] is before[k] for k in before)
+
+
+def test_indicated_keys_have_room_in_the_report_from_the_start():
+    # Column.report() makes its dict from the key lists (a dict grown late needs a new
+    # table in one piece); every key it sets is in them, in its order.
+    from lapsecalc import hazards, indicated
+    r = Column.from_qnh(*DEMO).report(2.0)
+    assert list(r) == report_keys() + hazards.report_keys() + indicated.report_keys()
+    assert list(Column.from_qnh(*DEMO).report(2.0, False)) == report_keys() + \
+        hazards.report_keys()
+
+
+def test_an_indicated_reading_is_shared_only_by_equal_heights():
+    # indicated._reading reuses the reading of an equal height made before, never the
+    # empty place of one not yet read (the dict is made with every key first).
+    from lapsecalc.indicated import indicated_altitude_at
+    col = Column.from_qnh(*DEMO)
+    r = col.report(2.0)
+    ind = r["indicated_altitude_m"]
+    for k in ind:
+        if r[k] is None:
+            assert ind[k] is None
+        elif r[k] == col.elev_m:
+            assert ind[k] == col.elev_m
+        else:
+            assert ind[k] == pytest.approx(indicated_altitude_at(col, r[k]), abs=1e-9)
+    # In this column the freezing level is also the icing band's bottom: one reading.
+    same = [k for k in ind if r[k] == r["freezing_level_msl_m"]]
+    assert len(same) >= 2 and ind[same[0]] is not None
+    assert all(ind[k] == ind[same[0]] for k in same)

@@ -39,6 +39,7 @@ package(
         "queries.py",
         "retell.py",
         "settings.py",
+        "balloonsettings.py",
         "shell.py",
         "state.py",
         "thermals.py",

@@ -225,59 +225,6 @@ def _s_metar(s, new, args):
     return ", ".join(said)
 
 
-def _s_amount(key, kind, lo, hi, unit, name):
-    # A setter of a balloon amount (volume or mass) in lo..hi.
-    def setter(s, new, args):
-        new[key] = value(args[0], kind, unit, lo, hi)
-        return "%s %s" % (name, echo(s, args[0], kind, unit, new[key]))
-    return setter
-
-
-def _s_tballoon(key, name, lo):
-    def setter(s, new, args):
-        new[key] = value(args[0], "t", s.disp["t"], lo, _ENVELOPE_T_MAX_C)
-        return "%s %s" % (name, echo(s, args[0], "t", s.disp["t"], new[key]))
-    return setter
-
-
-def _s_gas(s, new, args):
-    g = {"he": "helium", "helium": "helium", "h2": "hydrogen", "hydrogen": "hydrogen",
-         "none": None, "hot": None}.get(args[0].lower(), False)
-    if g is False:
-        raise ValueError("'%s' not accepted; accepted helium (he), hydrogen (h2), none (hot"
-                         " air)" % shown(args[0]))
-    new.pop("gas", None)
-    if g:
-        new["gas"] = g
-    return "gas " + (g or "none (hot air)")
-
-
-def _s_pure(s, new, args):
-    new["purity"] = value(args[0], "rh", "%", 50.0, 100.0) / 100.0
-    return "purity " + said(args[0], "%")
-
-
-# As lapsecalc.balloon.MARGIN_MAX_K, SUPERHEAT_MAX_K, MAX_ENVELOPE_T_MIN_C (the least
-# maximum envelope temperature a maker may state) and ENVELOPE_T_MAX_C (not imported
-# here: the balloon module loads only for the balloon words; tests/test_settings_limits.py
-# holds them equal).
-_MARGIN_MAX_K = 60.0
-_SUPERHEAT_MAX_K = 50.0
-_TMAX_MIN_C = 50.0
-_ENVELOPE_T_MAX_C = 150.0
-
-
-def _s_margin(s, new, args):
-    # A temperature difference, like excess: bare in K, F typed as F.
-    new["margin_k"] = value(args[0], "dt", "k", 0.0, _MARGIN_MAX_K)
-    return "margin %s below tmax" % echo(s, args[0], "dt", "k", new["margin_k"])
-
-
-def _s_superheat(s, new, args):
-    new["superheat_k"] = value(args[0], "dt", "k", 0.0, _SUPERHEAT_MAX_K)
-    return "superheat " + echo(s, args[0], "dt", "k", new["superheat_k"])
-
-
 def _s_aloft(s, new, args):
     from lapsecalc.aloftwords import set_aloft
     return set_aloft(s, new, args, parse_level)
@@ -328,7 +275,9 @@ def whole(s, new):
 
 # What a setting word takes: one value, a run of numbers, or the rest of the line.
 ONE, NUMBERS, REST = 1, 2, 3
-# word -> (setter, what it takes, example)
+# word -> (setter, what it takes, example); the balloon's setters are in
+# lapsecalc.balloonsettings (the name of that module here: the shell loads it only for
+# a line that sets one).
 SETTINGS = {
     "temp": (_s_temp, ONE, "temp 27C"), "dew": (_s_dew, ONE, "dew 13C"),
     "rh": (_s_rh, ONE, "rh 45%"), "elev": (_s_elev, ONE, "elev 1350ft"),
@@ -336,12 +285,18 @@ SETTINGS = {
     "elr": (_s_elr, NUMBERS, "elr 6.5"), "top": (_s_top, ONE, "top 30000ft"),
     "excess": (_s_excess, ONE, "excess 2C"),
     "metar": (_s_metar, REST, "metar ... 24/M02 Q1016"),
-    "env": (_s_amount("env_m3", "v", 0.1, 2.0e6, "m3", "envelope"), ONE, "env 2800m3"),
-    "wt": (_s_amount("wt_kg", "w", 0.01, 20000.0, "kg", "weight"), ONE, "wt 450kg"),
-    "fill": (_s_amount("fill_m3", "v", 0.1, 1.0e5, "m3", "fill"), ONE, "fill 12m3"),
-    "tmax": (_s_tballoon("tmax_c", "tmax", _TMAX_MIN_C), ONE, "tmax 120C"),
-    "tenv": (_s_tballoon("tenv_c", "tenv", T_MIN_C), ONE, "tenv 95C"),
-    "gas": (_s_gas, ONE, "gas helium"), "pure": (_s_pure, ONE, "pure 98%"),
-    "margin": (_s_margin, ONE, "margin 20K"), "superheat": (_s_superheat, ONE, "superheat 12K"),
+    "env": ("balloonsettings", ONE, "env 2800m3"), "wt": ("balloonsettings", ONE, "wt 450kg"),
+    "fill": ("balloonsettings", ONE, "fill 12m3"), "tmax": ("balloonsettings", ONE, "tmax 120C"),
+    "tenv": ("balloonsettings", ONE, "tenv 95C"), "gas": ("balloonsettings", ONE, "gas helium"),
+    "pure": ("balloonsettings", ONE, "pure 98%"), "margin": ("balloonsettings", ONE, "margin 20K"),
+    "superheat": ("balloonsettings", ONE, "superheat 12K"),
     "aloft": (_s_aloft, REST, "aloft 6000ft 9C/2C"), "trop": (_s_trop, ONE, "trop 36000ft"),
 }
+
+
+def setter(w):
+    """The setter of setting word w (loading lapsecalc.balloonsettings for a balloon's)."""
+    fn = SETTINGS[w][0]
+    if isinstance(fn, str):
+        fn = __import__("lapsecalc." + fn, None, None, ["SETTERS"]).SETTERS[w]
+    return fn

@@ -43,10 +43,10 @@ WORD_MODULES = PHYSICS_MODULES + (
     "limits", "settings", "commands", "units", "output", "machine", "groups", "helptext", "chart", "loadtable",
     "balloontext", "metar", "demo", "layout", "showword",
     "balloonwords", "atwords", "hazardtext", "altitext", "aloftwords",
-    "retell", "chartsvg", "altiwords")
+    "retell", "chartsvg", "altiwords", "balloonsettings")
 # The setting words' modules: let go of on a board once a line's settings are read,
 # before the new state's Column is built.
-SETTING_MODULES = ("settings", "aloftwords", "metar", "typed", "heights")
+SETTING_MODULES = ("settings", "balloonsettings", "aloftwords", "metar", "typed", "heights")
 # The words whose report carries the altimetry keys (isa_deviation_c,
 # density_altitude_dry_m, indicated_altitude_m: Column.report(altimetry=True)).
 ALTIMETRY_WORDS = ("report", "obs", "da", "levels")
@@ -234,7 +234,7 @@ class Session:
 
     def _settings(self, words):
         from lapsecalc.output import ack
-        from lapsecalc.settings import SETTINGS, ONE, NUMBERS, whole
+        from lapsecalc.settings import SETTINGS, ONE, NUMBERS, whole, setter
         new = dict(self.state)
         said = []
         set_words = []
@@ -248,6 +248,7 @@ class Session:
                                      " own line" % w)
                 raise ValueError(_unknown(words[i], True, False, words[i - 1] if i else None))
             fn, takes, example = SETTINGS[w]
+            fn = setter(w)
             j = i + 2 if takes == ONE else len(words)
             if takes == NUMBERS:
                 j = i + 1
@@ -268,7 +269,7 @@ class Session:
                 # On a board the setting words' code is let go of before the points
                 # aloft are checked and the new state's Column is built (commit), as
                 # a query lets go of the physics before its text.
-                fn = whole = SETTINGS = None
+                fn = whole = SETTINGS = setter = None
                 drop_modules(SETTING_MODULES)
                 self.collect()
             if rest is not None:  # ("aloft", late): settings.whole

@@ -127,9 +127,10 @@ def test_unit_hints_at_their_edges():
 
 
 def test_setting_ranges_are_the_balloon_modules():
-    # settings keeps copies of the balloon module's limits (it must not import it).
-    from lapsecalc import balloon, settings
-    assert settings._TMAX_MIN_C == balloon.MAX_ENVELOPE_T_MIN_C
-    assert settings._ENVELOPE_T_MAX_C == balloon.ENVELOPE_T_MAX_C == balloon.MAX_ENVELOPE_T_MAX_C
-    assert settings._MARGIN_MAX_K == balloon.MARGIN_MAX_K
-    assert settings._SUPERHEAT_MAX_K == balloon.SUPERHEAT_MAX_K
+    # balloonsettings keeps copies of the balloon module's limits (it must not import it).
+    from lapsecalc import balloon, balloonsettings
+    assert balloonsettings._TMAX_MIN_C == balloon.MAX_ENVELOPE_T_MIN_C
+    assert balloonsettings._ENVELOPE_T_MAX_C == balloon.ENVELOPE_T_MAX_C == \
+        balloon.MAX_ENVELOPE_T_MAX_C
+    assert balloonsettings._MARGIN_MAX_K == balloon.MARGIN_MAX_K
+    assert balloonsettings._SUPERHEAT_MAX_K == balloon.SUPERHEAT_MAX_K

@@ -299,3 +299,29 @@ def test_elr_takes_the_run_of_numbers_after_it():
     assert s.state["excess_c"] == 2.0 and len(s.state["lapse"]) == 3
     assert s.feed("elr excess 2C") == ["error: elr needs a rate, e.g. elr 6.5 or",
                                        "  elr -5@300m 8@2km 6.5"]
+
+
+def test_a_balloon_setting_loads_its_own_module_and_an_air_one_does_not():
+    # The balloon's setters live in lapsecalc.balloonsettings, which SETTINGS names:
+    # a line that sets the air never loads it (a board's heap), one that sets a
+    # balloon does, and settings.setter finds each word's setter.
+    import sys
+    import lapsecalc
+    from lapsecalc import settings
+    sys.modules.pop("lapsecalc.balloonsettings", None)
+    lapsecalc.__dict__.pop("balloonsettings", None)
+    s = Session()
+    assert feed(s, "temp 20C dew 5C elev 300m") == [
+        "ok: temp 20 C, dew 5 C, elev 300 m (984 ft) MSL"]
+    assert "lapsecalc.balloonsettings" not in sys.modules
+    assert feed(s, "env 2800m3 tmax 120C") == ["ok: envelope 2800 m3, tmax 120 C"]
+    assert s.state["env_m3"] == 2800.0 and s.state["tmax_c"] == 120.0
+    from lapsecalc import balloonsettings
+    for w in SETTINGS:
+        f = settings.setter(w)
+        if w in balloonsettings.SETTERS:
+            assert SETTINGS[w][0] == "balloonsettings" and f is balloonsettings.SETTERS[w]
+        else:
+            assert f is SETTINGS[w][0] and callable(f)
+    assert sorted(balloonsettings.SETTERS) == sorted(
+        w for w in SETTINGS if isinstance(SETTINGS[w][0], str))

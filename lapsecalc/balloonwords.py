@@ -53,19 +53,20 @@ def _c_balloon(s, w, args):
 
 def _hot_report(s, w, args):
     # (Its own function: the column and the balloon code are let go of before the text
-    # is laid out.)
+    # is laid out.) Its functions imported by name: `from lapsecalc import balloon` (the
+    # package's __getattr__) left a reference the board's collector still found during
+    # the text stage, holding the balloon and column code (about 19 KiB, Unix port).
     st = s.state
     col = s.column(w)
     from lapsecalc.heights import height
     z = height(s, w, args, col)
     height = None  # no name of it kept: release() lets go of its code
     s.read_done()
-    from lapsecalc import balloon
-    _hot_needs(s, w, col, z, balloon.working_envelope_t(
-        st["tmax_c"], st.get("tenv_c"), st.get("margin_k", balloon.DEFAULT_MARGIN_K)))
-    return balloon.hot_air_report(col, st["env_m3"], st["wt_kg"], st["tmax_c"],
-                                  st.get("tenv_c"), z,
-                                  st.get("margin_k", balloon.DEFAULT_MARGIN_K))
+    from lapsecalc.balloon import working_envelope_t, hot_air_report, DEFAULT_MARGIN_K
+    _hot_needs(s, w, col, z, working_envelope_t(
+        st["tmax_c"], st.get("tenv_c"), st.get("margin_k", DEFAULT_MARGIN_K)))
+    return hot_air_report(col, st["env_m3"], st["wt_kg"], st["tmax_c"], st.get("tenv_c"), z,
+                          st.get("margin_k", DEFAULT_MARGIN_K))
 
 
 def _c_sunset(s, w, args):

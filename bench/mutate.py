@@ -87,7 +87,7 @@ DEFAULT_TESTS = {
                    "test_shell.py::test_trop_sets_and_turns_off_the_isothermal_part",
                    "test_shell.py::test_isa_temperatures_as_points_give_the_isa_pressures",
                    "test_chart.py::test_points_aloft_and_tropopause_are_marked"],
-    "balloontext": ["test_shell_values.py", "test_shell.py"],
+    "balloontext": ["test_balloon_text.py", "test_shell_values.py", "test_shell.py"],
     "heights": ["test_heights.py", "test_shell_altimetry.py", "test_shell_values.py",
                 "test_shell.py"],
     "machine": ["test_heights.py", "test_output.py", "test_shell.py"],

@@ -1,11 +1,47 @@
-"""Text labels of the balloon words (balloon, sunset), loaded only by those words (runs
-on MicroPython)."""
+"""The balloon reports' keys in the order shown and the text of the balloon words
+(balloon, sunset), loaded only by those words (runs on MicroPython)."""
 # Sources: none; labels and units only. Every line fits a 40-column screen: a
-#   13-column label, then the value (lapsecalc.layout.text_lines lays it out).
+#   13-column label, then the value, in the forms of lapsecalc.layout.text_lines
+#   (tests/test_balloon_text.py holds the two to the same lines). This module lays its
+#   lines out without loading lapsecalc.layout and lapsecalc.groups: on a board the
+#   balloon line's text stage then holds about 13 KiB less (Unix port, measured).
 
-# ";key:label:kind;" entries, as lapsecalc.layout.LABELS (read by layout.find_label:
-# one string, where a dict of tuples cost a board about 7 KiB of heap), for the keys
-# of lapsecalc.balloon's reports.
+# balloon report kind -> its keys in the order shown, one string each (_GROUPS as in
+# lapsecalc.groups). "hot": working-temperature figures first, the absolute limit (at
+# the maximum) after; "sunset": the superheat and the ballast it costs when it goes.
+_GROUPS = {
+    "hot": ("z_msl_m ambient_t_c ambient_p_hpa ambient_density_kg_m3 volume_m3 "
+            "weight_kg envelope_t_c envelope_t_set margin_k lift_per_m3_kg "
+            "gross_lift_kg free_lift_kg payload_kg envelope_t_needed_c "
+            "envelope_t_needed_over_working ceiling_msl_m ceiling_p_hpa "
+            "ceiling_above_top gross_lift_per_1000ft_kg "
+            "envelope_t_needed_per_1000ft_c max_envelope_t_c limit_gross_lift_kg "
+            "limit_payload_kg envelope_t_needed_over_limit limit_ceiling_msl_m "
+            "limit_ceiling_p_hpa limit_ceiling_above_top oxygen_note warnings notes"),
+    "gas": ("z_msl_m ambient_t_c ambient_p_hpa ambient_density_kg_m3 gas "
+            "gas_molar_mass_g_mol purity gas_volume_m3 envelope_m3 weight_kg "
+            "gas_density_kg_m3 lift_per_m3_kg gas_volume_at_z_m3 full_at_z "
+            "gross_lift_kg free_lift_kg full_msl_m full_p_hpa full_above_top "
+            "float_msl_m float_above_top ballast_to_hold_kg gross_lift_per_1000ft_kg "
+            "superheat_k gas_t_c superheat_lift_kg ballast_superheat_lost_kg "
+            "oxygen_note warnings notes"),
+    "sunset": ("z_msl_m ambient_t_c superheat_k gas_t_c gas_volume_at_z_m3 full_at_z "
+               "full_msl_m superheat_lift_kg ballast_superheat_lost_kg"),
+}
+
+
+def keys(word, r=None):
+    """The keys of balloon report word ("hot", "gas", "sunset"), a new list; with the
+    report r, then its other keys, sorted."""
+    out = _GROUPS[word].split()
+    if r is not None:
+        out += sorted(k for k in r if k not in out)
+    return out
+
+
+# ";key:label:kind;" entries, as lapsecalc.layout.LABELS (one string, where a dict of
+# tuples cost a board about 7 KiB of heap), for the keys of lapsecalc.balloon's
+# reports; their warnings and notes are said as the report's ("!" and "-" lines).
 LABELS = (";"
           "z_msl_m:height:z;"
           "ambient_t_c:air temp:t;"
@@ -60,3 +96,66 @@ HEADINGS = {
     "envelope_t_c": "-- working temp (mean envelope air)",
     "max_envelope_t_c": "-- absolute limit: never plan on it",
 }
+
+
+def text_lines(s, word, r, rest=True):
+    """The text lines of balloon report r (word "hot", "gas" or "sunset"; its other
+    keys after them unless rest is False) in session s's display units, after the
+    defaults in use."""
+    from lapsecalc.state import assumed
+    from lapsecalc.output import f_h, f_t, f_dt, f_p, wrap
+    from lapsecalc.units import m3_to_ft3, kg_to_lb
+    out = ["assumed " + n for n in assumed(s.state, True, s.disp["p"] == "inhg")]
+    for k in keys(word, r if rest else None):
+        if k in HEADINGS:
+            out.append(HEADINGS[k])
+        if k not in r:
+            continue
+        v = r[k]
+        if k == "warnings" or k == "notes":
+            for text in v:
+                out.extend(wrap(text, "! " if k == "warnings" else "- "))
+            continue
+        label, kind = k, "?"
+        i = LABELS.find(";" + k + ":")
+        if i >= 0:
+            i += len(k) + 2
+            j = LABELS.find(":", i)
+            label, kind = LABELS[i:j], LABELS[j + 1:LABELS.find(";", j)]
+        if kind == "say1":
+            continue  # said among the warnings
+        if isinstance(v, float) and -0.05 < v < 0.05 and kind in ("t", "dt", "kg"):
+            v = 0.0  # no "-0.0" in a one-decimal column
+        if v is None:
+            text = "   none in column" if kind == "z" else "   none"
+        elif kind == "z":
+            if s.disp.get("z") == "ind":  # indicated on QNH: the layout's reading
+                from lapsecalc.layout import level
+                text = level(s, v)
+            else:
+                text = f_h(s, v, False, " MSL")
+        elif kind == "t":
+            text = f_t(s, v)
+        elif kind == "dt":
+            text = f_dt(s, v)
+        elif kind == "p":
+            text = f_p(s, v)
+        elif kind == "b":
+            text = "    yes" if v else "     no"
+        elif kind == "s":
+            text = " " + str(v)
+        elif kind == "rho":
+            text = "%7.3f kg/m3" % v
+        elif kind == "gmol":
+            text = "%7.3f g/mol" % v
+        elif kind == "frac":
+            text = "%7.1f %%" % (100.0 * v)
+        elif kind == "m3":
+            text = ("%7.0f m3 %8.0f ft3" if v >= 100.0 else "%7.2f m3 %8.1f ft3") % (
+                v, m3_to_ft3(v))
+        elif kind == "kg":
+            text = "%7.1f kg %6.0f lb" % (v, kg_to_lb(v))
+        else:
+            text = ("%.6g" % v) if isinstance(v, float) else str(v)
+        out.append("%-13s%s" % (label, text))
+    return out

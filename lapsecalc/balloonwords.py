@@ -47,8 +47,20 @@ def _c_balloon(s, w, args):
     gas = st.get("gas")
     _balloon_needs(s, w, gas)
     if gas:
-        return emit(s, "gas", _gas_report(s, w, args, gas), True)
-    return emit(s, "hot", _hot_report(s, w, args), True)
+        return _out(s, "gas", _gas_report(s, w, args, gas))
+    return _out(s, "hot", _hot_report(s, w, args))
+
+
+def _out(s, word, r, rest=True):
+    # The lines of balloon report r (word: "hot", "gas" or "sunset") in session s's
+    # mode, once the physics is let go of; the text laid out by lapsecalc.balloontext
+    # without lapsecalc.layout (a board's text stage holds less).
+    s.release()
+    if s.mode != "text":
+        from lapsecalc.balloontext import keys
+        return emit(s, keys(word), r, True, None, rest)
+    from lapsecalc.balloontext import text_lines
+    return text_lines(s, word, r, rest)
 
 
 def _hot_report(s, w, args):
@@ -76,7 +88,7 @@ def _c_sunset(s, w, args):
                          " and superheat first")
     _balloon_needs(s, w, gas)
     r = _gas_report(s, w, args, gas)
-    out = emit(s, "sunset", r, True, None, False)
+    out = _out(s, "sunset", r, False)
     if s.mode == "text" and "superheat_k" not in s.state:
         out.append("superheat not set: 0 K (superheat 12K)")
     return out

@@ -1,7 +1,7 @@
 """The result keys each query word shows, in order, and the report's order (runs on
 MicroPython)."""
-# Sources: none; the keys are those of Column.report(), lapsecalc.balloon's reports
-#   and the at/iso results of lapsecalc.queries. A list, not a dict, keeps the order
+# Sources: none; the keys are those of Column.report() and the at/iso results of
+#   lapsecalc.queries (the balloon reports' keys: lapsecalc.balloontext). A list, not a dict, keeps the order
 #   on a board (its dicts have none).
 
 # query word (or result kind) -> its result keys, in the order shown, in one string
@@ -32,25 +32,6 @@ _GROUPS = {
            "at_p_hpa at_vapour_pressure_hpa at_air_density_kg_m3 "
            "at_density_altitude_m at_parcel_t_c"),
     "iso": "iso_t_c iso_level_msl_m iso_levels_msl_m",
-    # Working-temperature figures first, the absolute limit (at the maximum) after.
-    "hot": ("z_msl_m ambient_t_c ambient_p_hpa ambient_density_kg_m3 volume_m3 "
-            "weight_kg envelope_t_c envelope_t_set margin_k lift_per_m3_kg "
-            "gross_lift_kg free_lift_kg payload_kg envelope_t_needed_c "
-            "envelope_t_needed_over_working ceiling_msl_m ceiling_p_hpa "
-            "ceiling_above_top gross_lift_per_1000ft_kg "
-            "envelope_t_needed_per_1000ft_c max_envelope_t_c limit_gross_lift_kg "
-            "limit_payload_kg envelope_t_needed_over_limit limit_ceiling_msl_m "
-            "limit_ceiling_p_hpa limit_ceiling_above_top oxygen_note warnings notes"),
-    "gas": ("z_msl_m ambient_t_c ambient_p_hpa ambient_density_kg_m3 gas "
-            "gas_molar_mass_g_mol purity gas_volume_m3 envelope_m3 weight_kg "
-            "gas_density_kg_m3 lift_per_m3_kg gas_volume_at_z_m3 full_at_z "
-            "gross_lift_kg free_lift_kg full_msl_m full_p_hpa full_above_top "
-            "float_msl_m float_above_top ballast_to_hold_kg gross_lift_per_1000ft_kg "
-            "superheat_k gas_t_c superheat_lift_kg ballast_superheat_lost_kg "
-            "oxygen_note warnings notes"),
-    # The sunset word: the superheat and the ballast it costs when it goes.
-    "sunset": ("z_msl_m ambient_t_c superheat_k gas_t_c gas_volume_at_z_m3 full_at_z "
-               "full_msl_m superheat_lift_kg ballast_superheat_lost_kg"),
 }
 
 # The groups of the full report, in order (the text report's sections follow them).

@@ -19,8 +19,8 @@ from lapsecalc.state import assumed
 def emit(s, keys, values, balloon=False, word=None, rest=True, plus=()):
     """Lines of the result keys of values in session s's mode, after the notes of the
     defaults in use. keys: the keys, or the name of their group (lapsecalc.groups),
-    then with plus after them. A balloon report (text labels from
-    lapsecalc.balloontext) shows its keys not in keys too, unless rest is False.
+    then with plus after them. A balloon report (kv and json; its text is
+    lapsecalc.balloontext's) shows its keys not in keys too, unless rest is False.
     word: the query word whose text keys (layout.text_keys) the text mode shows."""
     s.release()  # the numbers are there: a board lets go of the physics first
     if isinstance(keys, str):
@@ -45,21 +45,15 @@ def emit(s, keys, values, balloon=False, word=None, rest=True, plus=()):
             # written; collecting first leaves it the largest free run of the heap.
             s.collect()
         return [s.json.dumps(obj)]
-    from lapsecalc.layout import text_lines, text_keys, warning_lines, find_label
+    from lapsecalc.layout import text_lines, text_keys, warning_lines
     if word is not None:
         keys = text_keys(word)
-    labels, heads = "", {}
-    if balloon:
-        from lapsecalc.balloontext import LABELS as labels, HEADINGS as heads
     out = ["assumed " + n for n in notes]
-    if not balloon and "warnings" in values:
+    if "warnings" in values:
         out.extend(warning_lines(s, values, keys))
     for k in keys:
-        if k in heads:
-            out.append(heads[k])
         if k in values:   # a board without the hazards module has no hazard keys
-            out.extend(text_lines(s, k, values[k], find_label(labels, k) if balloon else None,
-                                  values))
+            out.extend(text_lines(s, k, values[k], None, values))
     return out
 
 

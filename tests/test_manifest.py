@@ -142,8 +142,8 @@ INTERPRETER_LAYERS = (
     ("settings", "queries", "commands"),
     ("heights",),
     ("altiwords",),
-    ("altitext", "chartsvg"),
-    ("layout", "chart", "metar", "helptext", "loadtable", "balloontext"),
+    ("altitext", "chartsvg", "balloontext"),
+    ("layout", "chart", "metar", "helptext", "loadtable"),
     ("retell",),  # the library's sentences in the user's terms (layout says warnings)
     ("aloftwords",),
     ("balloon", "groups", "output", "machine", "state", "typed", "hazardtext"),

@@ -233,24 +233,24 @@ def _optional_cases(col, levels):
     except ImportError:
         pass
     try:
-        from lapsecalc import balloon
+        from lapsecalc import balloon, hotair, gasballoon
         rho = col.density_at(col.elev_m)
         out += [
-            ("balloon.molar_mass", balloon.molar_mass, ("helium",), {}),
-            ("balloon.hot_air_lift_per_m3", balloon.hot_air_lift_per_m3,
+            ("gasballoon.molar_mass", gasballoon.molar_mass, ("helium",), {}),
+            ("hotair.hot_air_lift_per_m3", hotair.hot_air_lift_per_m3,
              (rho, col.p_hpa, 100.0, 10.0), {}),
-            ("balloon.envelope_t_for_lift", balloon.envelope_t_for_lift,
+            ("hotair.envelope_t_for_lift", hotair.envelope_t_for_lift,
              (rho, col.t_c, 0.25), {}),
-            ("balloon.gas_density", balloon.gas_density, (col.p_hpa, col.t_c, "helium"), {}),
-            ("balloon.gas_lift_per_m3", balloon.gas_lift_per_m3,
+            ("gasballoon.gas_density", gasballoon.gas_density, (col.p_hpa, col.t_c, "helium"), {}),
+            ("gasballoon.gas_lift_per_m3", gasballoon.gas_lift_per_m3,
              (rho, col.p_hpa, col.t_c, "helium"), {}),
-            ("balloon.gas_volume_at", balloon.gas_volume_at,
+            ("gasballoon.gas_volume_at", gasballoon.gas_volume_at,
              (100.0, col.p_hpa, col.t_c, 700.0, 5.0), {}),
             ("balloon.first_drop", balloon.first_drop,
              (col, lambda z: 3000.0 - (z - col.elev_m), col.elev_m), {}),
-            ("balloon.hot_air_report", balloon.hot_air_report,
+            ("hotair.hot_air_report", hotair.hot_air_report,
              (col, 2500.0, 350.0, 120.0), {}),
-            ("balloon.gas_report", balloon.gas_report,
+            ("gasballoon.gas_report", gasballoon.gas_report,
              (col, "helium", 1.0, 100.0, 300.0, 40.0), {}),
         ]
     except ImportError:

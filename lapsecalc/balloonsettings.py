@@ -9,10 +9,10 @@ from lapsecalc.limits import T_MIN_C
 from lapsecalc.typed import shown, value, said
 from lapsecalc.settings import echo
 
-# As lapsecalc.balloon.MARGIN_MAX_K, SUPERHEAT_MAX_K, MAX_ENVELOPE_T_MIN_C (the least
-# maximum envelope temperature a maker may state) and ENVELOPE_T_MAX_C (not imported
-# here: the balloon module loads only for the balloon words; tests/test_settings_limits.py
-# holds them equal).
+# As lapsecalc.hotair.MARGIN_MAX_K, MAX_ENVELOPE_T_MIN_C (the least maximum envelope
+# temperature a maker may state), ENVELOPE_T_MAX_C and lapsecalc.gasballoon's
+# SUPERHEAT_MAX_K (not imported here: the balloon modules load only for the balloon
+# words; tests/test_settings_limits.py holds them equal).
 _MARGIN_MAX_K = 60.0
 _SUPERHEAT_MAX_K = 50.0
 _TMAX_MIN_C = 50.0

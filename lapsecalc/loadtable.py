@@ -1,7 +1,7 @@
 """The load table of a hot-air balloon: the greatest gross weight (and payload) over
 the field temperature and the height, in one air column shifted warmer or colder; and
 its 40-column text for the interpreter's loads word."""
-# Sources: the lift per m3 is lapsecalc.balloon's (Archimedes' principle with the ideal
+# Sources: the lift per m3 is lapsecalc.hotair's (Archimedes' principle with the ideal
 #   gas law, moist air through the virtual temperature); each field temperature gets
 #   its own Column (lapsecalc.column: hydrostatic per linear layer, humidity aloft the
 #   surface mixing ratio capped at saturation), so the table follows the same lapse
@@ -80,9 +80,9 @@ def load_table(col, volume_m3, envelope_t_c, max_envelope_t_c=None, empty_kg=Non
     payload_kg (gross less empty_kg, same shape; None without empty_kg), volume_m3,
     envelope_t_c, max_envelope_t_c, empty_kg, dewpoint_c, oxygen_note.
     """
-    from lapsecalc.balloon import (_hot_lift, working_envelope_t, oxygen_note,
-                                   HOT_VOLUME_MIN_M3, HOT_VOLUME_MAX_M3, HOT_WEIGHT_MIN_KG,
-                                   WEIGHT_MAX_KG, ENVELOPE_T_MAX_C)
+    from lapsecalc.balloon import oxygen_note, WEIGHT_MAX_KG
+    from lapsecalc.hotair import (_hot_lift, working_envelope_t, HOT_VOLUME_MIN_M3,
+                                  HOT_VOLUME_MAX_M3, HOT_WEIGHT_MIN_KG, ENVELOPE_T_MAX_C)
     v = check("volume_m3", volume_m3, HOT_VOLUME_MIN_M3, HOT_VOLUME_MAX_M3, "m3")
     if max_envelope_t_c is None:
         t_env = check("envelope_t_c", envelope_t_c, -90.0, ENVELOPE_T_MAX_C, "degC")
@@ -98,13 +98,16 @@ def load_table(col, volume_m3, envelope_t_c, max_envelope_t_c=None, empty_kg=Non
     if depth_m is None:
         depth_m = TABLE_DEPTH_M if empty is None else col.top_m - col.elev_m
     hs = _heights(col, heights_msl_m, step_m, depth_m)
-    gross = [[] for z in hs]
-    for t in temps:
+    # Rows made at their length (on a board a list grown item by item leaves holes
+    # between the columns' pieces).
+    n = len(temps)
+    gross = [[None] * n for z in hs]
+    for j in range(n):
         # One field temperature's column at a time (a board holds one, not six).
-        c = _field_column(col, t)
+        c = _field_column(col, temps[j])
         for i in range(len(hs)):
-            z = hs[i]
-            gross[i].append(None if c is None or z > c.top_m else v * _hot_lift(c, z, t_env))
+            if c is not None and hs[i] <= c.top_m:
+                gross[i][j] = v * _hot_lift(c, hs[i], t_env)
         c = None
     payload = None
     if empty is not None:

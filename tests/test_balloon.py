@@ -5,10 +5,10 @@ import pytest
 from hypothesis import assume, given, strategies as st
 
 from lapsecalc.column import Column
-from lapsecalc.balloon import (hot_air_lift_per_m3, envelope_t_for_lift, gas_density,
-                               gas_lift_per_m3, gas_volume_at, molar_mass, hot_air_report,
-                               gas_report, working_envelope_t, superheat_loss_kg,
-                               DEFAULT_MARGIN_K)
+from lapsecalc.hotair import (hot_air_lift_per_m3, envelope_t_for_lift, hot_air_report,
+                              working_envelope_t, DEFAULT_MARGIN_K)
+from lapsecalc.gasballoon import (gas_density, gas_lift_per_m3, gas_volume_at, molar_mass,
+                                  gas_report, superheat_loss_kg)
 from lapsecalc.loadtable import load_table
 from refs import bisect
 

@@ -5,7 +5,9 @@ import math
 import pytest
 
 from lapsecalc.column import Column
-from lapsecalc.balloon import first_drop, hot_air_report, gas_report
+from lapsecalc.balloon import first_drop
+from lapsecalc.hotair import hot_air_report
+from lapsecalc.gasballoon import gas_report
 from test_balloon import dry_isa_column, hot_lift_m3
 
 # first_drop narrows its bracket below 0.1 m and returns the middle (balloon.py

@@ -3,7 +3,7 @@ itself, venting from the first metre up, and floating where the full envelope's 
 equals the weight. Independent lift per m3 from test_balloon.py (ideal gas with the
 virtual temperature, molar masses; ICAO Doc 7488/3, Wallace & Hobbs); heights by
 bisection (refs.py) on the closed-form ISA column."""
-from lapsecalc.balloon import gas_report
+from lapsecalc.gasballoon import gas_report
 from refs import bisect
 from test_balloon import dry_isa_column, gas_lift_m3, M_HE, M_H2
 

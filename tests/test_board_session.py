@@ -276,7 +276,7 @@ def test_a_board_line_computes_before_its_text_loads(restore_word_modules):
             import weakref
             before = set(m for m in sys.modules if m.startswith("lapsecalc."))
             held = [weakref.ref(sys.modules["lapsecalc.column"].Column),
-                    weakref.ref(sys.modules["lapsecalc.balloon"].working_envelope_t)]
+                    weakref.ref(sys.modules["lapsecalc.hotair"].working_envelope_t)]
             shell.Session.release(self)
             gc.collect()
             # Nothing left holds the column's or the balloon's code (a module dropped
@@ -298,8 +298,9 @@ def test_a_board_line_computes_before_its_text_loads(restore_word_modules):
         assert drop.feed(line) == want[2 + i], line
         before, after = seen[0]
         assert any(reads) == read and "lapsecalc.typed" not in before, line
-        assert "lapsecalc.balloon" in before and "lapsecalc.column" in before, line
-        for m in ("balloon", "column", "standard", "typed", "heights"):
+        assert "lapsecalc.hotair" in before and "lapsecalc.column" in before, line
+        assert "lapsecalc.gasballoon" not in before, line  # a hot-air line loads no gas code
+        for m in ("balloon", "hotair", "column", "standard", "typed", "heights"):
             assert "lapsecalc." + m not in after, (line, m)
 
 

@@ -7,7 +7,7 @@ import math
 import pytest
 from hypothesis import given, settings, strategies as st
 
-from lapsecalc import balloon, units
+from lapsecalc import hotair, gasballoon, units
 from lapsecalc.adiabats import moist_lapse_rate, saturated_ascent, dry_ascent
 from lapsecalc.column import Column
 from lapsecalc.condensation import cloud_base, lambert_w_minus1
@@ -58,15 +58,15 @@ CALLS = [
     ("report", COL.report, (2.0,)),
     ("station_values", station_values, (20.0, 50.0, 980.0, 300.0)),
     ("station_line", station_line, (20.0, 50.0, 980.0, 300.0)),
-    ("hot_air_lift_per_m3", balloon.hot_air_lift_per_m3, (1.1, 900.0, 100.0, 0.0)),
-    ("envelope_t_for_lift", balloon.envelope_t_for_lift, (1.1, 20.0, 0.2)),
-    ("gas_density", lambda p, t, f: balloon.gas_density(p, t, "helium", f), (900.0, 20.0, 1.0)),
-    ("gas_lift_per_m3", lambda r, p, t, f: balloon.gas_lift_per_m3(r, p, t, "helium", f),
+    ("hot_air_lift_per_m3", hotair.hot_air_lift_per_m3, (1.1, 900.0, 100.0, 0.0)),
+    ("envelope_t_for_lift", hotair.envelope_t_for_lift, (1.1, 20.0, 0.2)),
+    ("gas_density", lambda p, t, f: gasballoon.gas_density(p, t, "helium", f), (900.0, 20.0, 1.0)),
+    ("gas_lift_per_m3", lambda r, p, t, f: gasballoon.gas_lift_per_m3(r, p, t, "helium", f),
      (1.1, 900.0, 20.0, 1.0)),
-    ("gas_volume_at", balloon.gas_volume_at, (10.0, 1000.0, 20.0, 900.0, 10.0)),
-    ("hot_air_report", lambda v, w, tm, z: balloon.hot_air_report(COL, v, w, tm, None, z),
+    ("gas_volume_at", gasballoon.gas_volume_at, (10.0, 1000.0, 20.0, 900.0, 10.0)),
+    ("hot_air_report", lambda v, w, tm, z: hotair.hot_air_report(COL, v, w, tm, None, z),
      (2800.0, 450.0, 120.0, 500.0)),
-    ("gas_report", lambda f, v0, v, w, z: balloon.gas_report(COL, "helium", f, v0, v, w, z),
+    ("gas_report", lambda f, v0, v, w, z: gasballoon.gas_report(COL, "helium", f, v0, v, w, z),
      (1.0, 6.0, 10.0, 4.0, 500.0)),
 ] + [("units." + n, getattr(units, n), (1.0,)) for n in (
     "ft_to_m", "m_to_ft", "km_to_m", "m_to_km", "f_to_c", "c_to_f", "k_to_c", "c_to_k",

@@ -146,7 +146,8 @@ INTERPRETER_LAYERS = (
     ("layout", "chart", "metar", "helptext", "loadtable"),
     ("retell",),  # the library's sentences in the user's terms (layout says warnings)
     ("aloftwords",),
-    ("balloon", "groups", "output", "machine", "state", "typed", "hazardtext"),
+    ("hotair", "gasballoon", "groups", "output", "machine", "state", "typed", "hazardtext"),
+    ("balloon",),  # what hot air and gas share
     ("aliases",),
     ("altimetry",),  # library extras over the core: altimetry.py over indicated.py,
     ("indicated",),  # which column.report() tries under "except ImportError"

@@ -41,7 +41,7 @@ EDGES = [
      ["20000.1kg", "0.0099kg"]),
     ("fill", [("100000m3", "gas_volume_m3", 1.0e5), ("0.1m3", "gas_volume_m3", 0.1)],
      ["100001m3", "0.099m3"]),
-    # tmax: the maker's maximum, 50..150 C (balloon.MAX_ENVELOPE_T_MIN_C/_MAX_C)
+    # tmax: the maker's maximum, 50..150 C (hotair.MAX_ENVELOPE_T_MIN_C/_MAX_C)
     ("tmax", [("150C", "max_envelope_t_c", 150.0), ("50C", "max_envelope_t_c", 50.0)],
      ["150.1C", "49.9C", "-90C"]),
     ("tenv", [("150C", "envelope_t_c", 150.0), ("-90C", "envelope_t_c", -90.0)],
@@ -127,10 +127,10 @@ def test_unit_hints_at_their_edges():
 
 
 def test_setting_ranges_are_the_balloon_modules():
-    # balloonsettings keeps copies of the balloon module's limits (it must not import it).
-    from lapsecalc import balloon, balloonsettings
-    assert balloonsettings._TMAX_MIN_C == balloon.MAX_ENVELOPE_T_MIN_C
-    assert balloonsettings._ENVELOPE_T_MAX_C == balloon.ENVELOPE_T_MAX_C == \
-        balloon.MAX_ENVELOPE_T_MAX_C
-    assert balloonsettings._MARGIN_MAX_K == balloon.MARGIN_MAX_K
-    assert balloonsettings._SUPERHEAT_MAX_K == balloon.SUPERHEAT_MAX_K
+    # balloonsettings keeps copies of the balloon modules' limits (it must not import them).
+    from lapsecalc import hotair, gasballoon, balloonsettings
+    assert balloonsettings._TMAX_MIN_C == hotair.MAX_ENVELOPE_T_MIN_C
+    assert balloonsettings._ENVELOPE_T_MAX_C == hotair.ENVELOPE_T_MAX_C == \
+        hotair.MAX_ENVELOPE_T_MAX_C
+    assert balloonsettings._MARGIN_MAX_K == hotair.MARGIN_MAX_K
+    assert balloonsettings._SUPERHEAT_MAX_K == gasballoon.SUPERHEAT_MAX_K

@@ -20,7 +20,7 @@ from lapsecalc.shell import Session, MAX_LINE, split_line, read_lines, split_end
 from lapsecalc.typed import number, nearest
 from lapsecalc.machine import kv_value
 from lapsecalc.queries import kv_report
-from lapsecalc import balloon
+from lapsecalc import hotair, gasballoon
 
 SETUP = ["elev 1350ft", "temp 27C dew 13C qnh 1016", "elr 9.5@250m 7.5@2400m 6.5"]
 # Tolerances: a centimetre for heights that are sums of exact conversions, a
@@ -639,7 +639,7 @@ def test_balloon_text():
                                    " e.g. env 2800m3 wt 450kg tmax 120C"]),
                       ("env 2800m3 wt 450kg tmax 120C",
                        ["ok: envelope 2800 m3, weight 450 kg,", "    tmax 120 C"])])
-    hot = balloon.hot_air_report(col, 2800.0, 450.0, 120.0)
+    hot = hotair.hot_air_report(col, 2800.0, 450.0, 120.0)
     got = s.feed("balloon")
     assert got[0] == L("height", HM(411.48))
     assert L("gross lift", "%7.1f kg %6.0f lb" % (hot["gross_lift_kg"],
@@ -655,7 +655,7 @@ def test_balloon_text():
     assert limit < got.index(L("LIMIT ceiling", HM(hot["limit_ceiling_msl_m"])))
     assert work < got.index(L("ceiling", HM(hot["ceiling_msl_m"]))) < limit
     run(s, [("gas h2 fill 6m3", ["ok: gas hydrogen, fill 6 m3"])])
-    gas = balloon.gas_report(col, "hydrogen", 1.0, 6.0, 2800.0, 450.0, 411.48 + 609.6)
+    gas = gasballoon.gas_report(col, "hydrogen", 1.0, 6.0, 2800.0, 450.0, 411.48 + 609.6)
     got = s.feed("bal 2000ft agl")
     assert got[0] == "assumed gas purity 100 % (pure not set)"
     assert L("height", HM(411.48 + 609.6)) in got
@@ -754,7 +754,7 @@ def test_balloon_kv():
     s = session("kv")
     col = demo_column()
     run(s, [("env 2800m3 wt 450kg tmax 120C tenv 100C", ["ok=env,wt,tmax,tenv"])])
-    hot = balloon.hot_air_report(col, 2800.0, 450.0, 120.0, 100.0)
+    hot = hotair.hot_air_report(col, 2800.0, 450.0, 120.0, 100.0)
     got = s.feed("balloon")
     keys = [line.split("=", 1)[0] for line in got]
     assert sorted(keys) == sorted(hot)
@@ -1152,7 +1152,7 @@ def test_working_temperature_words():
                                " 90.0 C; allowed up to tmax"]),
         ("margin 61K", ["error: margin 61 K is outside 0..60 K"])])
     assert "tenv_c" not in s.state and s.state["tmax_c"] == 120.0
-    hot = balloon.hot_air_report(col, 2800.0, 450.0, 120.0, None, None, 15.0)
+    hot = hotair.hot_air_report(col, 2800.0, 450.0, 120.0, None, None, 15.0)
     got = s.feed("balloon")
     assert L("working temp", T(105.0)) in got and L("below max", "  +15.0 K") in got
     assert L("gross lift", "%7.1f kg %6.0f lb" % (hot["gross_lift_kg"],
@@ -1221,7 +1221,7 @@ def test_superheat_and_sunset_words():
                                                     "    envelope 1000 m3, weight 300 kg"]),
         ("superheat 51K", ["error: superheat 51 K is outside 0..50 K"]),
         ("sh 12K", ["ok: superheat 12 K"])])
-    gas = balloon.gas_report(col, "helium", 1.0, 600.0, 1000.0, 300.0, None, 12.0)
+    gas = gasballoon.gas_report(col, "helium", 1.0, 600.0, 1000.0, 300.0, None, 12.0)
     got = s.feed("sunset")
     assert L("superheat", "  +12.0 K") in got
     assert L("sun lift", "%7.1f kg %6.0f lb" % (gas["superheat_lift_kg"],
@@ -1233,7 +1233,7 @@ def test_superheat_and_sunset_words():
     assert L("gas temp", T(27.0 + 12.0)) in s.feed("balloon")
     run(s, [("out kv", ["ok=out"])])
     kv = kvdict(s.feed("sunset 2000ft agl"))
-    gz = balloon.gas_report(col, "helium", 1.0, 600.0, 1000.0, 300.0, 411.48 + 609.6, 12.0)
+    gz = gasballoon.gas_report(col, "helium", 1.0, 600.0, 1000.0, 300.0, 411.48 + 609.6, 12.0)
     assert abs(float(kv["ballast_superheat_lost_kg"]) - gz["ballast_superheat_lost_kg"]) < 0.006
 
 

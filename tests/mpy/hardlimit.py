@@ -9,7 +9,8 @@ tests/mpy/board_report.py (report() on three columns) within the heap ceilings o
 bench/mpy_budget.py (what main holds now) and exits 1 when one fails; it also says
 whether each runs within the board budget (64 KiB session, 32 KiB report, times the
 word-size factor: the Unix port has 64-bit words, a board 32-bit ones). --find
-searches the smallest heap (1 KiB steps) in which each runs. --lines prints, per
+searches the smallest heap (1 KiB steps) in which each runs. --at KIB... names the
+session lines that fail at those sizes (the lines that bind). --lines prints, per
 session line, the heap held before it and the least free heap it needs
 (tests/mpy/lineneed.py): where the session's heap goes. Without the micropython command it
 says so and exits 0, except under CI=true (exit 1).
@@ -93,6 +94,17 @@ def smallest(mp, folder, what, lo=8, hi=1024, window=12, runs=None):
         hi = top
 
 
+def failing(mp, folder, heap_kib):
+    """The session's lines that fail under a heap of heap_kib KiB (board_session.py's
+    "line N failed: ..." lines, and a MemoryError outside a line), [] when it passes:
+    which lines bind the hard limit."""
+    cmd = [mp, "-X", "heapsize=%dK" % heap_kib, SCRIPTS["session"], folder]
+    proc = subprocess.run(cmd, cwd=folder, stdout=subprocess.PIPE, stderr=subprocess.STDOUT,
+                          universal_newlines=True, timeout=_TIMEOUT_S)
+    return [x for x in proc.stdout.splitlines()
+            if x.startswith("line ") and " failed" in x or x.startswith("MemoryError")]
+
+
 def limits():
     """{what: (ceiling KiB, budget KiB)} on the Unix port (bench/mpy_budget.py)."""
     sys.path.insert(0, os.path.join(ROOT, "bench"))
@@ -107,6 +119,8 @@ def main():
     ap.add_argument("--find", action="store_true", help="find the smallest heap of each")
     ap.add_argument("--lines", action="store_true",
                     help="per session line: heap held and least free heap needed")
+    ap.add_argument("--at", type=int, nargs="+", default=(), metavar="KIB",
+                    help="the session lines that fail at each of these heap sizes")
     ap.add_argument("--micropython", default=None, help="the Unix port's command")
     args = ap.parse_args()
     mp = micropython_command(args.micropython)
@@ -127,7 +141,11 @@ def main():
             proc = subprocess.run([mp, "-X", "heapsize=1024K", "lineneed.py", folder],
                                   cwd=folder, universal_newlines=True, timeout=_TIMEOUT_S * 5)
             failed += proc.returncode != 0
-        if args.check or not (args.find or args.lines):
+        for kib in args.at:
+            bad = failing(mp, folder, kib)
+            print("at %d KiB: %s" % (kib, "; ".join(
+                x.split(" ->")[0].replace(" failed:", ":")[:40] for x in bad) if bad else "OK"))
+        if args.check or not (args.find or args.lines or args.at):
             for what, (ceiling, budget) in sorted(limits().items()):
                 ok, tail = run(mp, folder, what, ceiling)
                 print("hard limit %s at %d KiB (Unix port, the ceiling): %s"

@@ -196,9 +196,21 @@ class Session:
 
     def _say(self, key, text):
         # output.say (loaded for the line that says something; a board drops it after).
-        from lapsecalc.output import say
+        # A board's heap may have no room left even for that code: then an error is
+        # said in a short fixed form and a check left out, never a MemoryError out of
+        # feed() (the interpreter goes on; the line changed nothing).
         try:
+            from lapsecalc.output import say
             return say(self, key, text)
+        except MemoryError:
+            if key != "error":
+                return []
+            text = "cannot compute that (MemoryError); nothing changed"
+            if self.mode == "json":
+                return ['{"error": "%s"}' % text]
+            if self.mode == "kv":
+                return ["error=" + text]
+            return ["error: cannot compute that", "  (MemoryError); nothing changed"]
         finally:
             if self.drop_word_modules:
                 drop_modules(("output",))

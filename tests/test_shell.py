@@ -1400,3 +1400,33 @@ def test_isa_temperatures_as_points_give_the_isa_pressures():
         got = kvdict(s.feed("at " + h))
         assert float(got["at_p_hpa"]) == pytest.approx(p, rel=1e-4), h
     assert float(kvdict(s.feed("at 700hPa"))["at_msl_m"]) == pytest.approx(3012.2, abs=1.0)
+
+
+def test_no_room_to_say_an_error_is_still_one_error_line(monkeypatch):
+    # On a board the heap may have no room left even for the message code
+    # (lapsecalc.output, loaded to say the error): feed() then says the error in a
+    # short fixed form in each mode, leaves a check out, and the state is unchanged.
+    # (Seen under the Unix port's hard limit: a MemoryError had left feed().)
+    from lapsecalc import output
+
+    def no_room(s, key, text):
+        raise MemoryError("memory allocation failed, allocating 272 bytes")
+    s = Session()
+    s.feed("temp 27C dew 13C elev 400m")
+    before = s.snapshot()
+    monkeypatch.setattr(output, "say", no_room)
+    assert s.feed("temp 99C") == ["error: cannot compute that", "  (MemoryError); nothing changed"]
+    assert s.snapshot() == before
+    s.mode = "kv"
+    assert s.feed("qnh 5") == ["error=cannot compute that (MemoryError); nothing changed"]
+    s.mode = "json"
+    import json
+    s.json = json
+    assert [json.loads(x) for x in s.feed("frob")] == [
+        {"error": "cannot compute that (MemoryError); nothing changed"}]
+    s.mode = "text"
+    # A check line (a fraction typed for a percentage) is left out; the setting is taken.
+    assert s.feed("rh 0.5%") == ["ok: rh 0.5 %"]
+    assert s.state["hum"] == ("rh", 0.5)
+    monkeypatch.undo()
+    assert s.feed("temp 99C")[0] == "error: temp 99 C is outside -90..60 C"

@@ -95,6 +95,7 @@ DEFAULT_TESTS = {
     "heights": ["test_heights.py", "test_shell_altimetry.py", "test_shell_values.py",
                 "test_shell.py"],
     "machine": ["test_heights.py", "test_output.py", "test_shell.py"],
+    "jsontext": ["test_jsontext.py", "test_output.py"],
     "layout": ["test_text_tables.py", "test_shell.py", "test_shell_values.py"],
     "groups": ["test_text_tables.py", "test_shell_values.py"],
     "hazardtext": ["test_text_tables.py", "test_hazards.py"],

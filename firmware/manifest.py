@@ -33,6 +33,7 @@ package(
         "balloonwords.py",
         "atwords.py",
         "heights.py",
+        "jsontext.py",
         "loadtable.py",
         "machine.py",
         "metar.py",

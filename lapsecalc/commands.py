@@ -56,12 +56,6 @@ def _out(s, w, args):
     mode = args[0].lower() if len(args) == 1 else ""
     if mode not in ("text", "kv", "json"):
         raise ValueError("out needs one of text, kv, json")
-    if mode == "json" and s.json is None:
-        try:
-            import json
-        except ImportError:
-            raise ValueError("out json needs the json module, missing here; accepted text, kv")
-        s.json = json
     s.mode = mode
     return ack(s, "out " + mode, ["out"])
 

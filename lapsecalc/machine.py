@@ -20,27 +20,12 @@ def number_text(key, x):
     """The float x of result key as machines get it (see DECIMALS)."""
     for end, d in DECIMALS:
         if key.endswith(end):
-            t = ("%." + str(d) + "f") % x
+            t = "%.*f" % (d, x)
             if "." in t:
                 t = t.rstrip("0").rstrip(".")
             return "0" if t == "-0" else t
     t = "%.6g" % x
     return "0" if t == "-0" else t
-
-
-def machine(key, v):
-    """v with every float rounded as number_text says (for json; nested lists and
-    dicts too, a dict's own keys naming their families)."""
-    if isinstance(v, float):
-        return float(number_text(key, v))  # never -0.0: number_text writes "0"
-    if isinstance(v, (list, tuple)):
-        return [machine(key, x) for x in v]
-    if isinstance(v, dict):
-        out = {}
-        for k in v:
-            out[k] = machine(k, v[k])
-        return out
-    return v
 
 
 def kv_value(v, key=""):

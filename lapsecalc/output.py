@@ -113,7 +113,8 @@ def say(s, key, text):
     if s.mode == "kv":
         return ["%s=%s" % (key, text)]
     if s.mode == "json":
-        return [s.json.dumps({key: text})]
+        from lapsecalc.jsontext import line
+        return [line((), (), (key, text))]
     return wrap(text, key + ": ")
 
 
@@ -125,7 +126,8 @@ def ack(s, what, words=None):
         said = words if words is not None else [what]
         if s.mode == "kv":
             return ["ok=" + ",".join(said)]
-        return [s.json.dumps({"ok": said})]
+        from lapsecalc.jsontext import line
+        return [line((), (), ("ok", said))]
     parts = []
     for x in ([what] if isinstance(what, str) else what):
         parts.extend(x.split(", "))

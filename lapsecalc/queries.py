@@ -33,18 +33,9 @@ def emit(s, keys, values, balloon=False, word=None, rest=True, plus=()):
         from lapsecalc.machine import kv_lines
         return ["# assumed " + n for n in notes] + kv_lines(values, keys)
     if s.mode == "json":
-        from lapsecalc.machine import machine
-        obj = {}
-        for k in keys:
-            if k in values:
-                obj[k] = machine(k, values[k])
-        if notes:
-            obj["assumed"] = notes
-        if s.drop_word_modules:
-            # On a board: the line is one string of a few KiB that grows as it is
-            # written; collecting first leaves it the largest free run of the heap.
-            s.collect()
-        return [s.json.dumps(obj)]
+        from lapsecalc.jsontext import line
+        return [line(keys, values, ("assumed", notes) if notes else None,
+                     s.collect if s.drop_word_modules else None)]
     from lapsecalc.layout import text_lines, text_keys, warning_lines
     if word is not None:
         keys = text_keys(word)

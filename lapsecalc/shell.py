@@ -41,7 +41,7 @@ PHYSICS_MODULES = ("parcel", "stability", "hazards", "aloft", "altimetry", "indi
                    "standard", "moisture", "constants", "typed", "heights")
 WORD_MODULES = PHYSICS_MODULES + (
     "limits", "settings", "commands", "units", "output", "machine", "groups", "helptext", "chart", "loadtable",
-    "balloontext", "metar", "demo", "layout", "showword",
+    "balloontext", "metar", "demo", "layout", "showword", "jsontext",
     "balloonwords", "atwords", "hazardtext", "altitext", "aloftwords",
     "retell", "chartsvg", "altiwords", "balloonsettings")
 # The setting words' modules: let go of on a board once a line's settings are read,
@@ -155,7 +155,6 @@ class Session:
         self.mode = "text"
         self.done = False
         self.svg_writer = svg_writer
-        self.json = None  # the json module, once "out json" was asked for
         self.checks = []  # "check:" lines of the line being run (a word adds them)
         self._col = self._rep = self._levels = None
         self._rep_alt = False
@@ -189,7 +188,7 @@ class Session:
         for c in self.checks:
             out.extend(self._say("check", c))
         if self.mode == "json":
-            out = [x if x[:1] == "{" else self.json.dumps({"text": x}) for x in out]
+            out = [x if x[:1] == "{" else self._say("text", x)[0] for x in out]
         elif self.mode == "kv":
             out = [x if x[:1] == "#" or _is_kv(x) else "# " + x for x in out]
         return out
@@ -213,7 +212,7 @@ class Session:
             return ["error: cannot compute that", "  (MemoryError); nothing changed"]
         finally:
             if self.drop_word_modules:
-                drop_modules(("output",))
+                drop_modules(("output", "jsontext", "machine"))
 
     def _dispatch(self, line):
         if not isinstance(line, str):

@@ -71,7 +71,7 @@ def _c_show(s, w, args):
         return show_text(s)
     # The values in force, defaults included and named in "defaults"; a setting with
     # no default and not set is empty (None).
-    from lapsecalc.machine import kv_value, kv_lines, machine
+    from lapsecalc.machine import kv_value, kv_lines
     kind, hum = st.get("hum", ("td", None))
     pk, p = st.get("press", ("qnh", None))
     lapse = st.get("lapse")
@@ -109,7 +109,8 @@ def _c_show(s, w, args):
             "gas_volume_m3", "max_envelope_t_c", "envelope_t_c", "margin_k", "gas", "purity",
             "superheat_k", "aloft_points", "tropopause_msl_m", "defaults", "units", "out")
     if s.mode == "json":
-        return [s.json.dumps(machine("", vals))]
+        from lapsecalc.jsontext import line
+        return [line(keys, vals)]
     return kv_lines(vals, keys)
 
 

@@ -146,7 +146,9 @@ INTERPRETER_LAYERS = (
     ("layout", "chart", "metar", "helptext", "loadtable"),
     ("retell",),  # the library's sentences in the user's terms (layout says warnings)
     ("aloftwords",),
-    ("hotair", "gasballoon", "groups", "output", "machine", "state", "typed", "hazardtext"),
+    ("hotair", "gasballoon", "groups", "output", "state", "typed", "hazardtext"),
+    ("jsontext",),  # the json mode's lines (output's say and ack too)
+    ("machine",),
     ("balloon",),  # what hot air and gas share
     ("aliases",),
     ("altimetry",),  # library extras over the core: altimetry.py over indicated.py,

@@ -43,9 +43,15 @@ def test_comparison_rules():
     assert compare.same(0.0, 1e-12) and not compare.same(0.0, 1e-6)
     assert not compare.same(1.0, True) and not compare.same(None, 0.0)
     assert not compare.same("a", "b")
-    # JSON text in a different key order is the same object.
-    assert compare.same('{"k": 1.0, "m": "n"}', '{"m": "n", "k": 1.0000000000001}')
-    assert not compare.same('{"k": 1.0}', '{"k": 1.1}')
+    # A json mode line: the same text, but for the key order of a nested object
+    # (a board's dict keeps none); numbers as written, no tolerance.
+    assert compare.same('{"k": {"a": 1.0, "b": [2]}, "m": "n"}',
+                        '{"k": {"b": [2], "a": 1.0}, "m": "n"}')
+    assert not compare.same('{"k": 1.0, "m": "n"}', '{"m": "n", "k": 1.0}')
+    assert not compare.same('{"k": 1.0}', '{"k": 1.0000000000001}')
+    assert not compare.same('{"k": 1.0}', '{"k": 1}')
+    assert not compare.same('{"k": {"a": 1.0}}', '{"k": {"a": 1.0, "b": 1.0}}')
+    assert not compare.same('{"k": [{"a": 1.0, "b": 2.0}]}', '{"k": [{"a": 1.0}]}')
     got = dict(ref)
     del got["a"]
     got["z"] = 1

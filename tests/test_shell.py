@@ -1241,17 +1241,18 @@ def test_machine_numbers_carry_no_float_noise():
     # The cases named in the issue: a zero that is -2.27374e-13, a QNH read as 1009
     # that arithmetic made 1008.9999999999992 (29.79 inHg typed, or a station pressure
     # round trip). Decimals by key family as the README states (FAMILIES above).
-    from lapsecalc.machine import number_text, machine
+    from lapsecalc.machine import number_text
+    from lapsecalc.jsontext import line
     assert number_text("cin_j_kg", -2.27374e-13) == "0"
     assert number_text("qnh_hpa", 1008.9999999999992) == "1009"
     assert number_text("lifted_index_c", -0.004) == "0"
     assert number_text("cloud_base_msl_m", 1234.5678) == "1234.57"
     assert number_text("air_density_kg_m3", 1.116281234) == "1.11628"
     assert number_text("stability", 0.1 + 0.2) == "0.3"
-    assert machine("qnh_hpa", 1008.9999999999992) == 1009.0
-    assert str(machine("cin_j_kg", -1e-13)) == "0.0"
-    assert machine("x", [{"top_msl_m": 1.0049999, "class": "neutral"}]) == [
-        {"top_msl_m": 1.0, "class": "neutral"}]
+    assert line(["qnh_hpa"], {"qnh_hpa": 1008.9999999999992}) == '{"qnh_hpa": 1009.0}'
+    assert line(["cin_j_kg"], {"cin_j_kg": -1e-13}) == '{"cin_j_kg": 0.0}'
+    assert line(["x"], {"x": [{"top_msl_m": 1.0049999, "class": "neutral"}]}) == \
+        '{"x": [{"top_msl_m": 1.0, "class": "neutral"}]}'
     s = Session()
     s.feed("out json")
     s.feed("temp 20 dew 10 elev 0 stn 1008.9999999999992")

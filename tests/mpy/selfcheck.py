@@ -385,7 +385,7 @@ def session_lines():
         "excess 2C", "thermal", "show",
         "env 2800m3 wt 450kg tmax 120C", "balloon",
         "gas helium pure 98% fill 12m3 env 40m3 wt 5kg", "balloon", "gas none",
-        "unit ft F inHg", "report", "out kv", "report", "out json", "obs", "out text",
+        "unit ft F inHg", "report", "out kv", "report", "out json", "obs", "report", "show", "frobnicate", "help elr", "out text",
         "temp 99C", "frobnicate", "elr", "12", "clear dew", "base", "rh 40%", "base",
         "help", "help elr", "bye",
     ))

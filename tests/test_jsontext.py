@@ -100,6 +100,9 @@ def test_numbers_by_string_work(monkeypatch):
     ("\x00\x01\x0b\x1f", '"\\u0000\\u0001\\u000b\\u001f"'), ("~\x7f", '"~\\u007f"'),
     ("\u00e9t\u00e9", '"\\u00e9t\\u00e9"'), ("\U0001D11E", '"\\ud834\\udd1e"'),
     ("\u20ac1\uffff", '"\\u20ac1\\uffff"'), ("\ud800", '"\\ud800"'), ("", '""'),
+    # The ends of UTF-8's 2, 3 and 4 byte forms (RFC 3629 section 4).
+    ("\x80\u07ff\u0800", '"\\u0080\\u07ff\\u0800"'),
+    ("\U00010000\U0010ffff", '"\\ud800\\udc00\\udbff\\udfff"'),
 ])
 def test_strings_escaped(s, want):
     assert line((), (), ("k", s)) == '{"k": %s}' % want

@@ -29,9 +29,9 @@ def altimeter_word(s, w, args):
 def levels_word(s, w):
     """The levels word's numbers: (keys, values, cold-air warnings). Every single
     height of the report as [true MSL, indicated on QNH, flight level], lowest first."""
-    from lapsecalc.altimetry import flight_level, cold_warnings
     col = s.column(w)
     rep = s.report(w)
+    from lapsecalc.altimetry import flight_level, cold_warnings
     ind = rep["indicated_altitude_m"]
     vals = {}
     keys = []

@@ -40,11 +40,12 @@ def _parcel_t(s, col, z):
     # The parcel temperature at z recomputed between the path's levels, as the report's
     # parcel levels are (parcel.temperature_at); the chart's linear interpolation is
     # for drawing only and is up to a few tenths of a K off on the moist adiabat.
-    from lapsecalc.parcel import temperature_at
+    # The report's cloud_base_agl_m, found before the parcel code and path load.
+    lcl = col.elev_m + col.cloud_base()[0]
     levels = s.levels()
+    from lapsecalc.parcel import temperature_at
     for i in range(1, len(levels)):
         if z <= levels[i][0]:
-            lcl = col.elev_m + col.cloud_base()[0]  # the report's cloud_base_agl_m
             return temperature_at(col, levels, i, z, lcl)
     return levels[-1][2]
 

@@ -88,22 +88,38 @@ def icing_span(rep):
     return ib, it
 
 
-def text(col, rep, levels, h_unit="ft", t_unit="c", top_m=None, rows=ROWS):
-    """The profile as lines of at most 40 columns: environment "#", parcel "o" ("X"
-    where both fall), the 0-degree isotherm ".", the cloud base row shaded "-", the
-    icing band as ":" in the margin column right of the plot, and letters after it
-    (B cloud base, F freezing level, L LFC, E EL, T thermal top; "+" between letters
-    of one row). Row r (0 at the top) spans the heights lo + (rows-1-r)*dz ..
-    lo + (rows-r)*dz with lo the field and dz = (hi-lo)/rows. The bottom row is
-    labelled with the field, the top row with the chart's top (top_m when given: a
-    zoom), every fourth row between with its middle height. Points aloft
-    (col.aloft_m) are "*" on the environment in their row, the tropopause the letter P;
-    a third legend line names them when the chart shows either."""
+def figure(col, rep, levels, t_unit="c", top_m=None, rows=ROWS):
+    """The numbers the text chart draws, taken from the column and the parcel path
+    (levels), so that a board can let go of both before draw(): (lo, hi, heights,
+    environment, parcel, low, high, points aloft). lo is the field, hi the chart's top
+    (top_of); the heights, temperatures and range are frame()'s at 2*rows+1 heights;
+    the points aloft inside the chart are (z_m, temperature in t_unit)."""
     lo = col.elev_m
     hi = top_of(col, rep, top_m)
+    conv = c_to_f if t_unit == "f" else float
+    # Index 2b+1 of the frame's lists is the middle of row band b (b = 0 at the bottom).
+    fig = (lo, hi) + frame(col, levels, lo, hi, t_unit, 2 * rows)
+    return fig + ([(z, conv(col.t_at(z))) for z in (col.aloft_m or ()) if lo <= z <= hi],)
+
+
+def text(col, rep, levels, h_unit="ft", t_unit="c", top_m=None, rows=ROWS):
+    """The profile chart of column col as text lines: draw(figure(...))."""
+    return draw(figure(col, rep, levels, t_unit, top_m, rows), rep, h_unit, t_unit, rows)
+
+
+def draw(fig, rep, h_unit="ft", t_unit="c", rows=ROWS):
+    """The profile (fig: figure()) as lines of at most 40 columns: environment "#",
+    parcel "o" ("X" where both fall), the 0-degree isotherm ".", the cloud base row
+    shaded "-", the icing band as ":" in the margin column right of the plot, and
+    letters after it (B cloud base, F freezing level, L LFC, E EL, T thermal top; "+"
+    between letters of one row). Row r (0 at the top) spans the heights
+    lo + (rows-1-r)*dz .. lo + (rows-r)*dz with lo the field and dz = (hi-lo)/rows. The
+    bottom row is labelled with the field, the top row with the chart's top (top_m
+    when given: a zoom), every fourth row between with its middle height. Points
+    aloft are "*" on the environment in their row, the tropopause the letter P; a
+    third legend line names them when the chart shows either."""
+    lo, hi, zs, env, par, t_lo, t_hi, points = fig
     dz = (hi - lo) / rows
-    # Index 2b+1 of these is the middle of row band b (b = 0 at the bottom).
-    zs, env, par, t_lo, t_hi = frame(col, levels, lo, hi, t_unit, 2 * rows)
     span = t_hi - t_lo
 
     def x(t):
@@ -118,7 +134,6 @@ def text(col, rep, levels, h_unit="ft", t_unit="c", top_m=None, rows=ROWS):
     base_row = row_of(rep.get("cloud_base_msl_m"))
     x0 = x(0.0 if t_unit == "c" else 32.0) if t_lo < (0.0 if t_unit == "c" else 32.0) < t_hi \
         else None
-    points = [z for z in (col.aloft_m or ()) if row_of(z) is not None]
     marks = {}
     for key, letter in MARKS:
         r = row_of(rep.get(key))
@@ -144,9 +159,9 @@ def text(col, rep, levels, h_unit="ft", t_unit="c", top_m=None, rows=ROWS):
                     cells[i] = ch
                 elif ch == "o" and (i == a or b == 0):
                     cells[i] = "X"
-        for z in points:
+        for z, t in points:
             if row_of(z) == r:
-                cells[x(c_to_f(col.t_at(z)) if t_unit == "f" else col.t_at(z))] = "*"
+                cells[x(t)] = "*"
         # Labelled: the field (bottom row), the top of the chart (top row) and the
         # middle of every fourth row between.
         label = _label(in_unit(lo, h_unit)) if b == 0 else _label(in_unit(hi, h_unit)) if (

@@ -103,17 +103,24 @@ def _altimeter_section(s, rep):
 
 def _c_chart(s, w, args):
     # chart [TOP [agl]]: TOP zooms (a 2000 ft marine layer fills the picture).
+    # Its numbers first (chart.figure), then the Column, the parcel path and the
+    # physics code let go of (Session.release) before the lines are drawn.
     col = s.column(w)
     top = None
     if args:
         from lapsecalc.heights import height
         top = height(s, w, args, col)
+        height = None  # no name of it kept: release() lets go of its code
         if top < col.elev_m + 30.0:
             from lapsecalc.output import f_h1
             raise ValueError("chart: the top must be at least 100 ft (30 m) above the"
                              " field (%s)" % f_h1(s, col.elev_m))
-    from lapsecalc.chart import text
-    return text(col, s.report(w), s.levels(), s.disp["h"], s.disp["t"], top)
+    from lapsecalc.chart import figure, draw
+    rep = s.report(w)
+    fig = figure(col, rep, s.levels(), s.disp["t"], top)
+    col = figure = None
+    s.release()
+    return draw(fig, rep, s.disp["h"], s.disp["t"])
 
 
 def _c_svg(s, w, args):
@@ -149,6 +156,10 @@ def kv_report(s):
 def _c_altimeter(s, w, args):
     # levels and cold: their numbers in lapsecalc.altiwords, then their text in
     # lapsecalc.altitext (each loaded for the line).
+    if w == "levels":
+        # The report first (its heap peak), then the altimeter code.
+        no_args(w, args)
+        s.report(w)
     from lapsecalc.altiwords import altimeter_word
     keys, vals, text = altimeter_word(s, w, args)
     if s.mode != "text":

@@ -381,11 +381,13 @@ class Session:
     def levels(self):
         """The surface parcel's path (parcel.path) in the current column."""
         if self._levels is None:
-            from lapsecalc.parcel import path
             col = self.column()
             # The report's cloud base (Column.report() takes it from cloud_base() too),
-            # without computing the whole report for the words that need only the path.
-            self._levels = path(col, col.elev_m + col.cloud_base()[0])
+            # without computing the whole report for the words that need only the path;
+            # found before the parcel code loads (a board lets go of its code after).
+            lcl = col.elev_m + col.cloud_base()[0]
+            from lapsecalc.parcel import path
+            self._levels = path(col, lcl)
         return self._levels
 
 

@@ -314,3 +314,19 @@ def test_frame_range_holds_the_points_aloft_it_shows():
     levels = [(0.0, 0.0, 10.0, 0.0), (3000.0, 0.0, 10.0, 0.0)]
     assert chart.frame(Corner(0, 0, [1234.0]), levels, 0.0, 3000.0, "c", 4)[3] == -35.0
     assert chart.frame(Corner(0, 0, [5000.0]), levels, 0.0, 3000.0, "c", 4)[3] == -5.0
+
+
+def test_point_aloft_at_the_charts_top_is_drawn():
+    # A chart zoomed to exactly the height of a point aloft (ISA temperatures, ICAO Doc
+    # 7488/3: -4.5 C at 3000 m) draws the point in its top row; the figure holds the
+    # points inside the chart with their temperatures in the display unit.
+    col = Column.from_qnh(15.0, 5.0, 1013.25, 0.0, 6.5, 16000.0,
+                          aloft=[(3000.0, -4.5, None), (1000.0, 8.5, None)])
+    rep, levels, lines = _draw(col, h_unit="m", top_m=3000.0)
+    rows = lines[1:1 + chart.ROWS]
+    assert [r for r in range(chart.ROWS) if "*" in _plot(rows[r])] == [0, 10]
+    fig = chart.figure(col, rep, levels, "f", 3000.0)
+    assert fig[:2] == (0.0, 3000.0)
+    assert [z for z, _ in fig[-1]] == [1000.0, 3000.0]
+    assert abs(fig[-1][1][1] - 23.9) < 1e-9  # -4.5 C = 23.9 F
+    assert chart.figure(col, rep, levels, "c", 2999.0)[-1] == [(1000.0, 8.5)]

@@ -324,3 +324,18 @@ def test_every_query_word_has_an_outside_check():
     missing = sorted(set(QUERIES) - CHECKED_WORDS)
     assert not missing, ("query words with no session checked against an outside value in"
                          " tests/test_shell_values.py: %s" % missing)
+
+
+def test_chart_top_at_least_30_m_above_the_field():
+    # A zoomed chart's top at least 30 m (100 ft) above the field: 30 m is drawn (its
+    # top row labelled with it), 29.9 m is refused, and the field elevation counts
+    # (elev 500 m: 530 m MSL is the lowest top).
+    s = session("temp 15 dew 5 elev 500m qnh 1013.25 elr 6.5 top 6000m", "unit m C hPa")
+    s.feed("out text")
+    lines = s.feed("chart 30m agl")
+    assert lines[1].startswith("  530|"), lines[:2]
+    assert s.feed("chart 530m")[1].startswith("  530|")
+    for line in ("chart 29.9m agl", "chart 529.9m"):
+        out = s.feed(line)
+        assert " ".join(out) == ("error: chart: the top must be at least   100 ft (30 m)"
+                                 " above the field (500 m)"), out

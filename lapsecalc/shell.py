@@ -171,7 +171,11 @@ class Session:
         try:
             out = self._dispatch(line)
         except ValueError as e:
-            return self._say("error", shown(_retold(self, self.state, e, line), 300))
+            try:
+                text = _retold(self, self.state, e, line)
+            except MemoryError:  # no room for the retelling code: the library's words
+                text = str(e)
+            return self._say("error", shown(text, 300))
         except Exception as e:  # a corner the library did not foresee: still one line
             return self._say("error", "cannot compute that (%s: %s); nothing changed"
                              % (type(e).__name__, shown(str(e), 200)))

@@ -1431,3 +1431,23 @@ def test_no_room_to_say_an_error_is_still_one_error_line(monkeypatch):
     assert s.state["hum"] == ("rh", 0.5)
     monkeypatch.undo()
     assert s.feed("temp 99C")[0] == "error: temp 99 C is outside -90..60 C"
+
+
+def test_no_room_to_retell_says_the_library_words(monkeypatch):
+    # A refusal in the library's wording is retold in the user's terms by
+    # lapsecalc.retell, loaded only then; with no room for that code the library's own
+    # words are said, never a MemoryError out of feed().
+    from lapsecalc import shell, retell
+
+    def refuses(s, w, args):
+        raise ValueError("t_c=99 is outside -90..60 degC")
+
+    def no_room(s, st, msg):
+        raise MemoryError("memory allocation failed, allocating 1168 bytes")
+    monkeypatch.setitem(shell.QUERIES, "obs", refuses)
+    s = Session()
+    s.feed("temp 27C dew 13C elev 400m")
+    told = s.feed("obs")
+    assert told[0].startswith("error: obs: ") and "t_c=" not in " ".join(told)
+    monkeypatch.setattr(retell, "retell", no_room)
+    assert s.feed("obs") == ["error: t_c=99 is outside -90..60 degC"]

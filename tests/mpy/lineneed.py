@@ -7,7 +7,8 @@ For every line: collect, then fill the free heap with ballast (bytearrays, large
 first, so that holes are filled too) until only F KiB are free, and feed the line; a
 line that fails (MemoryError, or an error line where none is wanted: board_session's
 line_failed) leaves the session state as it was, so it is run again with more room.
-A bisection finds the least F in 1 KiB steps. Prints per line
+A bisection finds the least F in 1 KiB steps, each run from the session as the line
+found it (need_kib). Prints per line
 "held H need N total T | line" in KiB: a hard heap limit must be at least about the
 largest total (fragmentation adds a little). The last line that ran is then fed once
 more without ballast, so the session goes on as in board_session.py.
@@ -46,16 +47,28 @@ def runs(s, line, free_kib, line_failed):
 
 
 def need_kib(s, line, line_failed):
-    """The least free heap (KiB) line runs in, None when not even in _MAX_KIB."""
+    """The least free heap (KiB) line runs in, None when not even in _MAX_KIB. Every
+    run starts from the session as the line found it: its state and the report it
+    kept (or not), so a line that computes the report computes it each time, and one
+    that lets go of a kept report has it to let go of."""
+    before = (s.state, dict(s.disp), s.mode, s._rep, s._rep_alt)
+
+    def again(free_kib):
+        s.state, disp, s.mode, s._rep, s._rep_alt = before
+        s.disp = dict(disp)
+        s._col = s._levels = None
+        return runs(s, line, free_kib, line_failed)
     lo, hi = 0, _MAX_KIB
-    if not runs(s, line, hi, line_failed):
+    if not again(hi):
         return None
     while hi - lo > 1:
         mid = (lo + hi) // 2
-        if runs(s, line, mid, line_failed):
+        if again(mid):
             hi = mid
         else:
             lo = mid
+    s.state, s.disp, s.mode, s._rep, s._rep_alt = before[0], dict(before[1]), before[2], \
+        before[3], before[4]
     return hi
 
 

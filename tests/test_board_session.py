@@ -240,10 +240,12 @@ def test_line_need_table_under_the_unix_port(tmp_path):
     need = [int(r[5]) for r in rows]
     held = [float(r[3]) for r in rows]
     assert 0 < need[0] < need[2]          # a unit line vs a query computing the report
-    # The same query in the same state: the same room, within 2 KiB (1 KiB steps, and
-    # the ballast meets the heap's holes a little differently each time).
-    assert abs(need[2] - need[4]) <= 2
-    assert held[2] > held[0] > 0
+    # Every trial run starts from the session as the line found it: the first base
+    # computes the report in each run; the refused line changes nothing, so the second
+    # base finds the report the first one kept (held, within 1 KiB of the refused
+    # line's) and needs less room than the first.
+    assert need[4] < need[2]
+    assert abs(held[4] - held[3]) <= 1.0 and held[3] > held[2] > held[0] > 0
     worst = max(h + n for h, n in zip(held, need))
     assert ("lines_worst_total_kib=%.1f" % worst) in proc.stdout
 

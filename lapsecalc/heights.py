@@ -37,11 +37,12 @@ def height(s, w, args, col):
     if where == "agl":
         z += col.elev_m
     typed = said(args[0], s.disp["h"]) + (" AGL" if where == "agl" else "")
-    # A millimetre of rounding at either end is the end itself.
-    from lapsecalc.output import f_h1
-    if z < col.elev_m - 0.001:
-        raise ValueError("%s: %s is below the field (%s)" % (w, typed, f_h1(s, col.elev_m)))
-    if z > col.top_m + 0.001:
-        raise ValueError("%s: %s is above the column top (%s)"
-                         % (w, typed, f_h1(s, col.top_m)))
+    # A millimetre of rounding at either end is the end itself. (The display code only
+    # for a refusal: a board computes next, with the heap it would hold.)
+    below = z < col.elev_m - 0.001
+    if below or z > col.top_m + 0.001:
+        from lapsecalc.output import f_h1
+        raise ValueError("%s: %s is %s (%s)" % (
+            w, typed, "below the field" if below else "above the column top",
+            f_h1(s, col.elev_m if below else col.top_m)))
     return min(max(z, col.elev_m), col.top_m)

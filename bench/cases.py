@@ -233,7 +233,7 @@ def _optional_cases(col, levels):
     except ImportError:
         pass
     try:
-        from lapsecalc import balloon, hotair, gasballoon
+        from lapsecalc import balloon, hotair, hotreport, gasballoon
         rho = col.density_at(col.elev_m)
         out += [
             ("gasballoon.molar_mass", gasballoon.molar_mass, ("helium",), {}),
@@ -248,7 +248,7 @@ def _optional_cases(col, levels):
              (100.0, col.p_hpa, col.t_c, 700.0, 5.0), {}),
             ("balloon.first_drop", balloon.first_drop,
              (col, lambda z: 3000.0 - (z - col.elev_m), col.elev_m), {}),
-            ("hotair.hot_air_report", hotair.hot_air_report,
+            ("hotreport.hot_air_report", hotreport.hot_air_report,
              (col, 2500.0, 350.0, 120.0), {}),
             ("gasballoon.gas_report", gasballoon.gas_report,
              (col, "helium", 1.0, 100.0, 300.0, 40.0), {}),

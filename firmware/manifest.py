@@ -26,6 +26,7 @@ package(
         "hazardtext.py",
         "helptext.py",
         "hotair.py",
+        "hotreport.py",
         "icing.py",
         "indicated.py",
         "layout.py",

@@ -1,8 +1,8 @@
 """What hot-air and gas balloons share in one air column: the ambient air at a height
 (pressure, temperature, vapour pressure, density), the lowest height where a lift falls
 to a weight, and the heights where supplemental oxygen is commonly required. The
-balloons themselves: lapsecalc.hotair and lapsecalc.gasballoon (a board loads the one
-it flies)."""
+balloons themselves: lapsecalc.hotair (lift) with lapsecalc.hotreport, and
+lapsecalc.gasballoon (a board loads the one it flies)."""
 # Sources:
 #   Archimedes' principle with the ideal gas law: gross lift = mass of the displaced
 #     air - mass of the gas inside, per m3 the difference of the two densities.

@@ -1,6 +1,6 @@
 """The interpreter's balloon words (balloon, sunset, loads) and their output in text,
 kv and json form (runs on MicroPython; loaded only by their lines)."""
-# Sources: every number comes from lapsecalc.hotair, lapsecalc.gasballoon and
+# Sources: every number comes from lapsecalc.hotreport, lapsecalc.gasballoon and
 #   lapsecalc.loadtable; this
 #   module checks the settings the words need, picks and formats.
 from lapsecalc.queries import emit, assumed_text
@@ -66,7 +66,7 @@ def _out(s, word, r, rest=True):
 
 def _hot_report(s, w, args):
     # (Its own function: the column and the balloon code are let go of before the text
-    # is laid out.) Its functions imported by name: `from lapsecalc import hotair` (the
+    # is laid out.) Its functions imported by name: `from lapsecalc import hotreport` (the
     # package's __getattr__) left a reference the board's collector still found during
     # the text stage, holding the balloon and column code (about 19 KiB, Unix port).
     st = s.state
@@ -75,7 +75,8 @@ def _hot_report(s, w, args):
     z = height(s, w, args, col)
     height = None  # no name of it kept: release() lets go of its code
     s.read_done()
-    from lapsecalc.hotair import working_envelope_t, hot_air_report, DEFAULT_MARGIN_K
+    from lapsecalc.hotair import working_envelope_t, DEFAULT_MARGIN_K
+    from lapsecalc.hotreport import hot_air_report
     _hot_needs(s, w, col, z, working_envelope_t(
         st["tmax_c"], st.get("tenv_c"), st.get("margin_k", DEFAULT_MARGIN_K)))
     return hot_air_report(col, st["env_m3"], st["wt_kg"], st["tmax_c"], st.get("tenv_c"), z,

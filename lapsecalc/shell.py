@@ -37,8 +37,8 @@ PROMPT = "lc> "
 # computed (Session.release), before the text layout loads; so too of the number
 # readers (typed, heights), which the text does not use.
 PHYSICS_MODULES = ("parcel", "stability", "hazards", "aloft", "altimetry", "indicated",
-                   "balloon", "hotair", "gasballoon", "adiabats", "column", "condensation",
-                   "standard", "moisture", "constants", "typed", "heights")
+                   "balloon", "hotair", "hotreport", "gasballoon", "adiabats", "column",
+                   "condensation", "standard", "moisture", "constants", "typed", "heights")
 WORD_MODULES = PHYSICS_MODULES + (
     "limits", "settings", "commands", "units", "output", "machine", "groups", "helptext", "chart", "loadtable",
     "balloontext", "metar", "demo", "layout", "showword", "jsontext",

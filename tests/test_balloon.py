@@ -5,8 +5,9 @@ import pytest
 from hypothesis import assume, given, strategies as st
 
 from lapsecalc.column import Column
-from lapsecalc.hotair import (hot_air_lift_per_m3, envelope_t_for_lift, hot_air_report,
-                              working_envelope_t, DEFAULT_MARGIN_K)
+from lapsecalc.hotair import (hot_air_lift_per_m3, envelope_t_for_lift, working_envelope_t,
+                              DEFAULT_MARGIN_K)
+from lapsecalc.hotreport import hot_air_report
 from lapsecalc.gasballoon import (gas_density, gas_lift_per_m3, gas_volume_at, molar_mass,
                                   gas_report, superheat_loss_kg)
 from lapsecalc.loadtable import load_table

@@ -6,7 +6,7 @@ import pytest
 
 from lapsecalc.column import Column
 from lapsecalc.balloon import first_drop
-from lapsecalc.hotair import hot_air_report
+from lapsecalc.hotreport import hot_air_report
 from lapsecalc.gasballoon import gas_report
 from test_balloon import dry_isa_column, hot_lift_m3
 

@@ -1,4 +1,4 @@
-"""Balloon inputs at the edges of their documented ranges (hotair.py, gasballoon.py docstrings):
+"""Balloon inputs at the edges of their documented ranges (hotair, hotreport, gasballoon):
 the limit itself is taken, a hair beyond it is refused naming the value. Ranges:
 hot-air volume 10..20000 m3, weight 1..20000 kg (gas 0.01..20000), maximum envelope
 temperature 50..150 degC, working temperature up to the maximum, margin 0..60 K, gas
@@ -6,7 +6,7 @@ envelope 0.1..2e6 m3, gas at launch 0.1..1e5 m3 and not over the envelope, purit
 0.5..1, superheat 0..50 K."""
 import pytest
 
-from lapsecalc.hotair import hot_air_report
+from lapsecalc.hotreport import hot_air_report
 from lapsecalc.gasballoon import gas_report
 from test_balloon import dry_isa_column
 

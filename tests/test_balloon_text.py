@@ -6,7 +6,7 @@ a value that rounds to -0.0, small volumes, yes/no)."""
 import pytest
 
 from lapsecalc import balloontext, layout
-from lapsecalc.hotair import hot_air_report
+from lapsecalc.hotreport import hot_air_report
 from lapsecalc.gasballoon import gas_report
 from lapsecalc.column import Column
 from lapsecalc.shell import Session

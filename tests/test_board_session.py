@@ -321,8 +321,9 @@ def test_a_board_line_computes_before_its_text_loads(restore_word_modules):
         before, after = seen[0]
         assert any(reads) == read and "lapsecalc.typed" not in before, line
         assert "lapsecalc.hotair" in before and "lapsecalc.column" in before, line
+        assert ("lapsecalc.hotreport" in before) == (line[:7] == "balloon"), line
         assert "lapsecalc.gasballoon" not in before, line  # a hot-air line loads no gas code
-        for m in ("balloon", "hotair", "column", "standard", "typed", "heights"):
+        for m in ("balloon", "hotair", "hotreport", "column", "standard", "typed", "heights"):
             assert "lapsecalc." + m not in after, (line, m)
 
 

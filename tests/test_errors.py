@@ -7,7 +7,7 @@ import math
 import pytest
 from hypothesis import given, settings, strategies as st
 
-from lapsecalc import hotair, gasballoon, units
+from lapsecalc import hotair, hotreport, gasballoon, units
 from lapsecalc.adiabats import moist_lapse_rate, saturated_ascent, dry_ascent
 from lapsecalc.column import Column
 from lapsecalc.condensation import cloud_base, lambert_w_minus1
@@ -64,7 +64,7 @@ CALLS = [
     ("gas_lift_per_m3", lambda r, p, t, f: gasballoon.gas_lift_per_m3(r, p, t, "helium", f),
      (1.1, 900.0, 20.0, 1.0)),
     ("gas_volume_at", gasballoon.gas_volume_at, (10.0, 1000.0, 20.0, 900.0, 10.0)),
-    ("hot_air_report", lambda v, w, tm, z: hotair.hot_air_report(COL, v, w, tm, None, z),
+    ("hot_air_report", lambda v, w, tm, z: hotreport.hot_air_report(COL, v, w, tm, None, z),
      (2800.0, 450.0, 120.0, 500.0)),
     ("gas_report", lambda f, v0, v, w, z: gasballoon.gas_report(COL, "helium", f, v0, v, w, z),
      (1.0, 6.0, 10.0, 4.0, 500.0)),

@@ -146,9 +146,10 @@ INTERPRETER_LAYERS = (
     ("layout", "chart", "metar", "helptext", "loadtable"),
     ("retell",),  # the library's sentences in the user's terms (layout says warnings)
     ("aloftwords",),
-    ("hotair", "gasballoon", "groups", "output", "state", "typed", "hazardtext"),
+    ("hotreport", "gasballoon", "groups", "output", "state", "typed", "hazardtext"),
     ("jsontext",),  # the json mode's lines (output's say and ack too)
     ("machine",),
+    ("hotair",),  # hot-air lift: the hot-air report and the load table read it
     ("balloon",),  # what hot air and gas share
     ("aliases",),
     ("altimetry",),  # library extras over the core: altimetry.py over indicated.py,

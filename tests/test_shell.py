@@ -20,7 +20,7 @@ from lapsecalc.shell import Session, MAX_LINE, split_line, read_lines, split_end
 from lapsecalc.typed import number, nearest
 from lapsecalc.machine import kv_value
 from lapsecalc.queries import kv_report
-from lapsecalc import hotair, gasballoon
+from lapsecalc import hotreport, gasballoon
 
 SETUP = ["elev 1350ft", "temp 27C dew 13C qnh 1016", "elr 9.5@250m 7.5@2400m 6.5"]
 # Tolerances: a centimetre for heights that are sums of exact conversions, a
@@ -639,7 +639,7 @@ def test_balloon_text():
                                    " e.g. env 2800m3 wt 450kg tmax 120C"]),
                       ("env 2800m3 wt 450kg tmax 120C",
                        ["ok: envelope 2800 m3, weight 450 kg,", "    tmax 120 C"])])
-    hot = hotair.hot_air_report(col, 2800.0, 450.0, 120.0)
+    hot = hotreport.hot_air_report(col, 2800.0, 450.0, 120.0)
     got = s.feed("balloon")
     assert got[0] == L("height", HM(411.48))
     assert L("gross lift", "%7.1f kg %6.0f lb" % (hot["gross_lift_kg"],
@@ -754,7 +754,7 @@ def test_balloon_kv():
     s = session("kv")
     col = demo_column()
     run(s, [("env 2800m3 wt 450kg tmax 120C tenv 100C", ["ok=env,wt,tmax,tenv"])])
-    hot = hotair.hot_air_report(col, 2800.0, 450.0, 120.0, 100.0)
+    hot = hotreport.hot_air_report(col, 2800.0, 450.0, 120.0, 100.0)
     got = s.feed("balloon")
     keys = [line.split("=", 1)[0] for line in got]
     assert sorted(keys) == sorted(hot)
@@ -1152,7 +1152,7 @@ def test_working_temperature_words():
                                " 90.0 C; allowed up to tmax"]),
         ("margin 61K", ["error: margin 61 K is outside 0..60 K"])])
     assert "tenv_c" not in s.state and s.state["tmax_c"] == 120.0
-    hot = hotair.hot_air_report(col, 2800.0, 450.0, 120.0, None, None, 15.0)
+    hot = hotreport.hot_air_report(col, 2800.0, 450.0, 120.0, None, None, 15.0)
     got = s.feed("balloon")
     assert L("working temp", T(105.0)) in got and L("below max", "  +15.0 K") in got
     assert L("gross lift", "%7.1f kg %6.0f lb" % (hot["gross_lift_kg"],

@@ -356,14 +356,14 @@ def check_balloon():
     if not has("balloon"):
         print("# balloon.py absent: skipped")
         return
-    from lapsecalc import hotair, gasballoon
+    from lapsecalc import hotair, hotreport, gasballoon
     col = Column.from_qnh(12.0, 4.0, 1018.0, 250.0, [(400.0, 9.0), (None, 6.5)], 12000.0)
-    put("balloon.hot", hotair.hot_air_report(col, 2800.0, 450.0, 120.0))
-    put("balloon.hot_z", hotair.hot_air_report(col, 2200.0, 380.0, 110.0, 95.0, 1500.0))
+    put("balloon.hot", hotreport.hot_air_report(col, 2800.0, 450.0, 120.0))
+    put("balloon.hot_z", hotreport.hot_air_report(col, 2200.0, 380.0, 110.0, 95.0, 1500.0))
     put("balloon.gas", gasballoon.gas_report(col, "helium", 0.98, 12.0, 40.0, 5.0))
     put("balloon.h2", gasballoon.gas_report(col, "hydrogen", 1.0, 3.0, 900.0, 1.2))
     put("balloon.sun", gasballoon.gas_report(col, "helium", 1.0, 600.0, 1000.0, 300.0, 900.0, 12.0))
-    put("balloon.margin", hotair.hot_air_report(col, 2800.0, 450.0, 120.0, None, None, 30.0))
+    put("balloon.margin", hotreport.hot_air_report(col, 2800.0, 450.0, 120.0, None, None, 30.0))
     from lapsecalc import loadtable
     put("balloon.table", loadtable.load_table(col, 2800.0, 100.0, 120.0, 420.0))
     refused("balloon.over_max", hotair.working_envelope_t, 120.0, 130.0)

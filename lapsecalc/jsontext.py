@@ -145,7 +145,7 @@ def text(out, s):
     printable ASCII one as it is."""
     b = s.encode("utf-8", "surrogatepass")  # CPython: a lone surrogate too
     out.append('"')
-    if not b or 31 < min(b) and max(b) < 127 and s.find('"') < 0 and s.find("\\") < 0:
+    if not b or 31 < min(b) and max(b) < 127 and b.find(b'"') < 0 and b.find(b"\\") < 0:
         out.append(s)
         out.append('"')
         return

@@ -91,6 +91,21 @@ def test_numbers_by_string_work(monkeypatch):
         assert number(t) == json.dumps(float(t)) and read[-1] == t, t
 
 
+def test_fast_paths_keep_the_text():
+    # A board allocates every string: a number already as CPython writes it, and a
+    # printable ASCII string, are used as they are (the same object).
+    for t in ("411.48", "-0.5", "0.0001", "-1234567890.125"):
+        assert number(t) is t
+    assert number("9999999999999999") == "1e+16"  # 16 digits: no longer exact
+    for s in ("a b", " ", "~", "Icing likely in cloud from 4535 m (14877 ft) MSL up."):
+        out = []
+        jsontext.text(out, s)
+        assert out == ['"', s, '"'] and out[1] is s
+    out = []
+    jsontext.text(out, "a\tb")
+    assert "".join(out) == '"a\\tb"' and len(out) == 5
+
+
 @pytest.mark.parametrize("s, want", [
     # RFC 8259 section 7: the two-character escapes, \u00XX for other control
     # characters, and a character above U+FFFF as its UTF-16 surrogate pair (the

@@ -81,6 +81,14 @@ def test_weight_exactly_the_gross_lift():
     assert not any("above the working" in x for x in r["warnings"])
     assert not r["envelope_t_needed_over_working"]
     assert r["free_lift_kg"] == 0.0 and abs(r["payload_kg"]) < 1e-9
+    # Weighing exactly the lift the ceiling search reads at the field (its closed form,
+    # to the last bit), it still takes off: its ceiling is the field itself (within the
+    # search's 0.1 m), not "cannot take off".
+    from lapsecalc.hotair import _hot_lift
+    w = 2800.0 * _hot_lift(col, col.elev_m, 100.0)
+    r = hot_air_report(col, 2800.0, w, 120.0)
+    assert r["ceiling_msl_m"] is not None and r["ceiling_msl_m"] < col.elev_m + 0.1
+    assert not r["ceiling_above_top"]
     # A gas balloon weighing exactly its gross lift at the field lifts off (free lift
     # 0 is not "less than the weight").
     g = gas_report(col, "helium", 1.0, 500.0, 1000.0, 1.0)["gross_lift_kg"]

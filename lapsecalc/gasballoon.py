@@ -141,6 +141,16 @@ def gas_report(col, gas, purity, gas_volume_m3, envelope_m3, weight_kg, z_m=None
     w = check("weight_kg", weight_kg, GAS_WEIGHT_MIN_KG, WEIGHT_MAX_KG, "kg")
     dt = check("superheat_k", superheat_k, 0.0, SUPERHEAT_MAX_K, "K")
     z = _z(col, z_m)
+    # The result made first, with room for every key: on a board its table is one
+    # piece of heap, hard to find once the searches below have cut the heap up.
+    out = dict.fromkeys([
+        "z_msl_m", "ambient_t_c", "ambient_p_hpa", "ambient_density_kg_m3", "gas",
+        "gas_molar_mass_g_mol", "purity", "gas_volume_m3", "envelope_m3", "weight_kg",
+        "gas_density_kg_m3", "lift_per_m3_kg", "gas_volume_at_z_m3", "full_at_z",
+        "gross_lift_kg", "free_lift_kg", "full_msl_m", "full_p_hpa", "full_above_top",
+        "float_msl_m", "float_above_top", "oxygen_note", "ballast_to_hold_kg",
+        "gross_lift_per_1000ft_kg", "superheat_k", "gas_t_c", "superheat_lift_kg",
+        "ballast_superheat_lost_kg", "notes", "warnings"])
     p0, t0 = col.p_hpa, col.t_c
 
     def volume(zz, heat=dt):
@@ -192,35 +202,34 @@ def gas_report(col, gas, purity, gas_volume_m3, envelope_m3, weight_kg, z_m=None
                      " to hold level; gas vented while warm makes it more than it gave.")
     if gas == "hydrogen":
         notes.append("Hydrogen burns in air: handle it under the rules that apply to it.")
-    return {
-        "z_msl_m": z,
-        "ambient_t_c": t_air,
-        "ambient_p_hpa": p,
-        "ambient_density_kg_m3": rho,
-        "gas": gas,
-        "gas_molar_mass_g_mol": m_gas,
-        "purity": f,
-        "gas_volume_m3": v0,
-        "envelope_m3": v_env,
-        "weight_kg": w,
-        "gas_density_kg_m3": gas_density(p, t_air, gas, f, dt),
-        "lift_per_m3_kg": lift_m3(z),
-        "gas_volume_at_z_m3": v_z if v_z < v_env else v_env,
-        "full_at_z": full is not None and z >= full,
-        "gross_lift_kg": g_z,
-        "free_lift_kg": g_z - w,
-        "full_msl_m": full,
-        "full_p_hpa": None if full is None else col.p_at(full),
-        "full_above_top": full is None,
-        "float_msl_m": flt,
-        "float_above_top": flt_above,
-        "oxygen_note": oxygen,
-        "ballast_to_hold_kg": w - g_z if w > g_z else 0.0,
-        "gross_lift_per_1000ft_kg": _per_1000ft(col, z, gross),
-        "superheat_k": dt,
-        "gas_t_c": t_air + dt,
-        "superheat_lift_kg": g_z - gross(z, 0.0),
-        "ballast_superheat_lost_kg": superheat_loss_kg(rho, t_air, min(v_z, v_env), dt),
-        "notes": tuple(notes),
-        "warnings": tuple(warnings),
-    }
+    out["z_msl_m"] = z
+    out["ambient_t_c"] = t_air
+    out["ambient_p_hpa"] = p
+    out["ambient_density_kg_m3"] = rho
+    out["gas"] = gas
+    out["gas_molar_mass_g_mol"] = m_gas
+    out["purity"] = f
+    out["gas_volume_m3"] = v0
+    out["envelope_m3"] = v_env
+    out["weight_kg"] = w
+    out["gas_density_kg_m3"] = gas_density(p, t_air, gas, f, dt)
+    out["lift_per_m3_kg"] = lift_m3(z)
+    out["gas_volume_at_z_m3"] = v_z if v_z < v_env else v_env
+    out["full_at_z"] = full is not None and z >= full
+    out["gross_lift_kg"] = g_z
+    out["free_lift_kg"] = g_z - w
+    out["full_msl_m"] = full
+    out["full_p_hpa"] = None if full is None else col.p_at(full)
+    out["full_above_top"] = full is None
+    out["float_msl_m"] = flt
+    out["float_above_top"] = flt_above
+    out["oxygen_note"] = oxygen
+    out["ballast_to_hold_kg"] = w - g_z if w > g_z else 0.0
+    out["gross_lift_per_1000ft_kg"] = _per_1000ft(col, z, gross)
+    out["superheat_k"] = dt
+    out["gas_t_c"] = t_air + dt
+    out["superheat_lift_kg"] = g_z - gross(z, 0.0)
+    out["ballast_superheat_lost_kg"] = superheat_loss_kg(rho, t_air, min(v_z, v_env), dt)
+    out["notes"] = tuple(notes)
+    out["warnings"] = tuple(warnings)
+    return out

@@ -57,6 +57,17 @@ def hot_air_report(col, volume_m3, weight_kg, max_envelope_t_c, envelope_t_c=Non
     t_max = check("max_envelope_t_c", max_envelope_t_c, MAX_ENVELOPE_T_MIN_C,
                   MAX_ENVELOPE_T_MAX_C, "degC (the envelope maker's figure)")
     t_env = working_envelope_t(t_max, envelope_t_c, margin_k)
+    # The result made first, with room for every key: on a board its table is one
+    # piece of heap, hard to find once the searches below have cut the heap up.
+    out = dict.fromkeys([
+        "z_msl_m", "ambient_t_c", "ambient_p_hpa", "ambient_density_kg_m3", "volume_m3",
+        "weight_kg", "envelope_t_c", "envelope_t_set", "margin_k", "lift_per_m3_kg",
+        "gross_lift_kg", "free_lift_kg", "payload_kg", "envelope_t_needed_c",
+        "envelope_t_needed_over_working", "ceiling_msl_m", "ceiling_p_hpa",
+        "ceiling_above_top", "gross_lift_per_1000ft_kg", "envelope_t_needed_per_1000ft_c",
+        "max_envelope_t_c", "limit_gross_lift_kg", "limit_payload_kg",
+        "envelope_t_needed_over_limit", "limit_ceiling_msl_m", "limit_ceiling_p_hpa",
+        "limit_ceiling_above_top", "oxygen_note", "notes", "warnings"])
     z = _z(col, z_m)
     p, t_air, e, rho = _air(col, z)
     if t_env < t_air:
@@ -100,46 +111,47 @@ def hot_air_report(col, volume_m3, weight_kg, max_envelope_t_c, envelope_t_c=Non
                                ("ceiling", col.top_m if above else ceiling)))
     if oxygen:
         warnings.append(oxygen)
-    return {
-        "z_msl_m": z,
-        "ambient_t_c": t_air,
-        "ambient_p_hpa": p,
-        "ambient_density_kg_m3": rho,
-        "volume_m3": v,
-        "weight_kg": w,
-        "envelope_t_c": t_env,
-        "envelope_t_set": envelope_t_c is not None,
-        "margin_k": t_max - t_env,
-        "lift_per_m3_kg": lift,
-        "gross_lift_kg": v * lift,
-        "free_lift_kg": v * lift - w,
-        "payload_kg": payload,
-        "envelope_t_needed_c": t_need,
-        "envelope_t_needed_over_working": t_need is None or t_need > t_env,
-        "ceiling_msl_m": ceiling,
-        "ceiling_p_hpa": None if ceiling is None else col.p_at(ceiling),
-        "ceiling_above_top": above,
-        "gross_lift_per_1000ft_kg": _per_1000ft(col, z, lambda zz: v * _hot_lift(col, zz, t_env)),
-        "envelope_t_needed_per_1000ft_c": _per_1000ft(col, z, lambda zz: _t_needed(col, zz, need)),
-        "max_envelope_t_c": t_max,
-        "limit_gross_lift_kg": v * hot_air_lift_per_m3(rho, p, t_max, e),
-        "limit_payload_kg": limit_payload,
-        "envelope_t_needed_over_limit": t_need is None or t_need > t_max,
-        "limit_ceiling_msl_m": limit_ceiling,
-        "limit_ceiling_p_hpa": None if limit_ceiling is None else col.p_at(limit_ceiling),
-        "limit_ceiling_above_top": limit_above,
-        "oxygen_note": oxygen,
-        "notes": (
-            "Working figures: mean envelope air %.0f degC (%s, %.0f K under the maximum)."
-            " The %.0f degC maximum is a crown limit: figures at it are the absolute limit,"
-            " never a plan."
-            % (t_env, "set by you" if envelope_t_c is not None else "the default",
-               t_max - t_env, t_max),
-            "A crown reading runs hotter than the mean: enter it less the margin, never as"
-            " it is.",
-            "Envelope air is taken as the outside air heated at the same pressure with the"
-            " same humidity; burner exhaust and heat losses are not modelled.",
-            "Lift comes from the assumed lapse rate, not a sounding; the real air differs.",
-        ),
-        "warnings": tuple(warnings),
-    }
+    out["z_msl_m"] = z
+    out["ambient_t_c"] = t_air
+    out["ambient_p_hpa"] = p
+    out["ambient_density_kg_m3"] = rho
+    out["volume_m3"] = v
+    out["weight_kg"] = w
+    out["envelope_t_c"] = t_env
+    out["envelope_t_set"] = envelope_t_c is not None
+    out["margin_k"] = t_max - t_env
+    out["lift_per_m3_kg"] = lift
+    out["gross_lift_kg"] = v * lift
+    out["free_lift_kg"] = v * lift - w
+    out["payload_kg"] = payload
+    out["envelope_t_needed_c"] = t_need
+    out["envelope_t_needed_over_working"] = t_need is None or t_need > t_env
+    out["ceiling_msl_m"] = ceiling
+    out["ceiling_p_hpa"] = None if ceiling is None else col.p_at(ceiling)
+    out["ceiling_above_top"] = above
+    out["gross_lift_per_1000ft_kg"] = _per_1000ft(col, z,
+                                                  lambda zz: v * _hot_lift(col, zz, t_env))
+    out["envelope_t_needed_per_1000ft_c"] = _per_1000ft(col, z,
+                                                        lambda zz: _t_needed(col, zz, need))
+    out["max_envelope_t_c"] = t_max
+    out["limit_gross_lift_kg"] = v * hot_air_lift_per_m3(rho, p, t_max, e)
+    out["limit_payload_kg"] = limit_payload
+    out["envelope_t_needed_over_limit"] = t_need is None or t_need > t_max
+    out["limit_ceiling_msl_m"] = limit_ceiling
+    out["limit_ceiling_p_hpa"] = None if limit_ceiling is None else col.p_at(limit_ceiling)
+    out["limit_ceiling_above_top"] = limit_above
+    out["oxygen_note"] = oxygen
+    out["notes"] = (
+        "Working figures: mean envelope air %.0f degC (%s, %.0f K under the maximum)."
+        " The %.0f degC maximum is a crown limit: figures at it are the absolute limit,"
+        " never a plan."
+        % (t_env, "set by you" if envelope_t_c is not None else "the default",
+           t_max - t_env, t_max),
+        "A crown reading runs hotter than the mean: enter it less the margin, never as"
+        " it is.",
+        "Envelope air is taken as the outside air heated at the same pressure with the"
+        " same humidity; burner exhaust and heat losses are not modelled.",
+        "Lift comes from the assumed lapse rate, not a sounding; the real air differs.",
+    )
+    out["warnings"] = tuple(warnings)
+    return out

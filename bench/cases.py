@@ -11,6 +11,7 @@ from lapsecalc.column import Column
 # public function without one as "not timed". Optional modules are skipped when they
 # do not import.
 COVERED_MODULES = ("moisture", "standard", "condensation", "adiabats", "column", "aloft",
+                   "aloftpoints",
                    "parcel", "stability", "units", "metar", "balloon", "chart", "chartsvg")
 
 # The benchmark column: an invented warm afternoon at an invented field (as the demo).
@@ -215,10 +216,10 @@ def _optional_cases(col, levels):
     # Modules still being written by colleagues: time them when they import.
     out = []
     try:
-        from lapsecalc import aloft
+        from lapsecalc import aloft, aloftpoints
         acol = aloft_column()
         out += [
-            ("aloft.resolve", aloft.resolve,
+            ("aloftpoints.resolve", aloftpoints.resolve,
              (BENCH_ALOFT, col.elev_m, col.t_c + 273.15, col.p_hpa, col.top_m), {}),
             ("aloft.cloud_layers", aloft.cloud_layers, (acol,), {}),
             ("aloft.vapour_pressure", aloft.vapour_pressure, (acol, col.elev_m + 2500.0), {}),

@@ -87,6 +87,7 @@ DEFAULT_TESTS = {
     "fieldrisk": ["test_hazards.py", "test_report_keys.py"],
     "loadtable": ["test_loadtable.py", "test_balloon.py", "test_shell_values.py"],
     "aloft": ["test_aloft_edges.py", "test_aloft.py", "test_report_keys.py", "test_column.py"],
+    "aloftpoints": ["test_aloft_edges.py", "test_aloft.py", "test_column.py"],
     "aloftwords": ["test_aloft_words.py",
                    "test_shell.py::test_aloft_points_merge_replace_and_build_the_column",
                    "test_shell.py::test_aloft_and_trop_refusals_change_nothing",

@@ -9,6 +9,7 @@ package(
     "lapsecalc",
     files=(
         "aloft.py",
+        "aloftpoints.py",
         "aloftwords.py",
         "altimetry.py",
         "altitext.py",

@@ -62,7 +62,7 @@ class Column:
             build(self, t_c, td_c, p_hpa, elev_m, lapse, top_m, aloft, tropopause_m)
         finally:
             build = None
-            _drop("profile")
+            _drop("profile", "aloftpoints")
 
     @classmethod
     def from_qnh(cls, t_c, td_c, qnh_hpa, elev_m, lapse=6.5, top_m=16000, aloft=None,

@@ -65,13 +65,13 @@ def build(col, t_c, td_c, p_hpa, elev_m, lapse, top_m, aloft, tropopause_m):
     col.tropopause_m = None
     col.end_why = None
     col.r_kg_kg = _mixing_ratio_kg_kg(_es_water(col.td_c), col.p_hpa)
-    # Points aloft (lapsecalc.aloft.build): their heights aloft_m, m MSL, and the
+    # Points aloft (lapsecalc.aloftpoints.build): their heights aloft_m, m MSL, and the
     # dewpoints given, dews [(z_m, td_c), ...] from the surface up; else None.
     col.aloft_m = col.dews = None
     layers = []
     z, t, p = col.elev_m, col.t_c + T0_K, col.p_hpa
     if aloft is not None:
-        from lapsecalc.aloft import build as from_points
+        from lapsecalc.aloftpoints import build as from_points
         z, t, p = from_points(col, aloft, layers, top)
     tops = _tops(lapse, col.elev_m, top)
     if trop is not None:

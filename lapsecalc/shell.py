@@ -36,9 +36,10 @@ PROMPT = "lc> "
 # Column between lines and lets go of it and of these once a line's numbers are
 # computed (Session.release), before the text layout loads; so too of the number
 # readers (typed, heights), which the text does not use.
-PHYSICS_MODULES = ("parcel", "stability", "hazards", "aloft", "altimetry", "indicated",
-                   "balloon", "hotair", "hotreport", "gasballoon", "adiabats", "column",
-                   "condensation", "standard", "moisture", "constants", "typed", "heights")
+PHYSICS_MODULES = ("parcel", "stability", "hazards", "aloft", "aloftpoints", "altimetry",
+                   "indicated", "balloon", "hotair", "hotreport", "gasballoon", "adiabats",
+                   "column", "condensation", "standard", "moisture", "constants", "typed",
+                   "heights")
 WORD_MODULES = PHYSICS_MODULES + (
     "limits", "settings", "commands", "units", "output", "machine", "groups", "helptext", "chart", "loadtable",
     "balloontext", "metar", "demo", "layout", "showword", "jsontext",

@@ -1,4 +1,4 @@
-"""Points aloft at the edges of what they accept (lapsecalc.aloft.resolve docstring):
+"""Points aloft at the edges of what they accept (lapsecalc.aloftpoints.resolve docstring):
 temperatures -90..60 degC, pressures under the station pressure, heights above the
 field up to the top, two points one level when under 0.01 m apart; and the order of
 height and pressure points when the field is not at sea level."""

@@ -92,9 +92,10 @@ def test_core_is_part_of_full_and_has_what_a_station_needs():
 
 
 # Extras a core module may import inside a function, for an input only the full set
-# takes: Column(aloft=...) loads aloft.py (through profile.py; temperatures aloft; kept
+# takes: Column(aloft=...) loads aloftpoints.py (through profile.py) and aloft.py
+# (temperatures aloft; kept
 # out of the core's import heap budget, a station never gives them).
-CORE_OPTIONAL = {"profile": {"aloft"}, "column": {"aloft"}, "stability": {"aloft"}}
+CORE_OPTIONAL = {"profile": {"aloftpoints"}, "column": {"aloft"}, "stability": {"aloft"}}
 
 
 def _top_level_imports(module):
@@ -159,7 +160,7 @@ INTERPRETER_LAYERS = (
 
 # Library modules a board installs with the interpreter only (not core), below every
 # interpreter layer.
-LIBRARY_EXTRAS = {"aloft", "units", "hazards", "thermals", "icing", "precip", "fieldrisk"}
+LIBRARY_EXTRAS = {"aloft", "aloftpoints", "units", "hazards", "thermals", "icing", "precip", "fieldrisk"}
 
 
 def test_interpreter_layers_import_downward():

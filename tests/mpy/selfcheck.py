@@ -281,7 +281,7 @@ def check_aloft():
     if not has("aloft"):
         print("# aloft.py absent: skipped")
         return
-    from lapsecalc import aloft
+    from lapsecalc import aloft, aloftpoints
     col = Column.from_qnh(16.0, 6.0, 1012.0, 180.0, 6.5, 16000.0, ALOFT)
     rep = col.report()
     # Each pressure point lands where the column's own pressure is it (0.01 hPa).
@@ -295,7 +295,7 @@ def check_aloft():
     put("aloft.at", [(col.t_at(z), col.p_at(z), col.dewpoint_at(z), col.density_at(z))
                      for z in (500.0, 2500.0, 3100.0, 6000.0, 14000.0)])
     put("aloft.cloud", aloft.cloud_layers(col))
-    put("aloft.resolve", aloft.resolve(ALOFT, 0.0, 290.0, 1013.25, 16000.0))
+    put("aloft.resolve", aloftpoints.resolve(ALOFT, 0.0, 290.0, 1013.25, 16000.0))
     # Without a tropopause, a short layered column: the warnings say where and why.
     short = Column(30.0, 10.0, 1000.0, 0.0, [(1500.0, 8.0), (3000.0, 6.0)])
     put("aloft.short", short.report()["warnings"])

@@ -48,18 +48,26 @@ def runs(s, line, free_kib, line_failed):
 
 def need_kib(s, line, line_failed):
     """The least free heap (KiB) line runs in, None when not even in _MAX_KIB. Every
-    run starts from the session as the line found it: its state and the report it
-    kept (or not), so a line that computes the report computes it each time, and one
-    that lets go of a kept report has it to let go of."""
-    before = (s.state, dict(s.disp), s.mode, s._rep, s._rep_alt)
+    run starts from the session as the line found it: its state, and the report kept
+    or not (a kept one computed afresh before each run, none held here: a line that
+    lets go of it frees it), so a line that computes the report computes it each time."""
+    before = (s.state, dict(s.disp), s.mode)
+    kept = None if s._rep is None else ("report" if s._rep_alt else "base")
+
+    def restore():
+        s.state, disp, s.mode = before
+        s.disp = dict(disp)
+        s._col = s._levels = s._rep = None
+        if kept is not None:
+            s.report(kept)
+            s.release()
 
     def again(free_kib):
-        s.state, disp, s.mode, s._rep, s._rep_alt = before
-        s.disp = dict(disp)
-        s._col = s._levels = None
+        restore()
         return runs(s, line, free_kib, line_failed)
     lo, hi = 0, _MAX_KIB
     if not again(hi):
+        restore()
         return None
     while hi - lo > 1:
         mid = (lo + hi) // 2
@@ -67,8 +75,7 @@ def need_kib(s, line, line_failed):
             hi = mid
         else:
             lo = mid
-    s.state, s.disp, s.mode, s._rep, s._rep_alt = before[0], dict(before[1]), before[2], \
-        before[3], before[4]
+    restore()
     return hi
 
 

@@ -126,6 +126,9 @@ def resolve(aloft, elev_m, t_k, p_hpa, top_m):
             zn, tn, tdn, name = hs[ih]
             ih += 1
         if zn - z < _SAME_M:
+            if last is None:  # the lowest point, within a centimetre of the field
+                raise ValueError("%s is at the field's level (under %g m above it); allowed"
+                                 " heights above the elevation %g m" % (name, _SAME_M, z))
             raise ValueError("%s and %s are at the same level (%.2f m MSL); keep one of"
                              " them" % (last, name, zn))
         p = layer_pressure(p, t, (tn - t) / (zn - z), zn - z)

@@ -233,6 +233,20 @@ class Column:
         r = dict.fromkeys(keys)
         keys = None
         lcl_msl = self.elev_m + lcl_agl
+        # Lists, not constant tuples: a .mpy keeps a tuple's strings as copies of its
+        # own, while these names are shared with report_keys().
+        for t, level_key, levels_key in (
+                [0, "freezing_level_msl_m", "freezing_levels_msl_m"],
+                [-10, "minus10_level_msl_m", "minus10_levels_msl_m"],
+                [-20, "minus20_level_msl_m", "minus20_levels_msl_m"]):
+            zs = self.crossings(t)
+            r[level_key] = self.level(t, zs)
+            r[levels_key] = zs
+        r["tropopause_msl_m"] = self.tropopause_m
+        if hazards is not None:
+            # The hazards that read only the column (and its freezing level) before the
+            # parcel path: a board loads their code while its heap is still whole.
+            hazards.add_parts(self, None, r, hazards.FIELD_PARTS)
         path = parcel.path(self, lcl_msl)
         rho = self.density_at(self.elev_m)
         r["elevation_m"] = self.elev_m
@@ -253,16 +267,6 @@ class Column:
         r["lcl_p_hpa"] = lcl_p
         r["warm_layer_aloft"] = warm_layer_aloft(self)
         r["parcel_freezing_level_msl_m"] = parcel.level(self, path, 0, lcl_msl)
-        # Lists, not constant tuples: a .mpy keeps a tuple's strings as copies of its
-        # own, while these names are shared with report_keys().
-        for t, level_key, levels_key in (
-                [0, "freezing_level_msl_m", "freezing_levels_msl_m"],
-                [-10, "minus10_level_msl_m", "minus10_levels_msl_m"],
-                [-20, "minus20_level_msl_m", "minus20_levels_msl_m"]):
-            zs = self.crossings(t)
-            r[level_key] = self.level(t, zs)
-            r[levels_key] = zs
-        r["tropopause_msl_m"] = self.tropopause_m
         stability.add_to_report(self, path, r, excess_c, heated_agl)
         if self.dews is None:
             r["cloud_layers_msl_m"] = None
@@ -276,7 +280,7 @@ class Column:
             # The heated parcel's cloud base for lapsecalc.thermals (the condensation
             # code that gave it is gone on a board).
             r["thermal_cloud_base_msl_m"] = self.elev_m + heated_agl
-            hazards.add_to_report(self, path, r)
+            hazards.add_to_report(self, path, r, hazards.PATH_PARTS)
         # Last, so that it sees every height key: indicated altitudes, the ISA deviation
         # and the dry density altitude (indicated.py, an extra: a core-only board gets
         # the rest of the report and keeps within its memory budget).

@@ -7,8 +7,12 @@
 # collects the heap, so one report holds only one of them at a time.
 from lapsecalc.stability import CAUTIONS
 
-# The hazard modules, in the order their keys are added (each reads keys set before).
-PARTS = ("thermals", "icing", "precip", "fieldrisk")
+# The hazard modules: those that read only the column and its freezing level (which
+# Column.report() adds before it computes the parcel path), and those that read the
+# parcel path and the stability keys; none reads another's keys.
+FIELD_PARTS = ("precip", "fieldrisk")
+PATH_PARTS = ("thermals", "icing")
+PARTS = PATH_PARTS + FIELD_PARTS
 
 
 def report_keys():
@@ -66,17 +70,23 @@ def cautions(r):
     return out + list(CAUTIONS)
 
 
-def add_to_report(col, levels, r):
-    """Add the hazard keys, the thermals' cloud base, usable top and capped decks
-    (refining thermal_kind) and the cautions to report dict r (after the stability
-    keys: the hazard modules read the cloud base, the LFC, the EL, the thermal keys,
-    the parcel's 0 degC level and the cloud layers)."""
+def add_parts(col, levels, r, parts):
+    """Add the keys of the hazard modules named in parts to report dict r: each
+    loaded for it and, on a board, let go of after (lapsecalc._drop)."""
     from lapsecalc import _drop
-    for name in PARTS:
+    for name in parts:
         mod = __import__("lapsecalc." + name, None, None, ("add_keys",))
         try:
             mod.add_keys(col, levels, r)
         finally:
             mod = None
             _drop(name)
+
+
+def add_to_report(col, levels, r, parts=PARTS):
+    """Add the hazard keys of parts (all by default), the thermals' cloud base, usable
+    top and capped decks (refining thermal_kind) and the cautions to report dict r
+    (after the stability keys: the hazard modules read the cloud base, the LFC, the EL,
+    the thermal keys, the parcel's 0 degC level and the cloud layers)."""
+    add_parts(col, levels, r, parts)
     r["cautions"] = cautions(r)

@@ -72,6 +72,8 @@ def split_line(line):
 # the report kept for the session is let go of before such a line (the next line that
 # reads it computes it again; measured: the balloon, loads and sunset lines' hard heap
 # limit fell by about 9 KiB). A word missing here costs heap, one too many a recompute.
+# So too before a line of settings or a clear (most change the air, and the report with
+# it; measured: hard limit 117 -> 114 KiB) and da H (as at H).
 _NO_REPORT = ("balloon", "loads", "sunset", "show", "iso", "at", "help")
 # Query words that take a number after them (a first word followed by a number is
 # one of these or a setting).
@@ -231,7 +233,8 @@ class Session:
         w = words[0].lower()
         w = ALIASES.get(w, w)
         if self.drop_word_modules and self._rep is not None and (
-                w in _NO_REPORT or (w == "da" and len(words) > 1)):  # da H: as at H
+                w in _NO_REPORT or w in SETTING_WORDS or w == "clear" or (
+                    w == "da" and len(words) > 1)):
             self._rep = None
             self.collect()
         if w in SETTING_WORDS:

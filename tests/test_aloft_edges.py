@@ -106,3 +106,68 @@ def test_a_pressure_point_a_metre_under_a_height_point_comes_first():
     z_pt = 600.0 + RD / G0 * tlm * math.log(940.0 / p_pt)
     assert 1198.0 < z_pt < 1200.0
     assert abs(col.aloft_m[0] - z_pt) < 1e-6 and col.aloft_m[1] == 1200.0
+
+
+def test_a_height_point_at_the_field_or_the_top():
+    # Above the elevation up to the column top, both ends exact: a point at the
+    # elevation itself is refused, one at the top is taken.
+    with pytest.raises(ValueError, match=r"aloft point 1 \(100 m MSL\) is outside the column"):
+        Column(15.0, 5.0, 1000.0, 100.0, 6.5, 11000.0, aloft=[(100.0, 15.0, None)])
+    col = Column(15.0, 5.0, 1000.0, 100.0, 6.5, 11000.0, aloft=[(11000.0, -50.0, None)])
+    assert col.aloft_m == [11000.0]
+
+
+def test_a_point_within_a_centimetre_of_the_field_is_its_level():
+    # Under 0.01 m above the field is the field's own level: refused, naming the point
+    # (a height point, and a pressure point that lands there).
+    for pt, name in (((100.005, 15.0, None), r"aloft point 1 \(100.005 m MSL\)"),
+                     ((999.9995, 15.0, None, "hPa"), r"aloft point 1 \(1000 hPa\)")):
+        with pytest.raises(ValueError, match=name + " is at the field's level"):
+            Column(15.0, 5.0, 1000.0, 100.0, aloft=[pt])
+
+
+def test_two_height_points_a_hundredth_of_a_metre_apart_are_two_levels():
+    # 0.01 m apart is two levels (under it, one): 0.01 - 0.0 is exactly the float
+    # 0.01, so the bound itself is tried.
+    col = Column(15.0, 5.0, 1013.25, -10.0, 6.5, 11000.0,
+                 aloft=[(0.0, 15.0, None), (0.01, 15.0, None)])
+    assert col.aloft_m == [0.0, 0.01]
+
+
+def test_two_pressure_points_at_one_level_are_named_in_the_order_given():
+    # Same level: the message names them as typed (point 1, then point 2), whatever
+    # their temperatures.
+    with pytest.raises(ValueError, match=r"aloft point 1 \(700 hPa\) and aloft point 2 "
+                                         r"\(700 hPa\) are at the same level"):
+        Column(15.0, 5.0, 1000.0, 100.0, aloft=[(700.0, 5.0, None, "hPa"),
+                                                (700.0, -3.0, None, "hPa")])
+
+
+def test_a_pressure_point_keeps_its_dewpoint():
+    col = Column(15.0, 5.0, 1000.0, 100.0, aloft=[(800.0, 2.0, -4.0, "hPa")])
+    assert col.dews[-1] == (col.aloft_m[0], -4.0)
+
+
+def _landing_pressure(z_m):
+    # The pressure, and the temperature, at z_m of the column with one height point
+    # at 3000 m (12 degC): a pressure point with both lands at z_m (it lies on that
+    # column's own profile).
+    ref = Column(15.0, 5.0, 1000.0, 100.0, 6.5, 11000.0, aloft=[(3000.0, 12.0, None)])
+    return ref.p_at(z_m), ref.t_at(z_m)
+
+
+def test_a_pressure_point_landing_within_a_centimetre_under_a_height_point():
+    # It contradicts the height point (or is the same level): refused by name.
+    p, t = _landing_pressure(2999.995)
+    with pytest.raises(ValueError, match=r"aloft point 2 \(.* hPa\) and aloft point 1 "
+                                         r"\(3000 m MSL\) are at the same level or contradict"):
+        Column(15.0, 5.0, 1000.0, 100.0, 6.5, 11000.0,
+               aloft=[(3000.0, 12.0, None), (p, t, None, "hPa")])
+
+
+def test_a_pressure_point_landing_within_a_centimetre_over_a_height_point():
+    p, t = _landing_pressure(3000.005)
+    with pytest.raises(ValueError, match=r"aloft point 1 \(3000 m MSL\) and aloft point 2 "
+                                         r"\(.* hPa\) are at the same level \(3000.00 m MSL\)"):
+        Column(15.0, 5.0, 1000.0, 100.0, 6.5, 11000.0,
+               aloft=[(3000.0, 12.0, None), (p, t, None, "hPa")])

@@ -249,3 +249,27 @@ def test_an_indicated_reading_is_shared_only_by_equal_heights():
     same = [k for k in ind if r[k] == r["freezing_level_msl_m"]]
     assert len(same) >= 2 and ind[same[0]] is not None
     assert all(ind[k] == ind[same[0]] for k in same)
+
+
+def test_the_field_hazards_are_added_before_the_parcel_path(monkeypatch):
+    # Column.report() adds the hazards that read only the column (precip, fieldrisk)
+    # before it computes the parcel path (a board loads their code into a heap still
+    # whole), the others (thermals, icing) after it; every key is set either way.
+    from lapsecalc import hazards, parcel
+    calls = []
+    real_parts, real_path = hazards.add_parts, parcel.path
+
+    def parts(col, levels, r, names):
+        calls.append((names, levels is None))
+        return real_parts(col, levels, r, names)
+
+    def path(*args):
+        calls.append("path")
+        return real_path(*args)
+    monkeypatch.setattr(hazards, "add_parts", parts)
+    monkeypatch.setattr(parcel, "path", path)
+    r = Column.from_qnh(*DEMO).report(2.0)
+    assert calls == [(("precip", "fieldrisk"), True), "path", (("thermals", "icing"), False)]
+    assert set(hazards.FIELD_PARTS + hazards.PATH_PARTS) == set(hazards.PARTS)
+    assert all(k in r for k in hazards.report_keys())
+    assert r["precip_type"] == "rain" and r["carb_icing"] == "light"

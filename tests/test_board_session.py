@@ -227,7 +227,7 @@ def test_line_need_table_under_the_unix_port(tmp_path):
         lines = os.path.join(folder, "short.txt")
         with open(lines, "w") as f:
             f.write("unit m C hPa\ntemp 27C dew 13C qnh 1016 elev 411m\nbase\n"
-                    "temp 99C  #!error: out of range\nbase\n")
+                    "base 5  #!error: takes no value\nbase\n")
         proc = subprocess.run([mp, "-X", "heapsize=1024K", "lineneed.py", folder, lines],
                               cwd=folder, stdout=subprocess.PIPE, universal_newlines=True,
                               timeout=120)
@@ -236,7 +236,7 @@ def test_line_need_table_under_the_unix_port(tmp_path):
         shutil.rmtree(folder, ignore_errors=True)
     assert proc.returncode == 0, proc.stdout
     rows = [r.split() for r in proc.stdout.splitlines() if r.startswith("line ")]
-    assert [r[-1] for r in rows] == ["hPa", "411m", "base", "range", "base"]
+    assert [r[-1] for r in rows] == ["hPa", "411m", "base", "value", "base"]
     need = [int(r[5]) for r in rows]
     held = [float(r[3]) for r in rows]
     assert 0 < need[0] < need[2]          # a unit line vs a query computing the report
@@ -253,8 +253,9 @@ def test_line_need_table_under_the_unix_port(tmp_path):
 def test_a_board_session_lets_go_of_the_report_before_a_line_that_never_reads_it(
         restore_word_modules):
     # The report is kept between lines for the words that read it, and let go of
-    # before a balloon, loads, sunset, show, iso, at, da H or help line (shell._NO_REPORT);
-    # the output is the same as a CPython session's, which keeps it.
+    # before a balloon, loads, sunset, show, iso, at, da H or help line (shell._NO_REPORT),
+    # a line of settings (even one refused, or one of the balloon's) and a clear; the
+    # output is the same as a CPython session's, which keeps it.
     keep, drop = shell.Session(), shell.Session()
     drop.drop_word_modules = True
     lines = ("temp 27C dew 13C elev 1350ft", "env 2800m3 wt 450kg tmax 120C")
@@ -272,7 +273,16 @@ def test_a_board_session_lets_go_of_the_report_before_a_line_that_never_reads_it
                 assert keep._rep is not None, word  # CPython keeps it
             else:
                 assert drop._rep is not None and drop._rep is not kept  # computed again
-    # A word that reads the report keeps the one there, and so does a setting.
+    # A line of settings or a clear lets go of it too (whether it changes the air,
+    # changes only the balloon, or is refused).
+    for line in ("excess 2C", "temp 99C", "margin 10K", "clear tenv", "TEMP 27C"):
+        assert drop.feed("base") == keep.feed("base")
+        assert drop._rep is not None
+        assert drop.feed(line) == keep.feed(line), line
+        assert drop._rep is None, line
+    assert keep._rep is not None  # (CPython keeps it when the air stays the same)
+    # A word that reads the report keeps the one there, and so do the display words.
+    assert drop.feed("report") == keep.feed("report")
     for line in ("report", "base", "stab", "levels", "da", "unit m", "out text"):
         kept = drop._rep
         assert drop.feed(line) == keep.feed(line), line

@@ -39,6 +39,18 @@ def levels_text(s, keys, vals, warnings):
     return out + cold_warning_lines(s, warnings)
 
 
+def altimeter_text(s, w, keys, vals, warnings):
+    """The levels or cold word's (w) output from its numbers (lapsecalc.altiwords):
+    (keys, values, text lines); in kv and json mode no text (None) and, for levels,
+    the warning sentences as the value "warnings"."""
+    if w == "cold":
+        return keys, vals, cold_text(s, vals) if s.mode == "text" else None
+    if s.mode != "text":
+        vals["warnings"] = cold_warning_text(s, warnings)
+        return keys + ["warnings"], vals, None
+    return keys, vals, levels_text(s, keys, vals, warnings)
+
+
 # Names in the warnings for keys whose label reads oddly there.
 _WHERE = {"at_msl_m": "this height", "cloud_base_msl_m": "cloud base"}
 

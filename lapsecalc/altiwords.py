@@ -8,22 +8,14 @@ from lapsecalc.aliases import split_number, shown, no_args
 
 
 def altimeter_word(s, w, args):
-    """The levels or cold word (w) of session s: (keys, values, text lines or None).
-    The numbers first; a board then lets go of the Column (Session.release) before
-    the text."""
+    """The levels or cold word (w) of session s: (keys, values, cold-air warnings: None
+    for cold). The numbers only: the caller lets go of the Column and of this code
+    (Session.release) before the text (lapsecalc.altitext.altimeter_text)."""
     if w == "levels":
         no_args(w, args)
-        keys, vals, warn = levels_word(s, w)
-    else:
-        keys, vals = cold_word(s, w, args)
-    s.release()
-    from lapsecalc.altitext import cold_text, cold_warning_text, levels_text
-    if w == "cold":
-        return keys, vals, cold_text(s, vals) if s.mode == "text" else None
-    if s.mode != "text":
-        vals["warnings"] = cold_warning_text(s, warn)
-        return keys + ["warnings"], vals, None
-    return keys, vals, levels_text(s, keys, vals, warn)
+        return levels_word(s, w)
+    keys, vals = cold_word(s, w, args)
+    return keys, vals, None
 
 
 def levels_word(s, w):
@@ -53,17 +45,26 @@ def cold_word(s, w, args):
     formula and the column's own) for a few heights above the field, or for the one in
     args (cold 1200ft)."""
     col = s.column(w)
+    if len(args) > 1:
+        raise ValueError("cold takes one height above the field, e.g. cold 1500ft; alone"
+                         " it gives a few")
+    if args:
+        # The number read, and the reader let go of (Session.read_done), before the
+        # altimeter code loads; the reader again only to refuse it in the user's words.
+        from lapsecalc.typed import number
+        h = number(args[0], "h", s.disp["h"])
+        number = None
+        s.read_done()
     from lapsecalc.altimetry import (cold_temperature_correction, column_cold_correction,
                                      isa_deviation_at, indicated_altitude_at, TROPOPAUSE_M)
     # Up to the tropopause and to the column top, true and as indicated (in warm air
     # the top reads lower than it is; the column's correction needs the reading there).
     room = min(col.top_m, TROPOPAUSE_M, indicated_altitude_at(col, col.top_m)) - col.elev_m
-    if len(args) > 1:
-        raise ValueError("cold takes one height above the field, e.g. cold 1500ft; alone"
-                         " it gives a few")
     if args:
-        from lapsecalc.typed import value
-        hs = [value(args[0], "h", s.disp["h"], 0.0, room, w)]
+        if not 0.0 <= h <= room:
+            from lapsecalc.typed import value
+            value(args[0], "h", s.disp["h"], 0.0, room, w)
+        hs = [h]
     else:
         u = s.disp["h"]
         hs = [h * units.M_PER_FT if u == "ft" else h for h in _COLD[u]]
@@ -90,11 +91,17 @@ def flight_level_token(tok):
 def height_aloft(s, w, args, col):
     """The height, m MSL, of a flight level ("FL85") or of an indicated height on QNH
     ("5000ft ind", or a bare height after "heights ind") in column col."""
-    from lapsecalc.altimetry import z_at_flight_level, true_altitude_of
     fl = flight_level_token(args[0])
     if fl is not None:
         if len(args) > 1:
             raise ValueError("%s: nothing may follow a flight level, e.g. %s FL85" % (w, w))
+        from lapsecalc.altimetry import z_at_flight_level
         return z_at_flight_level(col, fl)
+    # The number read, and the reader let go of (Session.read_done), before the
+    # altimeter code loads.
     from lapsecalc.typed import number
-    return true_altitude_of(col, number(args[0], "h", s.disp["h"]))
+    x = number(args[0], "h", s.disp["h"])
+    number = None
+    s.read_done()
+    from lapsecalc.altimetry import true_altitude_of
+    return true_altitude_of(col, x)

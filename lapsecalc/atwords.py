@@ -19,16 +19,16 @@ def _c_at(s, w, args):
     height = None  # no name of it kept: release() lets go of its code
     s.read_done()
     p = col.p_at(z)
+    t_parcel = _parcel_t(s, col, z)
+    from lapsecalc.altimetry import altimeter_view, COLD_WARNING_K
+    ind, pa, dev = altimeter_view(col, z, p)
     vals = {"at_msl_m": z, "at_t_c": col.t_at(z), "at_p_hpa": p,
             "at_vapour_pressure_hpa": col.vapour_pressure_at(z),
             "at_air_density_kg_m3": col.density_at(z),
             "at_density_altitude_m": col.density_altitude_at(z),
-            "at_parcel_t_c": _parcel_t(s, col, z)}
-    from lapsecalc.altimetry import altimeter_view, COLD_WARNING_K
-    ind, pa, dev = altimeter_view(col, z, p)
-    vals["at_indicated_m"], vals["at_pressure_altitude_m"], vals["at_isa_deviation_c"] = \
-        ind, pa, dev
-    col = None  # let go of before the text is laid out
+            "at_parcel_t_c": t_parcel, "at_indicated_m": ind, "at_pressure_altitude_m": pa,
+            "at_isa_deviation_c": dev}
+    col = altimeter_view = None  # let go of before the text is laid out
     out = emit(s, "at", vals)
     if s.mode == "text" and dev <= -COLD_WARNING_K and ind > z:
         from lapsecalc.altitext import cold_warning_lines
@@ -39,15 +39,24 @@ def _c_at(s, w, args):
 def _parcel_t(s, col, z):
     # The parcel temperature at z recomputed between the path's levels, as the report's
     # parcel levels are (parcel.temperature_at); the chart's linear interpolation is
-    # for drawing only and is up to a few tenths of a K off on the moist adiabat.
-    # The report's cloud_base_agl_m, found before the parcel code and path load.
+    # for drawing only and is up to a few tenths of a K off on the moist adiabat. The
+    # path from the report's cloud base (cloud_base_agl_m, found before the parcel code
+    # loads) is this function's own: on a board it and the parcel code are let go of
+    # before the altimeter code loads.
     lcl = col.elev_m + col.cloud_base()[0]
-    levels = s.levels()
-    from lapsecalc.parcel import temperature_at
+    from lapsecalc.parcel import path, temperature_at
+    levels = path(col, lcl)
+    t = levels[-1][2]
     for i in range(1, len(levels)):
         if z <= levels[i][0]:
-            return temperature_at(col, levels, i, z, lcl)
-    return levels[-1][2]
+            t = temperature_at(col, levels, i, z, lcl)
+            break
+    levels = path = temperature_at = None
+    if s.drop_word_modules:
+        from lapsecalc import _forget
+        _forget(("parcel", "adiabats"))
+        s.collect()
+    return t
 
 
 def _c_iso(s, w, args):

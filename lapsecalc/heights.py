@@ -13,7 +13,6 @@ def height(s, w, args, col):
     the user's units when it is not in the column."""
     if not args:
         return col.elev_m
-    from lapsecalc.typed import number, said, unit_kind, shown
     if len(args) > 2:
         raise ValueError("%s takes a height, e.g. %s 8000ft, %s 2000ft agl, %s FL85, %s 700hPa"
                          % (w, w, w, w, w))
@@ -21,6 +20,7 @@ def height(s, w, args, col):
     if args[0][:2].lower() == "fl" or where == "ind":
         from lapsecalc.altiwords import height_aloft
         return height_aloft(s, w, args, col)
+    from lapsecalc.typed import number, said, unit_kind, shown
     if len(args) == 1 and unit_kind(args[0]) == "p":
         p = number(args[0], "p", "hpa")
         p_top = col.p_at(col.top_m)

@@ -161,7 +161,12 @@ def _c_altimeter(s, w, args):
         no_args(w, args)
         s.report(w)
     from lapsecalc.altiwords import altimeter_word
-    keys, vals, text = altimeter_word(s, w, args)
+    keys, vals, warnings = altimeter_word(s, w, args)
+    altimeter_word = None
+    s.release()  # the Column, the physics and the altimeter's numbers' code
+    from lapsecalc.altitext import altimeter_text
+    keys, vals, text = altimeter_text(s, w, keys, vals, warnings)
+    altimeter_text = None
     if s.mode != "text":
         return emit(s, keys, vals)
     return assumed_text(s) + text

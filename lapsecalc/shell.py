@@ -35,16 +35,17 @@ PROMPT = "lc> "
 # that only some lines need goes here. PHYSICS_MODULES: a board Session keeps no
 # Column between lines and lets go of it and of these once a line's numbers are
 # computed (Session.release), before the text layout loads; so too of the number
-# readers (typed, heights), which the text does not use.
+# readers (typed, heights) and the altimeter's numbers (altiwords), which the text
+# does not use.
 PHYSICS_MODULES = ("parcel", "stability", "hazards", "aloft", "aloftpoints", "altimetry",
                    "indicated", "balloon", "hotair", "hotreport", "gasballoon", "adiabats",
                    "column", "condensation", "standard", "moisture", "constants", "typed",
-                   "heights")
+                   "heights", "altiwords")
 WORD_MODULES = PHYSICS_MODULES + (
     "limits", "settings", "commands", "units", "output", "machine", "groups", "helptext", "chart", "loadtable",
     "balloontext", "metar", "demo", "layout", "showword", "jsontext",
     "balloonwords", "atwords", "hazardtext", "altitext", "aloftwords",
-    "retell", "chartsvg", "altiwords", "balloonsettings")
+    "retell", "chartsvg", "balloonsettings")
 # The setting words' modules: let go of on a board once a line's settings are read,
 # before the new state's Column is built.
 SETTING_MODULES = ("settings", "balloonsettings", "aloftwords", "metar", "typed", "heights")

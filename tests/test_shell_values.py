@@ -339,3 +339,18 @@ def test_chart_top_at_least_30_m_above_the_field():
         out = s.feed(line)
         assert " ".join(out) == ("error: chart: the top must be at least   100 ft (30 m)"
                                  " above the field (500 m)"), out
+
+
+def test_at_heights_within_a_millimetre_of_the_column_ends():
+    # A height typed within 1 mm past the field or the top (6000 m) is that end (a
+    # float's rounding); 2 mm past is refused; just inside stays where it is.
+    s = session(ISA, "unit m C hPa")
+    for line, want in (("at -0.0005m", 0.0), ("at 0.0005m", 0.0),
+                       ("at 6000.0005m", 6000.0), ("at 5999.9995m", 6000.0)):
+        assert abs(kv(s, line)["at_msl_m"] - want) < 0.01, line  # kv: to the cm
+    assert s.feed("at -0.002m") == ["error=at: -0.002 m is below the field (0 m)"]
+    assert s.feed("at 6000.002m") == ["error=at: 6000.002 m is above the column top (6000 m)"]
+    assert s.feed("at 1000m agl x")[0].startswith("error=at takes a height, e.g. at 8000ft")
+    # The station pressure typed is the field itself.
+    s = session("temp 15 dew 5 elev 0 stn 1013.25hPa elr 6.5 top 6000m")
+    assert kv(s, "at 1013.25hPa")["at_msl_m"] == 0.0

@@ -196,7 +196,8 @@ class Session:
         for c in self.checks:
             out.extend(self._say("check", c))
         if self.mode == "json":
-            out = [x if x[:1] == "{" else self._say("text", x)[0] for x in out]
+            # (a text line that cannot be said for want of heap is left out)
+            out = [y for x in out for y in ([x] if x[:1] == "{" else self._say("text", x))]
         elif self.mode == "kv":
             out = [x if x[:1] == "#" or _is_kv(x) else "# " + x for x in out]
         return out
@@ -448,6 +449,9 @@ def repl(session=None, stream=None, prompt=PROMPT):
             except StopIteration:
                 break
         for piece in split_ends(line):
-            for out in s.feed(piece):
-                print(out)
+            try:
+                for out in s.feed(piece):
+                    print(out)
+            except MemoryError:  # not even room to say so in the session's mode
+                print("error: out of memory")
     return s

@@ -1451,3 +1451,35 @@ def test_no_room_to_retell_says_the_library_words(monkeypatch):
     assert told[0].startswith("error: obs: ") and "t_c=" not in " ".join(told)
     monkeypatch.setattr(retell, "retell", no_room)
     assert s.feed("obs") == ["error: t_c=99 is outside -90..60 degC"]
+
+
+def test_json_text_lines_without_room_are_left_out_not_an_error(monkeypatch):
+    # In json mode a text line is wrapped by output.say; with no room for that code the
+    # line is left out (no IndexError out of feed), and the session goes on.
+    from lapsecalc import output
+
+    def no_room(s, key, text):
+        raise MemoryError("memory allocation failed, allocating 64 bytes")
+    s = Session()
+    s.feed("out json")
+    assert any(x.startswith('{"text": ') for x in s.feed("help elr"))
+    monkeypatch.setattr(output, "say", no_room)
+    assert s.feed("help elr") == []
+    monkeypatch.undo()
+    assert s.feed("help elr")[0].startswith('{"text": ')
+
+
+def test_repl_goes_on_after_a_memory_error(monkeypatch, capsys):
+    # The console loop is a board's main program: a MemoryError that still escapes a
+    # line is said and the next line runs.
+    from lapsecalc import shell
+    real = shell.Session.feed
+
+    def feed(self, line):
+        if line == "boom":
+            raise MemoryError("memory allocation failed")
+        return real(self, line)
+    monkeypatch.setattr(shell.Session, "feed", feed)
+    s = repl(stream=io.StringIO("boom\ntemp 20C\nbye\n"), prompt="")
+    assert capsys.readouterr().out.splitlines() == ["error: out of memory", "ok: temp 20 C"]
+    assert s.state["t_c"] == 20.0 and s.done

@@ -111,7 +111,8 @@ def test_fast_paths_keep_the_text():
     # characters, and a character above U+FFFF as its UTF-16 surrogate pair (the
     # section's G clef U+1D11E example); lower-case hex and \u for all but space..~
     # as CPython's json.dumps writes them (ensure_ascii, common practice).
-    ('a"b\\c/', '"a\\"b\\\\c/"'), ("\b\f\n\r\t", '"\\b\\f\\n\\r\\t"'),
+    ('a"b\\c/', '"a\\"b\\\\c/"'), ('"q"', '"\\"q\\""'), ("\\n", '"\\\\n"'),
+    ("a\x1f", '"a\\u001f"'), ("\b\f\n\r\t", '"\\b\\f\\n\\r\\t"'),
     ("\x00\x01\x0b\x1f", '"\\u0000\\u0001\\u000b\\u001f"'), ("~\x7f", '"~\\u007f"'),
     ("\u00e9t\u00e9", '"\\u00e9t\\u00e9"'), ("\U0001D11E", '"\\ud834\\udd1e"'),
     ("\u20ac1\uffff", '"\\u20ac1\\uffff"'), ("\ud800", '"\\ud800"'), ("", '""'),

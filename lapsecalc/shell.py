@@ -75,7 +75,7 @@ def split_line(line):
 # limit fell by about 9 KiB). A word missing here costs heap, one too many a recompute.
 # So too before a line of settings or a clear (most change the air, and the report with
 # it; measured: hard limit 117 -> 114 KiB) and da H (as at H).
-_NO_REPORT = ("balloon", "loads", "sunset", "show", "iso", "at", "help")
+_NO_REPORT = ("balloon", "loads", "sunset", "show", "iso", "at", "help", "cold")
 # Query words that take a number after them (a first word followed by a number is
 # one of these or a setting).
 _TAKE_NUMBER = ("at", "da", "iso", "balloon", "chart")
@@ -368,7 +368,9 @@ class Session:
     def report(self, word="report"):
         """The current Column.report() (computed once per state)."""
         col = self.column(word)
-        alt = word in ALTIMETRY_WORDS
+        # After "heights ind" every level is shown indicated: the report's own readings
+        # (no Column built again for the text).
+        alt = word in ALTIMETRY_WORDS or self.disp["z"] == "ind"
         if self._rep is None or (alt and not self._rep_alt):
             # The altimetry keys only for the words that show them: a board's session
             # heap has little room for them (bench/mpy_budget.py).

@@ -253,7 +253,8 @@ def test_line_need_table_under_the_unix_port(tmp_path):
 def test_a_board_session_lets_go_of_the_report_before_a_line_that_never_reads_it(
         restore_word_modules):
     # The report is kept between lines for the words that read it, and let go of
-    # before a balloon, loads, sunset, show, iso, at, da H or help line (shell._NO_REPORT),
+    # before a balloon, loads, sunset, show, iso, at, da H, cold or help line
+    # (shell._NO_REPORT),
     # a line of settings (even one refused, or one of the balloon's) and a clear; the
     # output is the same as a CPython session's, which keeps it.
     keep, drop = shell.Session(), shell.Session()
@@ -262,7 +263,7 @@ def test_a_board_session_lets_go_of_the_report_before_a_line_that_never_reads_it
     for line in lines:
         assert drop.feed(line) == keep.feed(line)
     for word in ("balloon", "loads", "sunset", "show", "iso -15C", "help", "?", "bal",
-                 "at 5000ft", "da 9500ft"):
+                 "at 5000ft", "da 9500ft", "cold", "cold 1200ft"):
         for line in ("base", word, "report"):
             assert drop.feed(line) == keep.feed(line), line
             if line == "base":
@@ -287,6 +288,24 @@ def test_a_board_session_lets_go_of_the_report_before_a_line_that_never_reads_it
         kept = drop._rep
         assert drop.feed(line) == keep.feed(line), line
         assert drop._rep is kept, line
+
+
+def test_after_heights_ind_a_report_carries_the_indicated_readings():
+    # Levels shown indicated on QNH are read from the report (its altimetry keys, computed
+    # with it), for every word: no Column is built again for the text.
+    for s in (shell.Session(), shell.Session()):
+        s.feed("temp -10C dew -14C elev 1350ft elr 6.5")
+        assert "indicated_altitude_m" not in s.report("ice")
+    s.feed("heights ind")
+    rep = s.report("ice")
+    # Colder than 0 C at the field: the freezing level is the field, which an altimeter
+    # on QNH reads as its elevation (QNH's definition, ICAO Annex 3).
+    assert rep["indicated_altitude_m"]["freezing_level_msl_m"] == rep["elevation_m"]
+    assert rep["indicated_altitude_m"]["top_msl_m"] > rep["top_msl_m"]  # cold air reads high
+    s.feed("heights msl")
+    s.feed("clear")
+    s.feed("temp -10C dew -14C elev 1350ft elr 6.5")
+    assert "indicated_altitude_m" not in s.report("ice")
 
 
 def test_a_board_line_computes_before_its_text_loads(restore_word_modules):

@@ -164,3 +164,15 @@ def test_balloon_air_takes_the_humidity_aloft_the_column_has():
     p = moist.p_at(1500.0)
     e_surface = r_surface * p / (0.622 + r_surface)
     assert moist.vapour_pressure_at(1500.0) > 2.0 * e_surface
+
+
+def test_working_temperature_at_the_maximum_gives_one_ceiling():
+    # With the working temperature at the maximum (no margin) the limit figures are the
+    # working ones: the limit ceiling is the working ceiling, found to the same 0.1 m
+    # (the limit search starts just under the working ceiling, never above it).
+    for col in (dry_isa_column(16000.0), Column(27.0, 13.0, 967.4, 411.48, 6.5, 16000)):
+        for w in (300.0, 700.0):
+            r = hot_air_report(col, 2800.0, w, 120.0, 120.0)
+            assert r["ceiling_msl_m"] is not None and not r["limit_ceiling_above_top"]
+            assert abs(r["limit_ceiling_msl_m"] - r["ceiling_msl_m"]) < 0.1
+            assert r["limit_payload_kg"] == r["payload_kg"]

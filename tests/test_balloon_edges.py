@@ -176,3 +176,19 @@ def test_working_temperature_at_the_maximum_gives_one_ceiling():
             assert r["ceiling_msl_m"] is not None and not r["limit_ceiling_above_top"]
             assert abs(r["limit_ceiling_msl_m"] - r["ceiling_msl_m"]) < 0.1
             assert r["limit_payload_kg"] == r["payload_kg"]
+
+
+def test_a_gas_balloon_too_heavy_for_its_full_envelope_floats_at_the_pressure_height():
+    # In a dry ISA column the gas's gross lift hardly changes up to the pressure height
+    # (ideal gas: displaced air and gas scale alike), here it is 0.0007 kg less there
+    # than at the field. A weight between the two lifts off and stops where the
+    # envelope becomes full: its float height is the pressure height itself.
+    col = dry_isa_column()
+    r = gas_report(col, "helium", 1.0, 500.0, 1000.0, 1.0)
+    full = r["full_msl_m"]
+    g_field = r["gross_lift_kg"]
+    g_full = gas_report(col, "helium", 1.0, 500.0, 1000.0, 1.0, full)["gross_lift_kg"]
+    assert 0.0 < g_field - g_full < 0.01
+    r = gas_report(col, "helium", 1.0, 500.0, 1000.0, 0.5 * (g_field + g_full))
+    assert not any("No lift-off" in x for x in r["warnings"])
+    assert r["float_msl_m"] == full and not r["float_above_top"]

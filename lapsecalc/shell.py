@@ -296,6 +296,10 @@ class Session:
             if rest is not None:  # ("aloft", late): settings.whole
                 from lapsecalc.aloftwords import check_whole
                 check_whole(self, new)
+                if self.drop_word_modules:
+                    # Its code let go of again before the Column is built.
+                    check_whole = None
+                    drop_modules(("aloftwords",))
                 if rest[1] is not None:
                     raise rest[1]
             self.commit(new)

@@ -51,7 +51,7 @@ def cold_warnings(col, r, threshold_k=COLD_WARNING_K):
     where the column is threshold_k or more colder than ISA and true altitude is below
     indicated (warm air lower down can outweigh cold air aloft: then the altimeter
     reads low there, and no warning). Lowest first. At the field the altimeter reads
-    right on QNH."""
+    right on QNH; at one height, by key name."""
     out = []
     ind = r["indicated_altitude_m"]
     for k in ind:
@@ -60,7 +60,8 @@ def cold_warnings(col, r, threshold_k=COLD_WARNING_K):
         dev = isa_deviation_at(col, r[k])
         if dev <= -threshold_k:
             out.append((k, r[k], dev, ind[k] - r[k]))
-    out.sort(key=lambda w: w[1])
+    # Two keys at one height by name: every port the same (a board's dict has no order).
+    out.sort(key=lambda w: (w[1], w[0]))
     return out
 
 

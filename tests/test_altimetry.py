@@ -367,3 +367,19 @@ def test_report_without_altimetry_keys():
                                              "isa_deviation_c"]
     for k in lean:
         assert lean[k] == full[k], k
+
+
+def test_cold_warnings_at_one_height_are_in_name_order():
+    # Two report keys at the same height (the thermal top and the usable top often
+    # are): listed by key name, so every port says the same (a board's dict keeps no
+    # insertion order). An invented winter column 20 K colder than ISA.
+    from lapsecalc.altimetry import cold_warnings
+    from lapsecalc.indicated import indicated_altitude_at
+    col = Column.from_qnh(-5.0, -12.0, 1013.25, 200.0, 6.5, 8000.0)
+    z = 2500.0
+    ind = indicated_altitude_at(col, z)
+    r = {"zeta_top_msl_m": z, "alpha_top_msl_m": z, "indicated_altitude_m": {
+        "zeta_top_msl_m": ind, "alpha_top_msl_m": ind}}
+    got = cold_warnings(col, r)
+    assert [w[0] for w in got] == ["alpha_top_msl_m", "zeta_top_msl_m"]
+    assert got[0][1] == z and got[0][2] <= -10.0 and got[0][3] == ind - z > 0.0

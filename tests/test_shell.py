@@ -1483,3 +1483,37 @@ def test_repl_goes_on_after_a_memory_error(monkeypatch, capsys):
     s = repl(stream=io.StringIO("boom\ntemp 20C\nbye\n"), prompt="")
     assert capsys.readouterr().out.splitlines() == ["error: out of memory", "ok: temp 20 C"]
     assert s.state["t_c"] == 20.0 and s.done
+
+
+def test_a_refusal_is_worded_after_the_line_lets_go_and_never_fails(monkeypatch):
+    # The error line is made once the line's code is let go of (on a board: room for
+    # the message); with no room even to make it, the fixed form is said.
+    import sys
+    from lapsecalc import shell
+    seen = []
+    real = shell.Session._refusal
+
+    def refusal(self, e, line):
+        seen.append("lapsecalc.settings" in sys.modules)
+        return real(self, e, line)
+    monkeypatch.setattr(shell.Session, "_refusal", refusal)
+    import lapsecalc
+    saved = dict((k, v) for k, v in sys.modules.items() if k.startswith("lapsecalc."))
+    names = dict(lapsecalc.__dict__)
+    s = Session()
+    s.drop_word_modules = True  # a board's session (CPython standing in)
+    try:
+        assert s.feed("temp 99C") == ["error: temp 99 C is outside -90..60 C"]
+    finally:  # the modules the board session forgot, back as they were
+        sys.modules.update(saved)
+        lapsecalc.__dict__.update(names)
+    assert seen == [False]
+    s.drop_word_modules = False
+
+    def no_room(text, n):
+        raise MemoryError("memory allocation failed, allocating 640 bytes")
+    monkeypatch.setattr(shell, "shown", no_room)
+    assert s.feed("temp 99C") == ["error: cannot compute that", "  (MemoryError); nothing changed"]
+    s.mode = "kv"
+    assert s.feed("frob") == ["error=cannot compute that (MemoryError); nothing changed"]
+    assert "t_c" not in s.state

@@ -6,11 +6,10 @@ points are read into the Column's layers by lapsecalc.aloftpoints.)"""
 #     (common practice in reading soundings).
 # Column imports this module only when points aloft are given.
 from lapsecalc.moisture import _es_water
+from lapsecalc.limits import SAME_LEVEL_M
 
 # Dewpoint depression at or under which cloud is likely, K (common practice).
 CLOUD_SPREAD_K = 3.0
-# Two points (or layer edges) closer than this are one level, m.
-SAME_M = 0.01
 
 
 def vapour_pressure(col, z_m):
@@ -39,7 +38,7 @@ def _cloudy(a, da, b, db, out):
     if lo != hi:
         zc = a + (b - a) * (da - CLOUD_SPREAD_K) / (da - db)
         a, b = (a, zc) if lo else (zc, b)
-    if out and a - out[-1][1] < SAME_M:
+    if out and a - out[-1][1] < SAME_LEVEL_M:
         out[-1][1] = b
     else:
         out.append([a, b])

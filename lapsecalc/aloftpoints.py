@@ -8,9 +8,8 @@ for a column with points aloft, and a board lets go of it after the build)."""
 from math import isfinite, log
 from lapsecalc.constants import G0, R_DRY, T0_K, EPS
 from lapsecalc.moisture import _es_water
-from lapsecalc.limits import T_MIN_C, T_MAX_C, DEW_SLACK_K
+from lapsecalc.limits import T_MIN_C, T_MAX_C, DEW_SLACK_K, SAME_LEVEL_M as _SAME_M
 from lapsecalc.standard import layer_pressure, ratio_ln
-from lapsecalc.aloft import SAME_M as _SAME_M
 
 
 def _name(i, level, by_p):

@@ -5,13 +5,10 @@
 #   Freezing and icing levels: airframe icing is most likely in cloud between 0 and
 #     -20 degC (common practice).
 from lapsecalc.constants import T0_K, EPS
-from lapsecalc.limits import check, finite, T_MAX_C
+from lapsecalc.limits import check, finite, T_MAX_C, SAME_LEVEL_M
 from lapsecalc.moisture import _es_water, _dewpoint_from_e, relative_humidity, wet_bulb
 from lapsecalc.standard import (layer_pressure, layer_height, station_pressure,
                                 pressure_altitude, isa_height_of_density, _density)
-
-# Heights closer than this are one level (crossings found in two layers), m.
-_SAME_LEVEL_M = 0.01
 def report_keys():
     """The keys report() sets, in its order: its own, then those of
     stability.report_keys() (lapsecalc.hazards and lapsecalc.indicated add theirs
@@ -149,7 +146,7 @@ class Column:
             if grad == 0:
                 continue
             z = z0 + (t_k - t0) / grad
-            if z0 <= z <= z1 and not (out and z - out[-1] < _SAME_LEVEL_M):
+            if z0 <= z <= z1 and not (out and z - out[-1] < SAME_LEVEL_M):
                 out.append(z)
         return out
 

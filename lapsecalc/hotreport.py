@@ -82,10 +82,11 @@ def hot_air_report(col, volume_m3, weight_kg, max_envelope_t_c, envelope_t_c=Non
     # A hotter envelope lifts more at every height, so the limit ceiling lies at or
     # above the working one: its scan starts just under it (the lower end of the
     # working ceiling's final bracket, where the lift is at least the weight).
-    limit_ceiling, limit_above = _ceiling(col, v, w, t_max, col.elev_m if ceiling is None
-                                          else max(col.elev_m, ceiling - _TOL_M))
-    if above:
+    if above:  # the hotter envelope's ceiling is over the top too: no scan
         limit_ceiling, limit_above = None, True
+    else:
+        limit_ceiling, limit_above = _ceiling(col, v, w, t_max, col.elev_m if ceiling is None
+                                              else max(col.elev_m, ceiling - _TOL_M))
     warnings = []
     # Float noise of the two lift sums (about 1e-13 kg in double, 1e-4 in single
     # precision) is no overload: a weight equal to the gross lift takes off.

@@ -60,8 +60,8 @@ def add_to_report(col, r):
     give (density_altitude_m counts the humidity: humid air is lighter, so it is higher)."""
     pa_qnh = pressure_altitude(col.qnh_hpa)
     # Made with room for every key at the start (see column.report_keys).
-    ind = dict.fromkeys([k for k in r if k.endswith("_msl_m") and (r[k] is None or isinstance(
-        r[k], float) or isinstance(r[k], int) and r[k] is not True and r[k] is not False)])
+    ind = dict.fromkeys([k for k in r if k.endswith("_msl_m") and (
+        r[k] is None or isinstance(r[k], (int, float)) and not isinstance(r[k], bool))])
     for k in ind:
         if r[k] is not None:
             ind[k] = _reading(col, r, ind, r[k], pa_qnh)

@@ -15,6 +15,9 @@ DEW_SLACK_K = 0.05
 # The highest column top, m MSL (lapsecalc.profile; here so that the setting words check
 # a top without loading the column's code).
 TOP_MAX_M = 32000.0
+# Heights closer than this are one level (points aloft, crossings found in two layers,
+# cloud layers), m.
+SAME_LEVEL_M = 0.01
 
 
 def shown(value):

@@ -74,8 +74,9 @@ def split_line(line):
 # reads it computes it again; measured: the balloon, loads and sunset lines' hard heap
 # limit fell by about 9 KiB). A word missing here costs heap, one too many a recompute.
 # So too before a line of settings or a clear (most change the air, and the report with
-# it; measured: hard limit 117 -> 114 KiB) and da H (as at H).
-_NO_REPORT = ("balloon", "loads", "sunset", "show", "iso", "at", "help", "cold")
+# it; measured: hard limit 117 -> 114 KiB), and da H (as at H: _dispatch).
+_NO_REPORT = ("balloon", "loads", "sunset", "show", "iso", "at", "help", "cold", "clear") + \
+    SETTING_WORDS
 # Query words that take a number after them (a first word followed by a number is
 # one of these or a setting).
 _TAKE_NUMBER = ("at", "da", "iso", "balloon", "chart")
@@ -184,11 +185,12 @@ class Session:
                 return self._refusal(refused, line)
             finally:
                 self._tidy()  # the message's code too
-        for c in self.checks:
-            out.extend(self._say("check", c))
+        for lines in self._say("check", self.checks):
+            out.extend(lines)
         if self.mode == "json":
-            # (a text line that cannot be said for want of heap is left out)
-            out = [y for x in out for y in ([x] if x[:1] == "{" else self._say("text", x))]
+            # Text lines as {"text": ...} objects (one left out for want of heap).
+            said = iter(self._say("text", [x for x in out if x[:1] != "{"]))
+            out = [y for x in out for y in ([x] if x[:1] == "{" else next(said))]
         elif self.mode == "kv":
             out = [x if x[:1] == "#" or _is_kv(x) else "# " + x for x in out]
         return out
@@ -208,7 +210,7 @@ class Session:
     def _refusal(self, e, line):
         # The error line of a refused line: a ValueError in the user's words (retold
         # when the library worded it), anything else as a corner the library did not
-        # foresee; the fixed form of _say when even the message finds no heap.
+        # foresee; the fixed form when even the message finds no heap.
         try:
             if isinstance(e, ValueError):
                 try:
@@ -220,28 +222,30 @@ class Session:
                 text = "cannot compute that (%s: %s); nothing changed" % (
                     type(e).__name__, shown(str(e), 200))
         except MemoryError:
-            text = None
-        return self._say("error", text)
+            return self._no_room()
+        return self._say("error", [text])[0]
 
-    def _say(self, key, text):
-        # output.say (loaded for the line that says something; a board drops it after).
-        # A board's heap may have no room left even for that code: then an error is
-        # said in a short fixed form and a check left out, never a MemoryError out of
-        # feed() (the interpreter goes on; the line changed nothing).
+    def _no_room(self):
+        # An error said with no heap to spare, in the session's mode: fixed text.
+        text = "cannot compute that (MemoryError); nothing changed"
+        if self.mode == "json":
+            return ['{"error": "%s"}' % text]
+        if self.mode == "kv":
+            return ["error=" + text]
+        return ["error: cannot compute that", "  (MemoryError); nothing changed"]
+
+    def _say(self, key, texts):
+        # The lines of each of texts as output.say says them (key "error", "check" or
+        # "text"), loaded once for them (a board drops it after). A board's heap may
+        # have no room left even for that code: then an error is said in the fixed
+        # form and other lines left out, never a MemoryError out of feed().
+        if not texts:
+            return []
         try:
-            if text is None:  # (_refusal: no room to make the message)
-                raise MemoryError
             from lapsecalc.output import say
-            return say(self, key, text)
+            return [say(self, key, x) for x in texts]
         except MemoryError:
-            if key != "error":
-                return []
-            text = "cannot compute that (MemoryError); nothing changed"
-            if self.mode == "json":
-                return ['{"error": "%s"}' % text]
-            if self.mode == "kv":
-                return ["error=" + text]
-            return ["error: cannot compute that", "  (MemoryError); nothing changed"]
+            return [self._no_room() if key == "error" else [] for x in texts]
         finally:
             if self.drop_word_modules:
                 drop_modules(("output", "jsontext", "machine"))
@@ -258,8 +262,7 @@ class Session:
         w = words[0].lower()
         w = ALIASES.get(w, w)
         if self.drop_word_modules and self._rep is not None and (
-                w in _NO_REPORT or w in SETTING_WORDS or w == "clear" or (
-                    w == "da" and len(words) > 1)):
+                w in _NO_REPORT or (w == "da" and len(words) > 1)):
             self._rep = None
             self.collect()
         if w in SETTING_WORDS:
@@ -291,7 +294,7 @@ class Session:
                     raise ValueError("'%s' cannot share a line with settings; give it its"
                                      " own line" % w)
                 raise ValueError(_unknown(words[i], True, False, words[i - 1] if i else None))
-            fn, takes, example = SETTINGS[w]
+            takes, example = SETTINGS[w][1:]
             fn = setter(w)
             j = i + 2 if takes == ONE else len(words)
             if takes == NUMBERS:
@@ -424,7 +427,9 @@ class Session:
             # The report's cloud base (Column.report() takes it from cloud_base() too),
             # without computing the whole report for the words that need only the path;
             # found before the parcel code loads (a board lets go of its code after).
-            lcl = col.elev_m + col.cloud_base()[0]
+            # A kept report has it already.
+            lcl = col.elev_m + (col.cloud_base()[0] if self._rep is None else
+                                self._rep["cloud_base_agl_m"])
             from lapsecalc.parcel import path
             self._levels = path(col, lcl)
         return self._levels

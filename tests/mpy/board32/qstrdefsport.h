@@ -1,0 +1,1 @@
+// lapsecalc board32 port: no port-specific names.

@@ -46,6 +46,7 @@ package(
         "settings.py",
         "balloonsettings.py",
         "shell.py",
+        "dispatch.py",
         "state.py",
         "thermals.py",
         "typed.py",

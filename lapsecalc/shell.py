@@ -1,22 +1,22 @@
 """The line interpreter: one line in, the output lines back (runs on MicroPython)."""
 # Sources: none of its own; numbers come from the library through the word modules.
 #
-# A line is split into words (split_line, a pure function), its first word is looked
-# up in the word tables, all new values go into a copy of the state, and only a line
-# that passed every check replaces the state. Errors are caught once, in feed(), and
-# come back as one "error: ..." line. feed() does no I/O; repl() and lapsecalc.cli do.
+# A line's words are read and its first word found in the word tables by
+# lapsecalc.dispatch (loaded for each line; on a board let go of before the word runs),
+# all new values go into a copy of the state, and only a line that passed every check
+# replaces the state. Errors are caught once, in feed(), and come back as one
+# "error: ..." line. feed() does no I/O; repl() and lapsecalc.cli do.
 #
-# Layers, top down: this module (Session: dispatch and state) -> the word modules:
-# lapsecalc.settings (SETTINGS, several a line, all-or-nothing), lapsecalc.queries
-# (QUERIES, one a line), lapsecalc.commands (COMMANDS: clear unit out help bye; it and
-# settings are imported by the line that uses them) ->
-# lapsecalc.layout (text lines, loaded by text output) -> lapsecalc.groups (result
-# keys), lapsecalc.output (display units, acks, kv values), lapsecalc.state (state
-# keys, defaults, the Column), lapsecalc.typed (numbers, units; loaded by the lines
-# that read one), lapsecalc.aliases (other names of words, slips) -> the library.
-from lapsecalc.aliases import ALIASES, PAIRS, shown, split_number, starts_number
+# Layers, top down: this module (Session: the state, the line's stages) ->
+# lapsecalc.dispatch (the word tables, a line of settings, the refusals' words) -> the
+# word modules: lapsecalc.settings (SETTINGS, several a line, all-or-nothing),
+# lapsecalc.queries (QUERIES, one a line), lapsecalc.commands (COMMANDS: clear unit out
+# help bye) -> lapsecalc.layout (text lines, loaded by text output) -> lapsecalc.groups
+# (result keys), lapsecalc.output (display units, acks, kv values), lapsecalc.state
+# (state keys, defaults, the Column), lapsecalc.typed (numbers, units; loaded by the
+# lines that read one), lapsecalc.aliases (other names of words, slips) -> the library.
+# Between lines a board's Session holds this module and lapsecalc.state only.
 from lapsecalc.state import AIR_KEYS, missing, build_column, dewpoint_of, settle
-from lapsecalc.queries import QUERIES
 
 try:
     from micropython import const
@@ -27,7 +27,7 @@ except ImportError:
 _MAX_LINE = const(256)
 MAX_LINE = _MAX_LINE
 PROMPT = "lc> "
-# Modules loaded only for a line's work (the setting and session words, help, chart,
+# Modules loaded only for a line's work (the word tables, the setting and session words, help, chart,
 # svg, balloon, metar, demo; the text layout; the parcel, stability, hazards and
 # points-aloft code of a report; the altimeter's numbers and text): on a board a
 # Session forgets them after the line, so the heap between lines holds only the
@@ -45,65 +45,10 @@ WORD_MODULES = PHYSICS_MODULES + (
     "limits", "settings", "commands", "units", "output", "machine", "groups", "helptext", "chart", "loadtable",
     "balloontext", "metar", "demo", "layout", "showword", "jsontext",
     "balloonwords", "atwords", "hazardtext", "altitext", "aloftwords",
-    "retell", "chartsvg", "balloonsettings")
-# The setting words' modules: let go of on a board once a line's settings are read,
-# before the new state's Column is built.
-SETTING_MODULES = ("settings", "balloonsettings", "aloftwords", "metar", "typed", "heights")
+    "retell", "chartsvg", "balloonsettings", "dispatch", "queries", "aliases")
 # The words whose report carries the altimetry keys (isa_deviation_c,
 # density_altitude_dry_m, indicated_altitude_m: Column.report(altimetry=True)).
 ALTIMETRY_WORDS = ("report", "obs", "da", "levels")
-# The setting words (lapsecalc.settings.SETTINGS) and the session words
-# (lapsecalc.commands.COMMANDS), in their tables' order: their modules load only for a
-# line that uses them (a board drops them after it).
-SETTING_WORDS = ("temp", "dew", "rh", "elev", "qnh", "stn", "elr", "top", "excess", "metar",
-                 "env", "wt", "fill", "tmax", "tenv", "gas", "pure", "margin", "superheat",
-                 "aloft", "trop")
-COMMAND_WORDS = ("clear", "unit", "heights", "out", "help", "bye")
-# Every word but the settings: the queries, then the session words.
-_WORDS = tuple(QUERIES) + COMMAND_WORDS
-
-
-def split_line(line):
-    """The words of a line: text after "#" is a comment."""
-    i = line.find("#")
-    return (line[:i] if i >= 0 else line).split()
-
-
-# Words whose line never reads the report and needs much heap of its own: on a board
-# the report kept for the session is let go of before such a line (the next line that
-# reads it computes it again; measured: the balloon, loads and sunset lines' hard heap
-# limit fell by about 9 KiB). A word missing here costs heap, one too many a recompute.
-# So too before a line of settings or a clear (most change the air, and the report with
-# it; measured: hard limit 117 -> 114 KiB), and da H (as at H: _dispatch).
-_NO_REPORT = ("balloon", "loads", "sunset", "show", "iso", "at", "help", "cold", "clear") + \
-    SETTING_WORDS
-# Query words that take a number after them (a first word followed by a number is
-# one of these or a setting).
-_TAKE_NUMBER = ("at", "da", "iso", "balloon", "chart")
-
-
-def _unknown(word, settings_only=False, number_next=False, after=None):
-    # The error for a word no table has (lapsecalc.typed.unknown, loaded only then):
-    # in a line of settings only settings are suggested; after a first word followed by
-    # a number, only words that take one.
-    from lapsecalc.typed import unknown
-    known = list(SETTING_WORDS)
-    if not settings_only:
-        known += list(_TAKE_NUMBER) if number_next else list(_WORDS)
-    return unknown(word, known, after)
-
-
-def joined(words):
-    """words with a unit typed after a space joined to its number and two-word names
-    made one (lapsecalc.typed.join_words, loaded only when a line may need it: a word
-    after a bare number, or a pair)."""
-    for i in range(1, len(words)):
-        prev = words[i - 1].split("@")[-1]
-        if (words[i - 1].lower(), words[i].lower()) in PAIRS or \
-                split_number(prev) == (prev, ""):
-            from lapsecalc.typed import join_words
-            return join_words(words)
-    return words
 
 
 def _is_kv(line):
@@ -115,21 +60,6 @@ def _is_kv(line):
         if not ("a" <= ch <= "z" or "0" <= ch <= "9" or ch == "_"):
             return False
     return True
-
-
-def _retold(s, st, e, line=None):
-    # The refusal e in session s's words: one in the library's wording (argument
-    # names, SI) is retold by lapsecalc.retell, loaded only then, after the query word
-    # of line that met it; st is the state the line was checked in.
-    text = str(e)
-    if "=" in text or "_" in text or "degC" in text or "aloft point" in text:
-        from lapsecalc.retell import retell
-        text = retell(s, st, text)
-        w = split_line(line)[:1] if isinstance(line, str) else None
-        w = ALIASES.get(w[0].lower(), w[0].lower()) if w else ""
-        if w in QUERIES and text[:len(w)] != w:
-            text = w + ": " + text
-    return text
 
 
 def drop_modules(names):
@@ -175,7 +105,7 @@ class Session:
         self.checks = []
         refused = None
         try:
-            out = self._dispatch(line)
+            out = self._run(line)
         except Exception as e:  # said below, once the line's code is let go of
             refused = e
         finally:
@@ -195,6 +125,37 @@ class Session:
             out = [x if x[:1] == "#" or _is_kv(x) else "# " + x for x in out]
         return out
 
+    def _run(self, line):
+        # The line's word found (lapsecalc.dispatch), then run: on a board the word
+        # tables and the reading of the line are let go of first.
+        if not isinstance(line, str):
+            raise ValueError("a line must be text")
+        if len(line) > _MAX_LINE:
+            raise ValueError("line of %d characters refused; accepted at most %d"
+                             % (len(line), _MAX_LINE))
+        from lapsecalc.dispatch import find, read_settings
+        todo = find(self, line)
+        if todo is None:
+            return []
+        fn, w, args = todo
+        todo = find = None
+        if fn is None:  # a line of settings: read, then the new state's Column built
+            new, said, set_words = read_settings(self, args)
+        read_settings = None
+        if self.drop_word_modules:
+            drop_modules(("dispatch",))
+            self.collect()
+        if fn is not None:
+            return fn(self, w, args)
+        try:
+            self.commit(new)
+        except ValueError as e:
+            # What only the library finds (the new state's column) in the user's terms.
+            from lapsecalc.dispatch import retold
+            raise ValueError(retold(self, new, e))
+        from lapsecalc.output import ack
+        return ack(self, said, set_words)
+
     def _tidy(self):
         # On a board: forget the line's modules and collect. A collection here frees
         # the line's garbage and the dropped modules before the next line allocates
@@ -208,19 +169,11 @@ class Session:
             gc.collect()
 
     def _refusal(self, e, line):
-        # The error line of a refused line: a ValueError in the user's words (retold
-        # when the library worded it), anything else as a corner the library did not
-        # foresee; the fixed form when even the message finds no heap.
+        # The error line of a refused line (lapsecalc.dispatch.refusal_text); the fixed
+        # form when even the message finds no heap.
         try:
-            if isinstance(e, ValueError):
-                try:
-                    text = _retold(self, self.state, e, line)
-                except MemoryError:  # no room for the retelling code: the library's words
-                    text = str(e)
-                text = shown(text, 300)
-            else:
-                text = "cannot compute that (%s: %s); nothing changed" % (
-                    type(e).__name__, shown(str(e), 200))
+            from lapsecalc.dispatch import refusal_text
+            text = refusal_text(self, e, line)
         except MemoryError:
             return self._no_room()
         return self._say("error", [text])[0]
@@ -249,90 +202,6 @@ class Session:
         finally:
             if self.drop_word_modules:
                 drop_modules(("output", "jsontext", "machine"))
-
-    def _dispatch(self, line):
-        if not isinstance(line, str):
-            raise ValueError("a line must be text")
-        if len(line) > _MAX_LINE:
-            raise ValueError("line of %d characters refused; accepted at most %d"
-                             % (len(line), _MAX_LINE))
-        words = joined(split_line(line))
-        if not words:
-            return []
-        w = words[0].lower()
-        w = ALIASES.get(w, w)
-        if self.drop_word_modules and self._rep is not None and (
-                w in _NO_REPORT or (w == "da" and len(words) > 1)):
-            self._rep = None
-            self.collect()
-        if w in SETTING_WORDS:
-            return self._settings(words)
-        if w in QUERIES:
-            f = QUERIES[w]
-            if isinstance(f, str):  # a word whose code is a module of its own
-                f = __import__("lapsecalc." + f, None, None, ["WORDS"]).WORDS[w]
-            return f(self, w, words[1:])
-        if w in COMMAND_WORDS:
-            from lapsecalc.commands import COMMANDS
-            return COMMANDS[w](self, w, words[1:])
-        if starts_number(w):
-            raise ValueError("a line starts with a word, e.g. temp 27C (help lists them)")
-        raise ValueError(_unknown(words[0], False, len(words) > 1 and starts_number(words[1])))
-
-    def _settings(self, words):
-        from lapsecalc.output import ack
-        from lapsecalc.settings import SETTINGS, ONE, NUMBERS, whole, setter
-        new = dict(self.state)
-        said = []
-        set_words = []
-        i = 0
-        while i < len(words):
-            w = words[i].lower()
-            w = ALIASES.get(w, w)
-            if w not in SETTING_WORDS:
-                if w in _WORDS:
-                    raise ValueError("'%s' cannot share a line with settings; give it its"
-                                     " own line" % w)
-                raise ValueError(_unknown(words[i], True, False, words[i - 1] if i else None))
-            takes, example = SETTINGS[w][1:]
-            fn = setter(w)
-            j = i + 2 if takes == ONE else len(words)
-            if takes == NUMBERS:
-                j = i + 1
-                while j < len(words) and starts_number(words[j]):
-                    j += 1
-            args = words[i + 1:j]
-            if takes == ONE and not args:
-                raise ValueError("%s needs a value, e.g. %s" % (w, example))
-            try:
-                said.append(fn(self, new, args))
-                set_words.append(w)
-            except ValueError as e:
-                raise ValueError("%s %s" % (w, e))
-            i = j
-        try:
-            rest = whole(self, new)
-            if self.drop_word_modules:
-                # On a board the setting words' code is let go of before the points
-                # aloft are checked and the new state's Column is built (commit), as
-                # a query lets go of the physics before its text.
-                fn = whole = SETTINGS = setter = None
-                drop_modules(SETTING_MODULES)
-                self.collect()
-            if rest is not None:  # ("aloft", late): settings.whole
-                from lapsecalc.aloftwords import check_whole
-                check_whole(self, new)
-                if self.drop_word_modules:
-                    # Its code let go of again before the Column is built.
-                    check_whole = None
-                    drop_modules(("aloftwords",))
-                if rest[1] is not None:
-                    raise rest[1]
-            self.commit(new)
-        except ValueError as e:
-            # What only the library finds (the new state's column) in the user's terms.
-            raise ValueError(_retold(self, new, e))
-        return ack(self, said, set_words)
 
     def commit(self, new):
         """Check the whole new state, then replace the old one (nothing changes before)."""

@@ -12,7 +12,7 @@ HERE = os.path.dirname(os.path.abspath(__file__))
 sys.path.insert(0, os.path.join(HERE, "mpy"))
 import board_session  # noqa: E402  (tests/mpy/board_session.py)
 
-from lapsecalc import shell, settings
+from lapsecalc import shell, settings, dispatch
 
 SESSION = os.path.join(HERE, "mpy", "board_session.txt")
 
@@ -24,20 +24,20 @@ def session_lines():
 
 def interpreter_words():
     """Every word the interpreter dispatches on (settings, queries, session words)."""
-    return set(settings.SETTINGS) | set(shell._WORDS)
+    return set(settings.SETTINGS) | set(dispatch.other_words())
 
 
 def test_every_word_is_in_the_session():
     used = set()
     for line in session_lines():
-        words = shell.split_line(line)
+        words = dispatch.split_line(line)
         for w in words:
             if w.lower() in interpreter_words():
                 used.add(w.lower())
     missing = sorted(interpreter_words() - used)
     assert not missing, "add a line using %s to tests/mpy/board_session.txt" % missing
     # report in all three output modes (text before any "out"), help alone and with a word.
-    lines = [x.strip() for x in session_lines() if shell.split_line(x)]
+    lines = [x.strip() for x in session_lines() if dispatch.split_line(x)]
     assert "report" in lines[:lines.index("out kv")]
     for mode in ("kv", "json"):
         assert lines[lines.index("out " + mode) + 1] == "report", mode
@@ -91,16 +91,16 @@ def _top_level_imports(module):
 
 
 def test_the_shell_knows_the_words_of_its_lazy_tables():
-    # shell names the setting and session words itself (their modules load only for a
-    # line that uses them); the names, in order, are those of the tables.
+    # dispatch names the setting and session words itself (their modules load only
+    # for a line that uses them); the names, in order, are those of the tables.
     from lapsecalc import commands
-    assert shell.SETTING_WORDS == tuple(settings.SETTINGS)
-    assert shell.COMMAND_WORDS == tuple(commands.COMMANDS)
+    assert dispatch.SETTING_WORDS == tuple(settings.SETTINGS)
+    assert dispatch.COMMAND_WORDS == tuple(commands.COMMANDS)
     assert "settings" in shell.WORD_MODULES and "commands" in shell.WORD_MODULES
 
 
 def test_the_shell_joins_words_as_typed_does():
-    # shell.joined loads typed.join_words only when a line may need it; it gives what
+    # dispatch.joined loads typed.join_words only when a line may need it; it gives what
     # join_words gives on every line.
     from lapsecalc.typed import join_words
     lines = session_lines() + ["elev 6500 ft", "field elevation 411 m", "elr 8@2 km 6.5",
@@ -108,8 +108,8 @@ def test_the_shell_joins_words_as_typed_does():
                                "altimeter setting 29.92 inHg", "metar X 9999 FEW045 27/13",
                                "env 2800 m3 wt 450 kg", "temp 27", "at 700 hPa agl"]
     for line in lines:
-        words = shell.split_line(line)
-        assert shell.joined(words) == join_words(words), line
+        words = dispatch.split_line(line)
+        assert dispatch.joined(words) == join_words(words), line
 
 
 def test_word_modules_are_loaded_only_by_their_words():
@@ -258,7 +258,7 @@ def test_a_board_session_lets_go_of_the_report_before_a_line_that_never_reads_it
         restore_word_modules):
     # The report is kept between lines for the words that read it, and let go of
     # before a balloon, loads, sunset, show, iso, at, da H, cold or help line
-    # (shell._NO_REPORT),
+    # (dispatch._NO_REPORT),
     # a line of settings (even one refused, or one of the balloon's) and a clear; the
     # output is the same as a CPython session's, which keeps it.
     keep, drop = shell.Session(), shell.Session()
@@ -377,7 +377,7 @@ def test_the_parcel_path_and_at_need_no_report():
 
 def test_a_board_settings_line_lets_go_of_the_setting_words_before_the_column(
         restore_word_modules):
-    # The setting words' code (settings, aloftwords, metar, typed: shell.SETTING_MODULES)
+    # The setting words' code (settings, aloftwords, metar, typed: dispatch.SETTING_MODULES)
     # is let go of once the line's values are read and checked, before commit builds
     # the new state's Column; no setter loads the column's code for its bounds. (The
     # points aloft are checked after that: aloftwords.check_whole loads aloftwords

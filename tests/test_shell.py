@@ -16,7 +16,8 @@ from lapsecalc.column import Column
 from lapsecalc.condensation import cloud_base
 from lapsecalc.standard import density_altitude
 from lapsecalc.demo import DEMO_COLUMN, DEMO_LINES
-from lapsecalc.shell import Session, MAX_LINE, split_line, read_lines, split_ends, repl
+from lapsecalc.shell import Session, MAX_LINE, read_lines, split_ends, repl
+from lapsecalc.dispatch import split_line
 from lapsecalc.typed import number, nearest
 from lapsecalc.machine import kv_value
 from lapsecalc.queries import kv_report
@@ -1114,9 +1115,9 @@ def test_help_states_the_limits_of_parcel_and_balloon():
 
 
 def test_every_word_has_help_and_fits_the_screen():
-    from lapsecalc import shell
+    from lapsecalc import dispatch
     s = Session()
-    for word in list(shell.SETTING_WORDS) + list(shell._WORDS):
+    for word in list(dispatch.SETTING_WORDS) + list(dispatch.other_words()):
         out = s.feed("help " + word)
         assert out and not out[0].startswith("error"), word
         assert all(len(line) <= 40 for line in out), word
@@ -1437,14 +1438,14 @@ def test_no_room_to_retell_says_the_library_words(monkeypatch):
     # A refusal in the library's wording is retold in the user's terms by
     # lapsecalc.retell, loaded only then; with no room for that code the library's own
     # words are said, never a MemoryError out of feed().
-    from lapsecalc import shell, retell
+    from lapsecalc import queries, retell
 
     def refuses(s, w, args):
         raise ValueError("t_c=99 is outside -90..60 degC")
 
     def no_room(s, st, msg):
         raise MemoryError("memory allocation failed, allocating 1168 bytes")
-    monkeypatch.setitem(shell.QUERIES, "obs", refuses)
+    monkeypatch.setitem(queries.QUERIES, "obs", refuses)
     s = Session()
     s.feed("temp 27C dew 13C elev 400m")
     told = s.feed("obs")
@@ -1512,7 +1513,8 @@ def test_a_refusal_is_worded_after_the_line_lets_go_and_never_fails(monkeypatch)
 
     def no_room(text, n):
         raise MemoryError("memory allocation failed, allocating 640 bytes")
-    monkeypatch.setattr(shell, "shown", no_room)
+    from lapsecalc import dispatch
+    monkeypatch.setattr(dispatch, "shown", no_room)
     assert s.feed("temp 99C") == ["error: cannot compute that", "  (MemoryError); nothing changed"]
     s.mode = "kv"
     assert s.feed("frob") == ["error=cannot compute that (MemoryError); nothing changed"]

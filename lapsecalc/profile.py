@@ -75,17 +75,29 @@ def build(col, t_c, td_c, p_hpa, elev_m, lapse, top_m, aloft, tropopause_m):
         z, t, p = from_points(col, aloft, layers, top)
     tops = _tops(lapse, col.elev_m, top)
     if trop is not None:
-        # Isothermal above the tropopause, unless a layer starts above it (or the
-        # points go past it: then from the last point). A tropopause on a layer's foot
-        # makes that layer isothermal (its zero-length part below is skipped).
-        below = col.elev_m
-        for i in range(len(tops)):
-            z_top, rate = tops[i]
-            if below <= trop < z_top:
-                tops[i:i + 1] = [(trop, rate), (z_top, 0.0)]
-                col.tropopause_m = trop if trop > z else z
-                break
-            below = z_top
+        _tropopause(col, tops, trop, z)
+    _lay(col, tops, layers, z, t, p, trop, top)
+
+
+def _tropopause(col, tops, trop, z):
+    # Isothermal above the tropopause trop (m MSL), unless a layer starts above it (or
+    # the points go past it, up to z: then from the last point). A tropopause on a
+    # layer's foot makes that layer isothermal (its zero-length part below is skipped).
+    below = col.elev_m
+    for i in range(len(tops)):
+        z_top, rate = tops[i]
+        if below <= trop < z_top:
+            tops[i:i + 1] = [(trop, rate), (z_top, 0.0)]
+            col.tropopause_m = trop if trop > z else z
+            return
+        below = z_top
+
+
+def _lay(col, tops, layers, z, t, p, trop, top):
+    # The assumed ELR's layers (tops) laid on layers from z (m MSL), t (K), p (hPa) up,
+    # ending where the air would pass -90 degC; col's layers, top_m and end_why set.
+    # (Apart from build: on a board each function's code is one piece of heap, and a
+    # Column built after a report finds only small ones.)
     for z_top, rate in tops:
         if z_top <= z:
             continue

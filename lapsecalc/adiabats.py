@@ -8,15 +8,16 @@ from math import exp, log, sqrt, ceil, fabs
 from lapsecalc.constants import G0, R_DRY, CP_DRY, EPS, LV0, T0_K, KAPPA
 from lapsecalc.limits import check, check_t, check_p
 from lapsecalc.moisture import _es_water
+from lapsecalc.limits import const
 
 # Most RK4 steps one call may take; the default step in ln p (about 100 hPa near 1000
 # hPa: within 3e-5 K of a fine integration from 1000 to 200 hPa, see bench/).
-_ASCENT_CAP = 2000
+_ASCENT_CAP = const(2000)
 DEFAULT_DLNP = 0.1
 # Lv^2 eps / Rd, the constant of the pseudo-adiabat's denominator, J K / kg.
 _LV2_EPS_RD = LV0 * LV0 * EPS / R_DRY
 # Parcel temperature below which no vapour is counted, K (-150 degC).
-_DRY_T_K = 123.15
+_DRY_T_K = const(123.15)
 
 
 def _rs(t_k, p_hpa):

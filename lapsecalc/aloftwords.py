@@ -12,11 +12,12 @@ from lapsecalc.limits import T_MIN_C, T_MAX_C, DEW_SLACK_K, TOP_MAX_M
 from lapsecalc.aliases import shown
 from lapsecalc.output import f_h1, f_t, f_p
 from lapsecalc.state import DEFAULT_TOP_M, fl_pressure_hpa
+from lapsecalc.limits import const
 
 # At most this many points (a board's session heap).
-MAX_POINTS = 24
+_MAX_POINTS = const(24)
 # Two points closer than this (m, or hPa) are one level: the new one replaces the old.
-_SAME = 0.01
+_SAME = const(0.01)
 
 
 def _level(pt, by_p=True):
@@ -88,9 +89,9 @@ def set_aloft(s, new, args, parse_level):
             j += 1
         pts.insert(j, pt)
         told.append("%s %s" % (shown(lev), shown(tt)))
-    if len(pts) > MAX_POINTS:
+    if len(pts) > _MAX_POINTS:
         raise ValueError("%d points; accepted at most %d (clear aloft forgets them)"
-                         % (len(pts), MAX_POINTS))
+                         % (len(pts), _MAX_POINTS))
     new["aloft"] = tuple(pts)
     return "aloft %s, %d point%s set" % (", ".join(told), len(pts),
                                           "" if len(pts) == 1 else "s")

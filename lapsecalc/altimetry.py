@@ -21,16 +21,17 @@ from lapsecalc.units import M_PER_FT
 # loads it); they are this module's API too.
 from lapsecalc.indicated import (indicated_altitude_at, add_to_report, isa_t_c,
                                  TROPOPAUSE_M, COLD_WARNING_K)
+from lapsecalc.limits import const
 
 # Flight levels accepted, hundreds of feet: up to the top of the ISA tables (32 km).
-FL_MIN = 0.0
-FL_MAX = 1000.0
+_FL_MIN = const(0.0)
+_FL_MAX = const(1000.0)
 # A reading this close past an end of the column is that end, m: more than float32
 # rounding of a reading (up to 0.1 m at 15 km, tests/test_float32.py), under a metre.
-_END_SLACK_M = 0.5
+_END_SLACK_M = const(0.5)
 # The flight levels named in a refusal: a column end within this many FL of a whole
 # level (0.1 ft, far above float32 rounding) is that level, not the one below.
-_FL_SLACK = 0.001
+_FL_SLACK = const(0.001)
 
 
 def flight_level(p_hpa):
@@ -93,7 +94,7 @@ def true_altitude_of(col, indicated_m):
 def z_at_flight_level(col, fl):
     """True height, m MSL, of flight level fl (hundreds of feet of pressure altitude,
     0..1000) in the column."""
-    f = check("fl", fl, FL_MIN, FL_MAX, "(flight level, hundreds of ft)")
+    f = check("fl", fl, _FL_MIN, _FL_MAX, "(flight level, hundreds of ft)")
     p = isa(f * 100.0 * M_PER_FT)[1]
     top_p = col.p_at(col.top_m)
     if p > col.p_hpa or p < top_p:

@@ -8,12 +8,13 @@ lapsecalc.gasballoon (a board loads the one it flies)."""
 #     air - mass of the gas inside, per m3 the difference of the two densities.
 #   Moist air through the virtual temperature (Wallace & Hobbs, Atmospheric Science,
 #     2nd ed., eq. 3.60), as in standard._density and Column.density_at.
-#   Oxygen heights: see OXYGEN_LONG_M.
+#   Oxygen heights: see _OXYGEN_LONG_M.
 from math import isfinite
 from lapsecalc.constants import EPS
 from lapsecalc.limits import check
 from lapsecalc.standard import _density, pressure_altitude
 from lapsecalc.moisture import _es_water
+from lapsecalc.limits import const
 
 # Input ranges.
 # Total weight, kg: 20000 kg is above anything the balloons' volumes lift (the least
@@ -23,22 +24,22 @@ WEIGHT_MAX_KG = 20000.0
 # altitude for longer than 30 minutes and above 13,000 ft at all times (ICAO-style
 # rules; others use 12,500 and 14,000 ft). Common practice, from memory: the user
 # must check the rules that apply. Pressure altitude, m (exact from ft).
-OXYGEN_LONG_M = 3048.0
-OXYGEN_ALWAYS_M = 3962.4
+_OXYGEN_LONG_M = const(3048.0)
+_OXYGEN_ALWAYS_M = const(3962.4)
 # Densities the plain formulas accept, kg/m3 (ISA at 32 km is 0.0132; -90 degC air at
 # 1100 hPa is 2.09).
 RHO_MIN_KG_M3 = 0.001
 RHO_MAX_KG_M3 = 2.5
 # Heights: the per-1000-ft changes are taken over this step, m (1000 ft exact).
-FT1000_M = 304.8
+_FT1000_M = const(304.8)
 # Height solvers: scan steps of at most _SCAN_M (also ending at every ELR layer top),
 # then regula falsi until the bracket is narrower than _TOL_M (float32 resolves about
 # 0.004 m at 32 km), at most _CAP steps. The step size is not what makes the scan sound
 # (see first_drop); 1000 m keeps a board's balloon line cheap (each lift costs about
 # 0.7 KB of heap there).
-_SCAN_M = 1000.0
+_SCAN_M = const(1000.0)
 _TOL_M = 0.1
-_CAP = 40
+_CAP = const(40)
 
 
 def first_drop(col, f, z_from_m):
@@ -132,29 +133,29 @@ def _per_1000ft(col, z_m, f):
     # Change of f over the 1000 ft above z_m (the 1000 ft below it near the column
     # top; the whole column if it is shallower), scaled to 1000 ft. None if f is.
     za = z_m
-    zb = z_m + FT1000_M
+    zb = z_m + _FT1000_M
     if zb > col.top_m:
         zb = col.top_m
-        za = zb - FT1000_M
+        za = zb - _FT1000_M
         if za < col.elev_m:
             za = col.elev_m
     fa, fb = f(za), f(zb)
     if fa is None or fb is None:
         return None
-    return (fb - fa) * FT1000_M / (zb - za)
+    return (fb - fa) * _FT1000_M / (zb - za)
 
 
 def oxygen_note(col, heights):
     """A note (str) when any of heights, (label, m MSL inside col or None) pairs,
     passes the pressure altitudes at which regulations commonly require supplemental
-    oxygen (OXYGEN_LONG_M, OXYGEN_ALWAYS_M; common practice); None when none does."""
+    oxygen (_OXYGEN_LONG_M, _OXYGEN_ALWAYS_M; common practice); None when none does."""
     worst = None
     for label, z in heights:
         if z is None:
             continue
         p = col.p_at(z)
         pa = pressure_altitude(p) if p > 8.68 else 32000.0
-        if pa > OXYGEN_LONG_M and (worst is None or pa > worst[1]):
+        if pa > _OXYGEN_LONG_M and (worst is None or pa > worst[1]):
             worst = (label, pa, z)
     if worst is None:
         return None
@@ -162,4 +163,4 @@ def oxygen_note(col, heights):
     return ("Oxygen: the %s, %.0f m MSL (%.0f ft pressure altitude), passes %s; rules"
             " commonly require it above 10000 ft for over 30 min, 13000 ft always (common"
             " practice). Check your local regulations."
-            % (label, z, pa / 0.3048, "13000 ft" if pa > OXYGEN_ALWAYS_M else "10000 ft"))
+            % (label, z, pa / 0.3048, "13000 ft" if pa > _OXYGEN_ALWAYS_M else "10000 ft"))

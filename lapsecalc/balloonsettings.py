@@ -8,15 +8,16 @@ MicroPython; loaded only by a line that sets one)."""
 from lapsecalc.limits import T_MIN_C
 from lapsecalc.typed import shown, value, said
 from lapsecalc.settings import echo
+from lapsecalc.limits import const
 
 # As lapsecalc.hotair.MARGIN_MAX_K, MAX_ENVELOPE_T_MIN_C (the least maximum envelope
 # temperature a maker may state), ENVELOPE_T_MAX_C and lapsecalc.gasballoon's
 # SUPERHEAT_MAX_K (not imported here: the balloon modules load only for the balloon
 # words; tests/test_settings_limits.py holds them equal).
-_MARGIN_MAX_K = 60.0
-_SUPERHEAT_MAX_K = 50.0
-_TMAX_MIN_C = 50.0
-_ENVELOPE_T_MAX_C = 150.0
+_MARGIN_MAX_K = const(60.0)
+_SUPERHEAT_MAX_K = const(50.0)
+_TMAX_MIN_C = const(50.0)
+_ENVELOPE_T_MAX_C = const(150.0)
 
 
 def _s_amount(key, kind, lo, hi, unit, name):

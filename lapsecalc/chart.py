@@ -5,14 +5,15 @@ lapsecalc.chartsvg, over the frame and marks here)."""
 # Both forms return text; writing a file is the command line's job.
 from math import floor, ceil
 from lapsecalc.units import m_to_ft, c_to_f
+from lapsecalc.limits import const
 
 ROWS = 16
-WIDTH = 40
+_WIDTH = const(40)
 # Columns of the text plot: 5 label + "|" + plot + "|" + 1 icing margin + 5 for the
-# marker letters = WIDTH. The icing band is marked in its margin column, not across the
+# marker letters = _WIDTH. The icing band is marked in its margin column, not across the
 # plot, so the curves inside the band stay visible. Letters sharing a row are joined by
 # "+" ("F+L"), so that two never read as a word or a code (as "FL" would).
-_PLOT_W = WIDTH - 13
+_PLOT_W = _WIDTH - 13
 _MARKS_PER_ROW = 3
 # Right-margin letters: report key -> letter, in the order they are written.
 MARKS = (("cloud_base_msl_m", "B"), ("freezing_level_msl_m", "F"), ("lfc_msl_m", "L"),
@@ -170,7 +171,7 @@ def draw(fig, rep, h_unit="ft", t_unit="c", rows=ROWS):
         out.append(("%s|%s|%s%s" % (label, "".join(cells), ":" if icing else " ",
                                     marks.get(r, ""))).rstrip())
     out.append("     +" + "-" * _PLOT_W + "+")
-    ticks = [" "] * (WIDTH - 2)
+    ticks = [" "] * (_WIDTH - 2)
     for t in (t_lo, t_hi) + ((0.0 if t_unit == "c" else 32.0,) if x0 is not None else ()):
         s = "%d" % round(t)
         pos = 6 + x(t) - len(s) // 2

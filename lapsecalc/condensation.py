@@ -8,10 +8,11 @@ from math import exp, log, sqrt, pow, fabs
 from lapsecalc.constants import G0, R_DRY, EPS, KAPPA, T0_K, DRY_LAPSE_K_PER_KM
 from lapsecalc.moisture import _es_water
 from lapsecalc.limits import check_p, check_dew, finite
+from lapsecalc.limits import const
 
-_LAMBERT_CAP = 12
-_LAMBERT_TOL = 1e-6
-SPREAD_M_PER_C = 125.0
+_LAMBERT_CAP = const(12)
+_LAMBERT_TOL = const(1e-6)
+_SPREAD_M_PER_C = const(125.0)
 
 
 def lambert_w_minus1(x):
@@ -123,7 +124,7 @@ def _bolton(t_c, td_c, p_hpa):
 def _spread(t_c, td_c, p_hpa):
     # The parcel rises dry: T falls at g/cp, and p follows Poisson's equation (exact
     # for that lapse rate in hydrostatic air).
-    z = SPREAD_M_PER_C * (t_c - td_c)
+    z = _SPREAD_M_PER_C * (t_c - td_c)
     t_lcl = t_c - DRY_LAPSE_K_PER_KM * z / 1000.0
     p_lcl = p_hpa * pow((t_lcl + T0_K) / (t_c + T0_K), 1.0 / KAPPA)
     return z, t_lcl, p_lcl

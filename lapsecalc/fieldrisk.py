@@ -13,10 +13,11 @@ carburettor icing band."""
 from math import exp, log
 from lapsecalc.limits import check, check_dew
 from lapsecalc.moisture import _AE_ICE, relative_humidity
+from lapsecalc.limits import const
 
 # Fog or low stratus likely at or under this temperature-dewpoint spread, K (common
 # practice).
-FOG_SPREAD_K = 3.0
+_FOG_SPREAD_K = const(3.0)
 # Carburettor icing bands, most serious first: (band, lowest and highest air
 # temperature degC, least RH over water %). Every edge (-10, 20, 30, 35, 38 degC; 80,
 # 60, 50, 30 %) is recalled from the chart of the UK CAA Safety Sense Leaflet 14
@@ -91,7 +92,7 @@ def fog_risk(t_c, td_c):
     """True when the temperature-dewpoint spread is 3 K or less: fog or low stratus
     likely, the more so as the air cools (common practice)."""
     t_c, td_c = check_dew(t_c, td_c)
-    return t_c - td_c <= FOG_SPREAD_K
+    return t_c - td_c <= _FOG_SPREAD_K
 
 
 def add_keys(col, levels, r):

@@ -18,34 +18,35 @@ from lapsecalc.constants import R_DRY, T0_K
 from lapsecalc.limits import check, check_p
 from lapsecalc.balloon import (first_drop, _air, _z, _per_1000ft, oxygen_note, WEIGHT_MAX_KG,
                                RHO_MIN_KG_M3, RHO_MAX_KG_M3)
+from lapsecalc.limits import const
 
 # Molar masses, g/mol (= kg/kmol).
-M_AIR_G_MOL = 28.9644       # dry air, ICAO Doc 7488/3
-M_HELIUM_G_MOL = 4.0026     # helium, standard atomic weight rounded (from memory)
-M_HYDROGEN_G_MOL = 2.016    # hydrogen H2, twice the atomic weight 1.008 (from memory)
+_M_AIR_G_MOL = const(28.9644)  # dry air, ICAO Doc 7488/3
+_M_HELIUM_G_MOL = const(4.0026)  # helium, standard atomic weight rounded (from memory)
+_M_HYDROGEN_G_MOL = const(2.016)  # hydrogen H2, twice the atomic weight 1.008 (from memory)
 
 # Input ranges.
 # Gas envelope, m3: 0.1 admits pilot and toy balloons; 2e6 admits the largest
 # zero-pressure research balloons (about 1.1e6 m3; from memory). The gas at launch is
 # at most 100000 m3 (a research balloon launches with a small part of its volume).
-GAS_VOLUME_MIN_M3 = 0.1
-GAS_VOLUME_MAX_M3 = 100000.0
-ENVELOPE_MAX_M3 = 2.0e6
+_GAS_VOLUME_MIN_M3 = const(0.1)
+_GAS_VOLUME_MAX_M3 = const(100000.0)
+_ENVELOPE_MAX_M3 = const(2.0e6)
 # Total weight, kg: a small gas balloon can weigh grams.
-GAS_WEIGHT_MIN_KG = 0.01
+_GAS_WEIGHT_MIN_KG = const(0.01)
 # Superheat of the lifting gas over the outside air, K: 0..50 admits a dark envelope
 # in strong sun (tens of kelvin; common practice, from memory).
 SUPERHEAT_MAX_K = 50.0
 # Purity of the lifting gas, volume fraction; below one half it is mostly air.
-PURITY_MIN = 0.5
+_PURITY_MIN = const(0.5)
 
 
 def molar_mass(gas):
     """Molar mass, g/mol, of the lifting gas "helium" or "hydrogen" (from memory)."""
     if gas == "helium":
-        return M_HELIUM_G_MOL
+        return _M_HELIUM_G_MOL
     if gas == "hydrogen":
-        return M_HYDROGEN_G_MOL
+        return _M_HYDROGEN_G_MOL
     raise ValueError("gas=%r is not known; allowed helium or hydrogen" % (gas,))
 
 
@@ -58,11 +59,11 @@ def gas_density(p_hpa, t_c, gas, purity=1.0, superheat_k=0.0):
     rho = rho_dry_air(p, T) * (purity M_gas / M_air + 1 - purity), T = t_c + superheat.
     """
     m_gas = molar_mass(gas)
-    f = check("purity", purity, PURITY_MIN, 1.0, "(volume fraction of the gas; the rest air)")
+    f = check("purity", purity, _PURITY_MIN, 1.0, "(volume fraction of the gas; the rest air)")
     p = check_p("p_hpa", p_hpa)
     t = check("t_c", t_c, -90.0, 60.0, "degC")
     dt = check("superheat_k", superheat_k, 0.0, SUPERHEAT_MAX_K, "K")
-    return 100.0 * p / (R_DRY * (t + dt + T0_K)) * (f * m_gas / M_AIR_G_MOL + 1.0 - f)
+    return 100.0 * p / (R_DRY * (t + dt + T0_K)) * (f * m_gas / _M_AIR_G_MOL + 1.0 - f)
 
 
 def gas_lift_per_m3(rho_air_kg_m3, p_hpa, t_c, gas, purity=1.0, superheat_k=0.0):
@@ -85,7 +86,7 @@ def superheat_loss_kg(rho_air_kg_m3, t_air_c, gas_volume_m3, superheat_k):
     """
     rho = check("rho_air_kg_m3", rho_air_kg_m3, RHO_MIN_KG_M3, RHO_MAX_KG_M3, "kg/m3")
     t = check("t_air_c", t_air_c, -90.0, 60.0, "degC") + T0_K
-    v = check("gas_volume_m3", gas_volume_m3, 0.0, ENVELOPE_MAX_M3, "m3")
+    v = check("gas_volume_m3", gas_volume_m3, 0.0, _ENVELOPE_MAX_M3, "m3")
     dt = check("superheat_k", superheat_k, 0.0, SUPERHEAT_MAX_K, "K")
     return rho * v * dt / (t + dt)
 
@@ -134,11 +135,11 @@ def gas_report(col, gas, purity, gas_volume_m3, envelope_m3, weight_kg, z_m=None
     float height passes the oxygen heights), notes, warnings.
     """
     m_gas = molar_mass(gas)
-    f = check("purity", purity, PURITY_MIN, 1.0, "(volume fraction of the gas; the rest air)")
-    v_env = check("envelope_m3", envelope_m3, GAS_VOLUME_MIN_M3, ENVELOPE_MAX_M3, "m3")
-    v0 = check("gas_volume_m3", gas_volume_m3, GAS_VOLUME_MIN_M3, min(v_env, GAS_VOLUME_MAX_M3),
+    f = check("purity", purity, _PURITY_MIN, 1.0, "(volume fraction of the gas; the rest air)")
+    v_env = check("envelope_m3", envelope_m3, _GAS_VOLUME_MIN_M3, _ENVELOPE_MAX_M3, "m3")
+    v0 = check("gas_volume_m3", gas_volume_m3, _GAS_VOLUME_MIN_M3, min(v_env, _GAS_VOLUME_MAX_M3),
                "m3 (not more than envelope_m3)")
-    w = check("weight_kg", weight_kg, GAS_WEIGHT_MIN_KG, WEIGHT_MAX_KG, "kg")
+    w = check("weight_kg", weight_kg, _GAS_WEIGHT_MIN_KG, WEIGHT_MAX_KG, "kg")
     dt = check("superheat_k", superheat_k, 0.0, SUPERHEAT_MAX_K, "K")
     z = _z(col, z_m)
     # The result made first, with room for every key: on a board its table is one

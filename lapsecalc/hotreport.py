@@ -11,9 +11,10 @@ from lapsecalc.balloon import first_drop, _air, _z, _per_1000ft, oxygen_note, WE
 from lapsecalc.hotair import (hot_air_lift_per_m3, _hot_lift, _t_needed, working_envelope_t,
                               HOT_VOLUME_MIN_M3, HOT_VOLUME_MAX_M3, HOT_WEIGHT_MIN_KG,
                               MAX_ENVELOPE_T_MIN_C, MAX_ENVELOPE_T_MAX_C, DEFAULT_MARGIN_K)
+from lapsecalc.limits import const
 
 # An overload smaller than this fraction of the weight is rounding, not weight.
-_NOISE_KG_PER_KG = 1e-6
+_NOISE_KG_PER_KG = const(1e-6)
 
 
 def _ceiling(col, v, w, t_env, z_from):

@@ -7,9 +7,10 @@ aloft)."""
 #     dewpoint depression is at most 3 K (common practice; lapsecalc.aloft).
 # An extra on a board, loaded by lapsecalc.hazards for one report and dropped after it.
 from lapsecalc import parcel
+from lapsecalc.limits import const
 
 # Coldest temperature of the icing band, degC (common practice).
-ICING_COLDEST_C = -20.0
+_ICING_COLDEST_C = const(-20.0)
 
 
 def _lower(a, b):
@@ -47,9 +48,9 @@ def icing_band(col, levels, lcl_msl_m, cloud_top_msl_m, parcel_z0_msl_m):
     base in the column, the air never reaches 0 degC, or the cloud base is above the
     air's -20 degC level."""
     zs = col.crossings(0.0)
-    z20s = col.crossings(ICING_COLDEST_C)
+    z20s = col.crossings(_ICING_COLDEST_C)
     return _icing_band(col, levels, lcl_msl_m, cloud_top_msl_m, parcel_z0_msl_m,
-                       col.level(0.0, zs), col.level(ICING_COLDEST_C, z20s), None, zs + z20s)
+                       col.level(0.0, zs), col.level(_ICING_COLDEST_C, z20s), None, zs + z20s)
 
 
 def _icing_air(col, a, b, crossings):
@@ -67,7 +68,7 @@ def _icing_air(col, a, b, crossings):
         if hi - lo < 0.01:
             continue
         t = col.t_at(0.5 * (lo + hi))
-        if ICING_COLDEST_C <= t <= 0.0:
+        if _ICING_COLDEST_C <= t <= 0.0:
             if out and lo - out[-1][1] < 0.01:
                 out[-1][1] = hi
             else:
@@ -87,7 +88,7 @@ def icing_layers(col, clouds=None, crossings=None):
         from lapsecalc.aloft import cloud_layers
         clouds = cloud_layers(col)
     if crossings is None:
-        crossings = col.crossings(0.0) + col.crossings(ICING_COLDEST_C)
+        crossings = col.crossings(0.0) + col.crossings(_ICING_COLDEST_C)
     out = []
     for a, b in clouds:
         out.extend(_icing_air(col, a, b, crossings))
@@ -121,7 +122,7 @@ def _icing_band(col, levels, lcl_msl_m, cloud_top_msl_m, parcel_z0_msl_m, z0a, z
     convective = None
     if lcl_msl_m is not None and z0a is not None and (z20a is None or lcl_msl_m < z20a) \
             and cloud_top_msl_m is not None:
-        z20p = parcel.level(col, levels, ICING_COLDEST_C, lcl_msl_m)
+        z20p = parcel.level(col, levels, _ICING_COLDEST_C, lcl_msl_m)
         bottom = max(lcl_msl_m, _lower(z0a, parcel_z0_msl_m))
         top = _higher(z20a, z20p)
         if top is None or top > cloud_top_msl_m:
@@ -153,7 +154,7 @@ def add_keys(col, levels, r):
     crossings = pieces = None
     if clouds is not None:
         # Found once for every cloud layer (and the air above the highest dewpoint).
-        crossings = col.crossings(0.0) + col.crossings(ICING_COLDEST_C)
+        crossings = col.crossings(0.0) + col.crossings(_ICING_COLDEST_C)
         pieces = icing_layers(col, clouds, crossings)
     band = _icing_band(col, levels, lcl, cloud_top, r["parcel_freezing_level_msl_m"],
                        r["freezing_level_msl_m"], r["minus20_level_msl_m"], pieces, crossings)

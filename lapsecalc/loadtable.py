@@ -15,13 +15,14 @@ its 40-column text for the interpreter's loads word."""
 # its cells and let go of before the next.
 from math import floor
 from lapsecalc.limits import check
+from lapsecalc.limits import const
 
 # The load table: default field temperatures, degC, and row spacing, m; at most
-# TABLE_MAX rows or columns (a 40-column screen shows six temperatures).
+# _TABLE_MAX rows or columns (a 40-column screen shows six temperatures).
 TABLE_TEMPS_C = (-10.0, 0.0, 10.0, 20.0, 30.0, 40.0)
-TABLE_STEP_M = 500.0
-TABLE_DEPTH_M = 3000.0
-TABLE_MAX = 40
+_TABLE_STEP_M = const(500.0)
+_TABLE_DEPTH_M = const(3000.0)
+_TABLE_MAX = const(40)
 
 
 def _field_column(col, t):
@@ -41,8 +42,8 @@ def _heights(col, heights_msl_m, step_m, depth_m):
     if heights_msl_m is not None:
         from lapsecalc.balloon import _z
         hs = [_z(col, z) for z in heights_msl_m]
-        if not hs or len(hs) > TABLE_MAX:
-            raise ValueError("heights_msl_m has %d heights; allowed 1..%d" % (len(hs), TABLE_MAX))
+        if not hs or len(hs) > _TABLE_MAX:
+            raise ValueError("heights_msl_m has %d heights; allowed 1..%d" % (len(hs), _TABLE_MAX))
         return hs
     step = check("step_m", step_m, 50.0, 5000.0, "m")
     end = col.elev_m + check("depth_m", depth_m, 1.0, 40000.0, "m")
@@ -52,7 +53,7 @@ def _heights(col, heights_msl_m, step_m, depth_m):
     # The first multiple of the step above the field (floor: also below sea level);
     # one a metre or less above the field would repeat the field row.
     z = (floor(col.elev_m / step) + 1) * step
-    while z <= end and len(hs) < TABLE_MAX:
+    while z <= end and len(hs) < _TABLE_MAX:
         if z - col.elev_m > 1.0:
             hs.append(z)
         z += step
@@ -60,7 +61,7 @@ def _heights(col, heights_msl_m, step_m, depth_m):
 
 
 def load_table(col, volume_m3, envelope_t_c, max_envelope_t_c=None, empty_kg=None,
-               temps_c=TABLE_TEMPS_C, heights_msl_m=None, step_m=TABLE_STEP_M,
+               temps_c=TABLE_TEMPS_C, heights_msl_m=None, step_m=_TABLE_STEP_M,
                depth_m=None):
     """The greatest gross weight, kg, a hot-air balloon of volume_m3 (10..20000) lifts
     at the working envelope temperature envelope_t_c (-90..150 degC; not above
@@ -92,11 +93,11 @@ def load_table(col, volume_m3, envelope_t_c, max_envelope_t_c=None, empty_kg=Non
     if empty_kg is not None:
         empty = check("empty_kg", empty_kg, HOT_WEIGHT_MIN_KG, WEIGHT_MAX_KG, "kg")
     temps = list(temps_c)
-    if not temps or len(temps) > TABLE_MAX:
-        raise ValueError("temps_c has %d temperatures; allowed 1..%d" % (len(temps), TABLE_MAX))
+    if not temps or len(temps) > _TABLE_MAX:
+        raise ValueError("temps_c has %d temperatures; allowed 1..%d" % (len(temps), _TABLE_MAX))
     temps = [check("t_c", t, -60.0, 60.0, "degC (field temperature)") for t in temps]
     if depth_m is None:
-        depth_m = TABLE_DEPTH_M if empty is None else col.top_m - col.elev_m
+        depth_m = _TABLE_DEPTH_M if empty is None else col.top_m - col.elev_m
     hs = _heights(col, heights_msl_m, step_m, depth_m)
     # Rows made at their length (on a board a list grown item by item leaves holes
     # between the columns' pieces).

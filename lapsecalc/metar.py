@@ -9,9 +9,10 @@
 # cloud) is skipped. The field elevation is not in a METAR: the user gives it.
 from lapsecalc.units import inhg_to_hpa
 from lapsecalc.limits import check, check_dew, shown, QNH_MIN_HPA, QNH_MAX_HPA
+from lapsecalc.limits import const
 
 # Most groups read from one report (a report line is capped by the shell anyway).
-_MAX_GROUPS = 80
+_MAX_GROUPS = const(80)
 
 
 def _digits(s):

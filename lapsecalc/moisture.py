@@ -7,14 +7,15 @@
 from math import exp, log
 from lapsecalc.constants import EPS
 from lapsecalc.limits import check, check_t, check_p, check_dew
+from lapsecalc.limits import const
 
 # Alduchov & Eskridge (1996) coefficients: hPa, dimensionless, degC.
 _AE_A = 6.1094
-_AE_B = 17.625
-_AE_C = 243.04
+_AE_B = const(17.625)
+_AE_C = const(243.04)
 _AE_ICE = (6.1121, 22.587, 273.86)
-_WET_BULB_CAP = 40
-_WET_BULB_TOL_K = 0.005
+_WET_BULB_CAP = const(40)
+_WET_BULB_TOL_K = const(0.005)
 
 
 def _es_water(t_c):

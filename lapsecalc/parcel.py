@@ -6,6 +6,7 @@ from math import log, ceil, exp
 from lapsecalc.constants import T0_K, KAPPA
 from lapsecalc.standard import layer_pressure
 from lapsecalc.adiabats import moist_step
+from lapsecalc.limits import const
 
 # Largest spacing of the path's levels, m; they also fall on every layer boundary
 # and on the LCL, so the environment is linear between any two levels. 1250 m keeps a
@@ -13,12 +14,12 @@ from lapsecalc.adiabats import moist_step
 # the pseudo-adiabat); crossings are refined by temperature_at(), and CAPE's trapezoid
 # reads low by at most 15 J/kg + 1.5 % against a 2 m reference (README, Accuracy).
 MAX_STEP_M = 1250.0
-_MAX_LEVELS = 400
+_MAX_LEVELS = const(400)
 # Below this parcel temperature, K (-60 degC), less than 0.1 g/kg of vapour is left and
 # the pseudo-adiabat is followed as a dry adiabat (within 0.2 K), with levels up to
 # 5000 m apart: a board's report() then stays under 64 KiB of allocation even for a
 # column to 32 km with a deep isothermal stratosphere.
-_DRY_BELOW_K = 213.15
+_DRY_BELOW_K = const(213.15)
 
 
 def _saturated(t_k, p0_hpa, p1_hpa):

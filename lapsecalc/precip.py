@@ -14,18 +14,19 @@ from lapsecalc.constants import G0, T0_K, EPS
 from lapsecalc.standard import ratio_ln, layer_pressure
 from lapsecalc.moisture import _es_water, _AE_A, _mixing_ratio_kg_kg
 from lapsecalc.stability import _illinois
+from lapsecalc.limits import const
 
 # Bourgouin (2000) thresholds, J/kg (from memory): a warm layer aloft with less
 # melting area than this leaves snow; refreezing area above 66 + 0.66 * melting area
 # gives ice pellets, below 46 + 0.66 * melting area freezing rain, between both.
-BOURGOUIN_MELT_MIN_J_KG = 2.0
-BOURGOUIN_PELLETS_J_KG = 66.0
-BOURGOUIN_GLAZE_J_KG = 46.0
-BOURGOUIN_SLOPE = 0.66
+_BOURGOUIN_MELT_MIN_J_KG = const(2.0)
+_BOURGOUIN_PELLETS_J_KG = const(66.0)
+_BOURGOUIN_GLAZE_J_KG = const(46.0)
+_BOURGOUIN_SLOPE = const(0.66)
 # Bourgouin (2000), a warm layer at the ground (from memory): below 5.6 J/kg snow
 # reaches the ground, above 13.2 J/kg rain, between both a mix.
-BOURGOUIN_SURFACE_SNOW_J_KG = 5.6
-BOURGOUIN_SURFACE_RAIN_J_KG = 13.2
+_BOURGOUIN_SURFACE_SNOW_J_KG = const(5.6)
+_BOURGOUIN_SURFACE_RAIN_J_KG = const(13.2)
 
 
 def _area(col, a, b):
@@ -96,11 +97,11 @@ def warm_layer(col, seg=None):
 
 def _aloft_type(melt_j_kg, refreeze_j_kg):
     # Bourgouin (2000), a warm layer over a cold layer (from memory).
-    if melt_j_kg < BOURGOUIN_MELT_MIN_J_KG:
+    if melt_j_kg < _BOURGOUIN_MELT_MIN_J_KG:
         return "snow"
-    if refreeze_j_kg > BOURGOUIN_PELLETS_J_KG + BOURGOUIN_SLOPE * melt_j_kg:
+    if refreeze_j_kg > _BOURGOUIN_PELLETS_J_KG + _BOURGOUIN_SLOPE * melt_j_kg:
         return "pellets"
-    if refreeze_j_kg < BOURGOUIN_GLAZE_J_KG + BOURGOUIN_SLOPE * melt_j_kg:
+    if refreeze_j_kg < _BOURGOUIN_GLAZE_J_KG + _BOURGOUIN_SLOPE * melt_j_kg:
         return "glaze"
     return "glaze_or_pellets"
 
@@ -133,9 +134,9 @@ def precip_type(col, warm=None, seg=None):
 def _ground_type(kind, melt_j_kg):
     # Bourgouin (2000), from memory: what reaches the ground through a warm layer at the
     # ground with melting area melt_j_kg, falling into it as kind (snow or ice).
-    if melt_j_kg > BOURGOUIN_SURFACE_RAIN_J_KG:
+    if melt_j_kg > _BOURGOUIN_SURFACE_RAIN_J_KG:
         return "rain"
-    if melt_j_kg > BOURGOUIN_SURFACE_SNOW_J_KG:
+    if melt_j_kg > _BOURGOUIN_SURFACE_SNOW_J_KG:
         return "rain_or_snow"
     return "snow" if kind == "snow" else "pellets"
 

@@ -13,6 +13,7 @@ from lapsecalc.limits import T_MIN_C, T_MAX_C, ELEV_MIN_M, ELEV_MAX_M, DEW_SLACK
 from lapsecalc.limits import QNH_MIN_HPA, QNH_MAX_HPA, P_MAX_HPA, TOP_MAX_M
 from lapsecalc.typed import number, shown, value, said, unit_of, digits, in_unit
 from lapsecalc.output import f_h1, f_t, f_dt, f_p, f_lapse
+from lapsecalc.limits import const
 
 try:
     from micropython import const
@@ -24,11 +25,11 @@ _MAX_LAYERS = const(12)
 # No field has a station pressure under that of the highest field (elev 9000 m) on
 # the lowest QNH (850 hPa), 246.4 hPa (standard.station_pressure): 240 hPa is a
 # round bound below it, so that 29.92 typed bare (inches) is refused with a hint.
-_STN_MIN_HPA = 240.0
+_STN_MIN_HPA = const(240.0)
 # Above these a temperature or dewpoint read as degC is hotter than any surface
 # observation (world records about 57 C and 35 C, from memory): likely typed in F.
-_HOT_T_C = 50.0
-_HOT_TD_C = 32.0
+_HOT_T_C = const(50.0)
+_HOT_TD_C = const(32.0)
 
 
 def parse_level(tok):

@@ -14,11 +14,12 @@ from lapsecalc.moisture import _dewpoint_from_e
 from lapsecalc.adiabats import moist_lapse_k_per_km
 from lapsecalc.standard import layer_pressure
 from lapsecalc import parcel
+from lapsecalc.limits import const
 
 # A lapse rate this close to a reference rate is called neutral, K/km.
-NEUTRAL_BAND_K_PER_KM = 0.1
+_NEUTRAL_BAND_K_PER_KM = const(0.1)
 # Deepest band one stability class speaks for, m (the saturated rate varies with height).
-BAND_M = 2000
+_BAND_M = const(2000)
 # The general cautions of every full report (lapsecalc.hazards puts one line per hazard
 # present before them).
 CAUTIONS = (
@@ -27,8 +28,8 @@ CAUTIONS = (
     "Not an official forecast or briefing: use the official forecasts and briefings.",
     "Follow the flight manual, local regulations and licensed practice.",
 )
-_CCL_CAP = 40
-_CCL_TOL_M = 0.5
+_CCL_CAP = const(40)
+_CCL_TOL_M = const(0.5)
 
 def classify(lapse_k_per_km, saturated_k_per_km):
     """Stability class of a layer with the given ELR against the dry rate and the
@@ -36,9 +37,9 @@ def classify(lapse_k_per_km, saturated_k_per_km):
     0.1 K/km of the saturated rate: saturated air neither rises nor sinks on its own),
     conditionally_unstable, dry_neutral (within 0.1 K/km of the dry rate: so for
     unsaturated air), absolutely_unstable."""
-    if fabs(lapse_k_per_km - DRY_LAPSE_K_PER_KM) <= NEUTRAL_BAND_K_PER_KM:
+    if fabs(lapse_k_per_km - DRY_LAPSE_K_PER_KM) <= _NEUTRAL_BAND_K_PER_KM:
         return "dry_neutral"
-    if fabs(lapse_k_per_km - saturated_k_per_km) <= NEUTRAL_BAND_K_PER_KM:
+    if fabs(lapse_k_per_km - saturated_k_per_km) <= _NEUTRAL_BAND_K_PER_KM:
         return "saturated_neutral"
     if lapse_k_per_km > DRY_LAPSE_K_PER_KM:
         return "absolutely_unstable"
@@ -47,7 +48,7 @@ def classify(lapse_k_per_km, saturated_k_per_km):
     return "conditionally_unstable"
 
 
-def layers(col, max_depth_m=BAND_M):
+def layers(col, max_depth_m=_BAND_M):
     """Stability of every ELR layer, bottom first: a list of dicts (bottom_msl_m,
     top_msl_m, lapse_k_per_km, saturated_k_per_km at mid-layer, class). A cooling
     layer deeper than max_depth_m is split into equal bands no deeper than that,

@@ -10,14 +10,15 @@ from lapsecalc.constants import (G0, R_DRY, T0_K, ISA_T0_K, ISA_P0_HPA,
                                   ISA_LAPSE_K_PER_M)
 from lapsecalc.limits import (check, check_t, check_p, check_elev, check_dew,
                               QNH_MIN_HPA, QNH_MAX_HPA)
+from lapsecalc.limits import const
 
-ISA_MIN_M = -1000
-ISA_MAX_M = 32000
+_ISA_MIN_M = const(-1000)
+_ISA_MAX_M = const(32000)
 # Densities isa_height_of_density accepts, kg/m3: about the ISA density at 32000 m
 # (0.01323; the exact limit is checked after solving) up to more than air at -90 degC
 # and 1100 hPa (2.09).
-_RHO_MIN_KG_M3 = 0.0132
-_RHO_MAX_KG_M3 = 2.5
+_RHO_MIN_KG_M3 = const(0.0132)
+_RHO_MAX_KG_M3 = const(2.5)
 # Layer bases, m, and temperature gradients dT/dh, K per m (ICAO Doc 7488/3).
 _BASES_M = (-1000, 11000, 20000)
 _GRADS_K_PER_M = (-0.0065, 0, 0.001)
@@ -73,7 +74,7 @@ def isa(h_m):
     Returns (t_c, p_hpa, rho_kg_m3). Doc 7488/3 layer equations (6.5 K/km to 11 km,
     isothermal to 20 km, -1 K/km to 32 km); matches the printed table to 0.01 %.
     """
-    h = check("h_m", h_m, ISA_MIN_M, ISA_MAX_M, "m")
+    h = check("h_m", h_m, _ISA_MIN_M, _ISA_MAX_M, "m")
     base, t0, grad, p0 = _isa_layer(h)
     t = t0 + grad * (h - base)
     p = layer_pressure(p0, t0, grad, h - base)
@@ -167,9 +168,9 @@ def isa_height_of_density(rho_kg_m3):
         z = _height_of_density(rho_kg_m3, _BASES_M[1])
         if z > _BASES_M[2]:
             z = _height_of_density(rho_kg_m3, _BASES_M[2])
-    if z > ISA_MAX_M:
+    if z > _ISA_MAX_M:
         raise ValueError("rho_kg_m3=%.4g is below the ISA density at %g m; allowed %.4f..%g"
-                         " kg/m3" % (rho_kg_m3, ISA_MAX_M, isa(ISA_MAX_M)[2], _RHO_MAX_KG_M3))
+                         " kg/m3" % (rho_kg_m3, _ISA_MAX_M, isa(_ISA_MAX_M)[2], _RHO_MAX_KG_M3))
     return z
 
 

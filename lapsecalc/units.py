@@ -4,11 +4,12 @@
 # Every conversion takes a number (int or float) within +-1e30 and refuses anything
 # else (text, None, NaN, infinities, huge ints) with ValueError.
 from lapsecalc.limits import finite as _finite
+from lapsecalc.limits import const
 
 M_PER_FT = 0.3048
-HPA_PER_INHG = 33.8639
-HPA_PER_MMHG = 1.33322
-KG_PER_LB = 0.45359237
+_HPA_PER_INHG = const(33.8639)
+_HPA_PER_MMHG = const(1.33322)
+_KG_PER_LB = const(0.45359237)
 M_S_PER_KT = 1852.0 / 3600.0
 M3_PER_FT3 = M_PER_FT * M_PER_FT * M_PER_FT
 
@@ -52,19 +53,19 @@ def c_to_k(t_c):
 
 
 def inhg_to_hpa(inhg):
-    return _lin(inhg, HPA_PER_INHG)
+    return _lin(inhg, _HPA_PER_INHG)
 
 
 def hpa_to_inhg(hpa):
-    return _lin(hpa, 1.0, HPA_PER_INHG)
+    return _lin(hpa, 1.0, _HPA_PER_INHG)
 
 
 def mmhg_to_hpa(mmhg):
-    return _lin(mmhg, HPA_PER_MMHG)
+    return _lin(mmhg, _HPA_PER_MMHG)
 
 
 def hpa_to_mmhg(hpa):
-    return _lin(hpa, 1.0, HPA_PER_MMHG)
+    return _lin(hpa, 1.0, _HPA_PER_MMHG)
 
 
 def kpa_to_hpa(kpa):
@@ -110,11 +111,11 @@ def m_s_to_kt(m_s):
 
 
 def lb_to_kg(lb):
-    return _lin(lb, KG_PER_LB)
+    return _lin(lb, _KG_PER_LB)
 
 
 def kg_to_lb(kg):
-    return _lin(kg, 1.0, KG_PER_LB)
+    return _lin(kg, 1.0, _KG_PER_LB)
 
 
 def ft3_to_m3(ft3):

@@ -232,7 +232,7 @@ def test_line_need_table_under_the_unix_port(tmp_path):
         with open(lines, "w") as f:
             f.write("unit m C hPa\ntemp 27C dew 13C qnh 1016 elev 411m\nbase\n"
                     "base 5  #!error: takes no value\nbase\n")
-        proc = subprocess.run([mp, "-X", "heapsize=1024K", "lineneed.py", folder, lines],
+        proc = subprocess.run([mp, "-X", "heapsize=1024K", "lineneed.py", hardlimit.LIB, lines],
                               cwd=folder, stdout=subprocess.PIPE, universal_newlines=True,
                               timeout=120)
     finally:

@@ -50,28 +50,40 @@ def micropython_command(given=None):
     return None
 
 
+# Where the staged package lies, relative to the run's folder (and to its core/ folder,
+# where the report runs): the scripts get this relative path, as a board's package lies
+# at /lib (mip's default). A board interns each module's file path (its __file__), so
+# the measured heap holds paths of a board's length (./lib/lapsecalc/column.mpy, one
+# character more than /lib/lapsecalc/column.mpy), not of the temporary folder's (about
+# 35 characters more for each of some 60 modules: the session's hard limit on the
+# 32-bit build 75 -> 73 KiB, the core report's 33 -> 32 KiB).
+LIB = "./lib"
+
+
 def stage():
-    """A temporary folder with lapsecalc/*.mpy (the board modules), core/lapsecalc/*.mpy
-    (the core alone, package.json: what the report script measures) and the scripts."""
+    """A temporary folder with lib/lapsecalc/*.mpy (the board modules),
+    core/lib/lapsecalc/*.mpy (the core alone, package.json: what the report script
+    measures, run in core/) and the scripts (in both)."""
     tmp = tempfile.mkdtemp(prefix="lapsecalc-hardlimit-")
-    pkg = os.path.join(tmp, "lapsecalc")
-    os.mkdir(pkg)
+    pkg = os.path.join(tmp, "lib", "lapsecalc")
+    os.makedirs(pkg)
     names = [m + ".py" for m in boardset.board_modules()]
     compile_mpy.compile_all(boardset.PKG, pkg, names)
-    core = os.path.join(tmp, "core", "lapsecalc")
+    core = os.path.join(tmp, "core", "lib", "lapsecalc")
     os.makedirs(core)
     for m in boardset.core_modules():
         shutil.copy(os.path.join(pkg, m + ".mpy"), os.path.join(core, m + ".mpy"))
     for n in list(SCRIPTS.values()) + ["board_session.txt", "lineneed.py"]:
         shutil.copy(os.path.join(HERE, n), os.path.join(tmp, n))
+    shutil.copy(os.path.join(HERE, SCRIPTS["report"]), os.path.join(tmp, "core"))
     return tmp
 
 
 def run(mp, folder, what, heap_kib):
     """(ok, last output lines) of SCRIPTS[what] under a heap of heap_kib KiB."""
-    pkg_parent = os.path.join(folder, "core") if what == "report" else folder
-    cmd = [mp, "-X", "heapsize=%dK" % heap_kib, SCRIPTS[what], pkg_parent]
-    proc = subprocess.run(cmd, cwd=folder, stdout=subprocess.PIPE, stderr=subprocess.STDOUT,
+    cwd = os.path.join(folder, "core") if what == "report" else folder
+    cmd = [mp, "-X", "heapsize=%dK" % heap_kib, SCRIPTS[what], LIB]
+    proc = subprocess.run(cmd, cwd=cwd, stdout=subprocess.PIPE, stderr=subprocess.STDOUT,
                           universal_newlines=True, timeout=_TIMEOUT_S)
     tail = "\n".join(proc.stdout.strip().splitlines()[-3:])
     return proc.returncode == 0 and "OK" in tail, tail
@@ -106,7 +118,7 @@ def failing(mp, folder, heap_kib):
     """The session's lines that fail under a heap of heap_kib KiB (board_session.py's
     "line N failed: ..." lines, and a MemoryError outside a line), [] when it passes:
     which lines bind the hard limit."""
-    cmd = [mp, "-X", "heapsize=%dK" % heap_kib, SCRIPTS["session"], folder]
+    cmd = [mp, "-X", "heapsize=%dK" % heap_kib, SCRIPTS["session"], LIB]
     proc = subprocess.run(cmd, cwd=folder, stdout=subprocess.PIPE, stderr=subprocess.STDOUT,
                           universal_newlines=True, timeout=_TIMEOUT_S)
     return [x for x in proc.stdout.splitlines()
@@ -165,7 +177,7 @@ def main():
             for what in SCRIPTS:
                 print("smallest_heap_kib_%s=%s" % (what, smallest(mp, folder, what)))
         if args.lines:
-            proc = subprocess.run([mp, "-X", "heapsize=1024K", "lineneed.py", folder],
+            proc = subprocess.run([mp, "-X", "heapsize=1024K", "lineneed.py", LIB],
                                   cwd=folder, universal_newlines=True, timeout=_TIMEOUT_S * 5)
             failed += proc.returncode != 0
         for kib in args.at:

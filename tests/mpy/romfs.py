@@ -67,7 +67,7 @@ def main():
         return 0
     folder = hardlimit.stage()
     try:
-        img = image(os.path.join(folder, "lapsecalc"))
+        img = image(os.path.join(folder, "lib", "lapsecalc"))
         with open(os.path.join(folder, "lapsecalc.romfs"), "wb") as f:
             f.write(img)
         with open(os.path.join(folder, "rom_session.py"), "w") as f:

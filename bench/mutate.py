@@ -105,6 +105,8 @@ DEFAULT_TESTS = {
     "output": ["test_output.py"],
     "chart": ["test_chart.py"],
     "chartsvg": ["test_chart.py"],
+    "dispatch": ["test_dispatch.py", "test_settings_words.py", "test_shell.py",
+                 "test_refusal_words.py", "test_board_session.py"],
 }
 COPY = ("lapsecalc", "tests", "bench", "README.md", "DEVELOPERS.md", "pyproject.toml")
 

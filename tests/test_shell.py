@@ -268,6 +268,10 @@ def test_units_after_a_space_and_aliases():
         ("altimeter setting 1013 mb", ["ok: QNH 1013 mb"]),
         ("humidity 45 %", ["ok: rh 45 %"]),
         ("elr 9.5@250 m 6.5 K/km", ["ok: ELR 9.5@820ft 6.5 K/km"]),
+        # The number before the unit is the part after "@" (dispatch.joined): a rate
+        # typed with its unit before "@" still has its top's unit joined (250 m =
+        # 820.2 ft, 1 ft = 0.3048 m exactly).
+        ("elr 9.5K/km@250 m 6.5", ["ok: ELR 9.5@820ft 6.5 K/km"]),
     ])
     # A unit after a space works for queries too; "alt" is refused with both meanings.
     assert s.feed("at 3000 ft agl")[0].startswith("assumed") is False

@@ -154,3 +154,50 @@ def test_a_second_build_is_a_no_op(mp32):
     before = os.stat(mp32).st_mtime_ns
     assert hardlimit.board32.ensure(log=lambda msg: pytest.fail(msg)) == mp32
     assert os.stat(mp32).st_mtime_ns == before
+
+
+# The session's interned names against the pool they would open next: micropython32's
+# pools of names double, and the name that opens the next one takes a piece of about
+# 9 KiB at once, in the middle of a line (the session once crossed it, at 1270 names:
+# its hard limit 84 KiB where it needs 75 below it). The count where the heap jumps is
+# measured on the binary itself.
+POOL_PROBE = """import gc, micropython
+micropython.qstr_info()
+last = None
+for i in range(4000):
+    getattr(None, "zq%d" % i, None)
+    gc.collect()
+    a = gc.mem_alloc()
+    if last is not None and a - last > 8000:
+        print("jump", i, a - last)
+        break
+    last = a
+"""
+SESSION_NAMES = """import sys, micropython
+sys.path.insert(0, ".")
+import board_session
+board_session.main([%r])
+micropython.qstr_info()
+"""
+
+
+def _names(text):
+    # n_qstr of the last "qstr pool: ..." line micropython.qstr_info() printed.
+    pool = [x for x in text.splitlines() if x.startswith("qstr pool:")][-1]
+    return int(pool.split("n_qstr=")[1].split(",")[0])
+
+
+def test_the_session_names_stay_below_the_next_pool(mp32, staged):
+    probe = _run(mp32, staged, POOL_PROBE, heap="1024K")
+    assert probe.returncode == 0, probe.stderr
+    jump = [x.split() for x in probe.stdout.splitlines() if x.startswith("jump")][0]
+    # The big pool opens at the name after the names there at the start plus i.
+    opens_at = _names(probe.stdout) + int(jump[1]) + 1
+    assert int(jump[2]) < 12000  # a pool of about 9 KiB: the one the session must not open
+    run = _run(mp32, staged, SESSION_NAMES % hardlimit.LIB, heap="1024K")
+    assert run.returncode == 0, run.stdout[-500:] + run.stderr
+    assert "board session: 76 lines OK" in run.stdout or "lines OK" in run.stdout
+    used = _names(run.stdout)
+    # Room for about two new modules' names before the cliff; a word that needs more
+    # writes private constants as const() or takes names out first (DEVELOPERS.md).
+    assert used + 24 < opens_at, (used, opens_at)

@@ -31,6 +31,7 @@ package(
         "icing.py",
         "indicated.py",
         "layout.py",
+        "labels.py",
         "showword.py",
         "balloonwords.py",
         "atwords.py",

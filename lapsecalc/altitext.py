@@ -16,8 +16,9 @@ def _h_number(s, z_m):
 
 
 def _label(k):
-    # A key's text label: lapsecalc.layout's, or the hazard keys' (lapsecalc.hazardtext).
-    from lapsecalc.layout import LABELS, find_label
+    # A key's text label: lapsecalc.labels', or the hazard keys' (lapsecalc.hazardtext);
+    # the text layout's code is not loaded for it.
+    from lapsecalc.labels import LABELS, find_label
     lk = find_label(LABELS, k)
     if lk is None:
         try:
@@ -74,9 +75,12 @@ def cold_warning_text(s, warnings):
 
 
 def cold_warning_lines(s, warnings):
-    """The warning sentences as text lines, marked "!"."""
-    from lapsecalc.layout import wrap
-    return wrap(cold_warning_text(s, warnings), "!")
+    """The warning sentences as text lines, marked "!", at most 40 columns."""
+    from lapsecalc.output import wrap
+    out = []
+    for c in cold_warning_text(s, warnings):
+        out.extend(wrap(c, "! ", "  ", 40))
+    return out
 
 
 # The height above the field the report's cold-temperature line is for, by unit.

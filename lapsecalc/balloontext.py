@@ -39,7 +39,7 @@ def keys(word, r=None):
     return out
 
 
-# ";key:label:kind;" entries, as lapsecalc.layout.LABELS (one string, where a dict of
+# ";key:label:kind;" entries, as lapsecalc.labels.LABELS (one string, where a dict of
 # tuples cost a board about 7 KiB of heap), for the keys of lapsecalc.balloon's
 # reports; their warnings and notes are said as the report's ("!" and "-" lines).
 LABELS = (";"

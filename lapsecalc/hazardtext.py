@@ -1,7 +1,7 @@
 """Text-mode labels and words of the hazard keys (lapsecalc.hazards), loaded by the
 layout only when such a key is shown."""
 # Sources: none; labels and words only (40-column lines: a 13-column label, then the
-#   value). Tables as in lapsecalc.layout (one string each, read by layout.find);
+#   value). Tables as in lapsecalc.layout (one string each, read by labels.find);
 #   kinds as there; ztop: the icing band's top, "unknown" when a band has no known
 #   top; until: the dry-thermal trigger sentence; a third field q: no line at all when
 #   the value is None (a hazard not present).

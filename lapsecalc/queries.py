@@ -162,9 +162,11 @@ def _c_altimeter(s, w, args):
     # levels and cold: their numbers in lapsecalc.altiwords, then their text in
     # lapsecalc.altitext (each loaded for the line).
     if w == "levels":
-        # The report first (its heap peak), then the altimeter code.
+        # The report first (its heap peak), then, with the report's own code let go
+        # of (the Column stays), the altimeter code.
         no_args(w, args)
         s.report(w)
+        s.drop(("parcel", "stability", "hazards", "adiabats"))
     from lapsecalc.altiwords import altimeter_word
     keys, vals, warnings = altimeter_word(s, w, args)
     altimeter_word = None

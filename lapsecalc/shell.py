@@ -45,7 +45,7 @@ WORD_MODULES = PHYSICS_MODULES + (
     "limits", "settings", "commands", "units", "output", "machine", "groups", "helptext", "chart", "loadtable",
     "balloontext", "metar", "demo", "layout", "showword", "jsontext",
     "balloonwords", "atwords", "hazardtext", "altitext", "aloftwords",
-    "retell", "chartsvg", "balloonsettings", "dispatch", "queries", "aliases")
+    "retell", "chartsvg", "balloonsettings", "dispatch", "queries", "aliases", "labels")
 # The words whose report carries the altimetry keys (isa_deviation_c,
 # density_altitude_dry_m, indicated_altitude_m: Column.report(altimetry=True)).
 ALTIMETRY_WORDS = ("report", "obs", "da", "levels")
@@ -243,6 +243,13 @@ class Session:
         if self.drop_word_modules:
             import gc
             gc.collect()
+
+    def drop(self, names):
+        """On a board: let go of the lapsecalc modules names (the next import loads
+        them afresh) and collect. Nothing on CPython."""
+        if self.drop_word_modules:
+            drop_modules(names)
+            self.collect()
 
     def read_done(self):
         """On a board: let go of the number reader (lapsecalc.typed) once a word has

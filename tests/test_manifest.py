@@ -146,6 +146,7 @@ INTERPRETER_LAYERS = (
     ("altiwords",),
     ("altitext", "chartsvg", "balloontext"),
     ("layout", "chart", "metar", "helptext", "loadtable"),
+    ("labels",),  # the result keys' labels (layout and the altimeter text read them)
     ("retell",),  # the library's sentences in the user's terms (layout says warnings)
     ("aloftwords",),
     ("hotreport", "gasballoon", "groups", "output", "state", "typed", "hazardtext"),

@@ -175,7 +175,9 @@ def unix_ceiling_kib(what):
 # session 75 -> 74, report 33 -> 32 KiB (within the board budget), (b) session 110 ->
 # 109, report 49-50; ceilings (c) session 78 -> 77, report 36 -> 35, (b) session 113
 # -> 112.
-CEILINGS["board32_session_kib"] = 77
+# Then the levels word's text without the layout (labels.py) and without the report's
+# own code: (c) session 74 -> 73 KiB, ceiling 77 -> 76.
+CEILINGS["board32_session_kib"] = 76
 CEILINGS["board32_report_kib"] = 35
 
 

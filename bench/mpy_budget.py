@@ -483,6 +483,19 @@ def _kib(n):
     return "%6.1f KiB" % (n / float(KIB))
 
 
+def _hard_limit_rows(out, tag, name, short, port, limit_kib, ceiling_kib):
+    # The rows of one hard-limit measure ((b) or (c)): each run's smallest heap, its
+    # budget and its ceiling; a line saying why when it was skipped. True when measured.
+    if port["skipped"]:
+        out.append("%s %s hard limit: skipped (%s)" % (tag, name, port["skipped"]))
+        return False
+    for what in ("session", "report"):
+        out.append("%-24s %11s %11s %11s" % (
+            "%s %s, %s" % (tag, what, short), "%7s KiB" % port["smallest_heap_kib_" + what],
+            "%7d KiB" % limit_kib(what), "%7d KiB" % ceiling_kib(what)))
+    return True
+
+
 def table(res):
     b = res["budgets"]
     rows = [
@@ -522,24 +535,14 @@ def table(res):
         key = "board_%s_heap_bytes" % what
         out.append("%-24s %11s %11s %11s" % ("(a) %s, VM 32-bit" % what, _kib(res[key]),
                                               _kib(b[key]), _kib(c[key])))
-    if u["skipped"]:
-        out.append("(b) Unix port hard limit: skipped (%s)" % u["skipped"])
-    else:
-        for what in ("session", "report"):
-            out.append("%-24s %11s %11s %11s" % (
-                "(b) %s, Unix 64-bit" % what, "%7s KiB" % u["smallest_heap_kib_" + what],
-                "%7d KiB" % unix_limit_kib(what), "%7d KiB" % unix_ceiling_kib(what)))
+    if _hard_limit_rows(out, "(b)", "Unix port", "Unix 64-bit", u, unix_limit_kib,
+                        unix_ceiling_kib):
         out.append("word factor 64/32-bit measured %.2f (imports; session accounting %.2f, "
                    "Unix collecting between stages); limits use %.2f" % (
                        u["word_factor_import"], u["word_factor_measured"], WORD_FACTOR))
     b32 = res["board_board32"]
-    if b32["skipped"]:
-        out.append("(c) micropython32 hard limit: skipped (%s)" % b32["skipped"])
-    else:
-        for what in ("session", "report"):
-            out.append("%-24s %11s %11s %11s" % (
-                "(c) %s, board32" % what, "%7s KiB" % b32["smallest_heap_kib_" + what],
-                "%7d KiB" % board32_limit_kib(what), "%7d KiB" % board32_ceiling_kib(what)))
+    if _hard_limit_rows(out, "(c)", "micropython32", "board32", b32, board32_limit_kib,
+                        board32_ceiling_kib):
         out.append("word factor 64/32-bit of the smallest heaps, (b)/(c): session %s, "
                    "report %s" % (b32.get("word_factor_session"), b32.get("word_factor_report")))
     out.append("session: imports %s, most held %s, largest line %s" % (

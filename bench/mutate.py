@@ -107,6 +107,7 @@ DEFAULT_TESTS = {
     "chartsvg": ["test_chart.py"],
     "dispatch": ["test_dispatch.py", "test_settings_words.py", "test_shell.py",
                  "test_refusal_words.py", "test_board_session.py"],
+    "shell": ["test_shell.py", "test_jsontext.py", "test_board_session.py"],
 }
 COPY = ("lapsecalc", "tests", "bench", "README.md", "DEVELOPERS.md", "pyproject.toml")
 

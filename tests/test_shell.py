@@ -755,6 +755,17 @@ def test_kv_report_keys_are_the_report_keys():
     assert "warm_layer_aloft=0" in got and "el_above_top=0" in got
 
 
+def test_kv_mode_passes_only_key_value_lines():
+    # kv mode passes a line as it is only when it starts "#" or is key=value with a
+    # non-empty key of lower-case letters, digits and "_" (shell._is_kv); any other
+    # line gets "# " before it. No key of today's output has a 9 or one letter, so
+    # the rule's edges are checked on the function itself.
+    from lapsecalc.shell import _is_kv
+    assert _is_kv("t9=1") and _is_kv("a0_z=") and _is_kv("x=5")
+    assert not _is_kv("=1") and not _is_kv("T=1") and not _is_kv("a b=1")
+    assert not _is_kv("ab") and not _is_kv("a:=1")
+
+
 def test_balloon_kv():
     s = session("kv")
     col = demo_column()
@@ -937,6 +948,18 @@ def test_read_lines_takes_every_line_end():
     assert list(read_lines(io.StringIO(text))) == ["temp 20C", "dew 10C", "elev 0", "base"]
     cut = io.StringIO("x" * MAX_LINE + "\r\nend")
     assert list(read_lines(cut)) == ["x" * MAX_LINE, "end"]
+    # A read takes MAX_LINE + 2 characters: 257 and a CR fill the first, so the LF
+    # comes first in the next read (a cut CRLF), and is not a line of its own.
+    cut = io.StringIO("x" * (MAX_LINE + 1) + "\r\nend")
+    assert list(read_lines(cut)) == ["x" * (MAX_LINE + 1), "end"]
+    # An empty line is a line: only an LF just after a CR is dropped.
+    assert list(read_lines(io.StringIO("a\n\nb\r\n\n"))) == ["a", "", "b", ""]
+
+
+def test_read_lines_bounds_a_last_line_without_its_end():
+    # The last line with no line end is kept in part too (the same MAX_LINE + 2).
+    assert list(read_lines(io.StringIO("a" * 1000))) == ["a" * (MAX_LINE + 2)]
+    assert list(read_lines(io.StringIO("b\n" + "a" * 300))) == ["b", "a" * (MAX_LINE + 2)]
     assert list(read_lines(io.StringIO("last without end"))) == ["last without end"]
     assert list(read_lines(io.StringIO("a\r\rb"))) == ["a", "", "b"]
     assert split_ends("a\r\nb\rc\nd") == ["a", "b", "c", "d"]

@@ -6,9 +6,8 @@
 #   Saturation over liquid water: Alduchov & Eskridge (1996) eq. 21 (moisture.py).
 from math import exp, log, sqrt, ceil, fabs
 from lapsecalc.constants import G0, R_DRY, CP_DRY, EPS, LV0, T0_K, KAPPA
-from lapsecalc.limits import check, check_t, check_p
+from lapsecalc.limits import check, check_t, check_p, const
 from lapsecalc.moisture import _es_water
-from lapsecalc.limits import const
 
 # Most RK4 steps one call may take; the default step in ln p (about 100 hPa near 1000
 # hPa: within 3e-5 K of a fine integration from 1000 to 200 hPa, see bench/).

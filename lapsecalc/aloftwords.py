@@ -8,11 +8,10 @@
 # State keys (lapsecalc.state): "aloft", a tuple of points (kind, level, t_c, td_c or
 # None), kind "z" (level m MSL), "p" (hPa) or "fl" (flight level); lowest first.
 # "trop_m": the tropopause, m MSL, or None (off); absent means the ICAO 11000 m.
-from lapsecalc.limits import T_MIN_C, T_MAX_C, DEW_SLACK_K, TOP_MAX_M
+from lapsecalc.limits import T_MIN_C, T_MAX_C, DEW_SLACK_K, TOP_MAX_M, const
 from lapsecalc.aliases import shown
 from lapsecalc.output import f_h1, f_t, f_p
 from lapsecalc.state import DEFAULT_TOP_M, fl_pressure_hpa
-from lapsecalc.limits import const
 
 # At most this many points (a board's session heap).
 _MAX_POINTS = const(24)

@@ -14,14 +14,13 @@ levels, ISA deviation, the cold-temperature correction and cold-air warnings."""
 # altimeter set to the column's QNH reads, in metres.
 from math import ceil, floor
 from lapsecalc.constants import T0_K, ISA_T0_K, ISA_LAPSE_K_PER_M
-from lapsecalc.limits import check, check_t, check_elev
+from lapsecalc.limits import check, check_t, check_elev, const
 from lapsecalc.standard import isa, pressure_altitude, ratio_ln
 from lapsecalc.units import M_PER_FT
 # Indicated altitude and the report keys live in lapsecalc.indicated (small: report()
 # loads it); they are this module's API too.
 from lapsecalc.indicated import (indicated_altitude_at, add_to_report, isa_t_c,
                                  TROPOPAUSE_M, COLD_WARNING_K)
-from lapsecalc.limits import const
 
 # Flight levels accepted, hundreds of feet: up to the top of the ISA tables (32 km).
 _FL_MIN = const(0.0)

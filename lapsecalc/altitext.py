@@ -76,11 +76,8 @@ def cold_warning_text(s, warnings):
 
 def cold_warning_lines(s, warnings):
     """The warning sentences as text lines, marked "!", at most 40 columns."""
-    from lapsecalc.output import wrap
-    out = []
-    for c in cold_warning_text(s, warnings):
-        out.extend(wrap(c, "! ", "  ", 40))
-    return out
+    from lapsecalc.output import wrap_each
+    return wrap_each(cold_warning_text(s, warnings), "!")
 
 
 # The height above the field the report's cold-temperature line is for, by unit.

@@ -11,10 +11,9 @@ lapsecalc.gasballoon (a board loads the one it flies)."""
 #   Oxygen heights: see _OXYGEN_LONG_M.
 from math import isfinite
 from lapsecalc.constants import EPS
-from lapsecalc.limits import check
+from lapsecalc.limits import check, const
 from lapsecalc.standard import _density, pressure_altitude
 from lapsecalc.moisture import _es_water
-from lapsecalc.limits import const
 
 # Input ranges.
 # Total weight, kg: 20000 kg is above anything the balloons' volumes lift (the least

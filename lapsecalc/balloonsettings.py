@@ -5,10 +5,9 @@ MicroPython; loaded only by a line that sets one)."""
 #
 # As lapsecalc.settings' setters: f(session, new_state, args) -> the words of the "ok"
 # line; the table there names this module for these words.
-from lapsecalc.limits import T_MIN_C
+from lapsecalc.limits import T_MIN_C, const
 from lapsecalc.typed import shown, value, said
 from lapsecalc.settings import echo
-from lapsecalc.limits import const
 
 # As lapsecalc.hotair.MARGIN_MAX_K, MAX_ENVELOPE_T_MIN_C (the least maximum envelope
 # temperature a maker may state), ENVELOPE_T_MAX_C and lapsecalc.gasballoon's

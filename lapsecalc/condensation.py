@@ -7,8 +7,7 @@
 from math import exp, log, sqrt, pow, fabs
 from lapsecalc.constants import G0, R_DRY, EPS, KAPPA, T0_K, DRY_LAPSE_K_PER_KM
 from lapsecalc.moisture import _es_water
-from lapsecalc.limits import check_p, check_dew, finite
-from lapsecalc.limits import const
+from lapsecalc.limits import check_p, check_dew, finite, const
 
 _LAMBERT_CAP = const(12)
 _LAMBERT_TOL = const(1e-6)

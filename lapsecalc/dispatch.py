@@ -1,13 +1,13 @@
 """A line's words read and its first word found in the word tables; a line of settings
-applied; a refused line worded (runs on MicroPython; loaded by Session.feed for each
+read and checked; a refused line worded (runs on MicroPython; loaded by Session.feed for each
 line and, on a board, let go of before the word runs)."""
 # Sources: none of its own.
 #
 # Session.feed (lapsecalc.shell) calls find(s, line): the word's function and its
 # arguments come back, and on a board this module (and the word tables) is let go of
 # before the word computes, so a report's heap never holds the reading of the line.
-# A line of settings is applied here, all-or-nothing: every new value goes into a copy
-# of the state, and only a line that passed every check replaces it (Session.commit).
+# A line of settings is read here into a copy of the state (read_settings); only a line
+# that passed every check replaces the state (Session.commit, with the new Column).
 from lapsecalc.aliases import ALIASES, PAIRS, shown, split_number, starts_number
 
 # The setting words (lapsecalc.settings.SETTINGS) and the session words

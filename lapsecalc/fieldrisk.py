@@ -11,9 +11,8 @@ carburettor icing band."""
 #     is recalled from that chart (from memory), approximate: check the leaflet.
 # An extra on a board, loaded by lapsecalc.hazards for one report and dropped after it.
 from math import exp, log
-from lapsecalc.limits import check, check_dew
+from lapsecalc.limits import check, check_dew, const
 from lapsecalc.moisture import _AE_ICE, relative_humidity
-from lapsecalc.limits import const
 
 # Fog or low stratus likely at or under this temperature-dewpoint spread, K (common
 # practice).

@@ -15,10 +15,9 @@ a zero-pressure balloon: lift, pressure (full) height, float height, superheat."
 #   its impurity is dry air; purity is a volume (mole) fraction. The fill is the gas
 #   volume at the field at the ambient temperature (before any superheat).
 from lapsecalc.constants import R_DRY, T0_K
-from lapsecalc.limits import check, check_p
+from lapsecalc.limits import check, check_p, const
 from lapsecalc.balloon import (first_drop, _air, _z, _per_1000ft, oxygen_note, WEIGHT_MAX_KG,
                                RHO_MIN_KG_M3, RHO_MAX_KG_M3)
-from lapsecalc.limits import const
 
 # Molar masses, g/mol (= kg/kmol).
 _M_AIR_G_MOL = const(28.9644)  # dry air, ICAO Doc 7488/3

@@ -6,12 +6,11 @@ at the maker's maximum, with warnings and notes."""
 # Assumptions (stated in the notes): as lapsecalc.hotair's (the envelope holds ambient
 #   air heated at the same pressure and humidity; the envelope temperature is the mean
 #   of the envelope air).
-from lapsecalc.limits import check
+from lapsecalc.limits import check, const
 from lapsecalc.balloon import first_drop, _air, _z, _per_1000ft, oxygen_note, WEIGHT_MAX_KG, _TOL_M
 from lapsecalc.hotair import (hot_air_lift_per_m3, _hot_lift, _t_needed, working_envelope_t,
                               HOT_VOLUME_MIN_M3, HOT_VOLUME_MAX_M3, HOT_WEIGHT_MIN_KG,
                               MAX_ENVELOPE_T_MIN_C, MAX_ENVELOPE_T_MAX_C, DEFAULT_MARGIN_K)
-from lapsecalc.limits import const
 
 # An overload smaller than this fraction of the weight is rounding, not weight.
 _NOISE_KG_PER_KG = const(1e-6)

@@ -2,7 +2,7 @@
 # Sources: none; labels and units only. Every line fits a 40-column screen: a
 #   13-column label, then the value in the session's display units.
 from lapsecalc import units
-from lapsecalc.output import f_h, f_t, f_dt, f_p, wrap as wrap_text
+from lapsecalc.output import f_h, f_t, f_dt, f_p, wrap_each as wrap
 from lapsecalc.labels import LABELS, find, field, find_label
 
 # Words for the stability classes and thermal kinds in text mode ("value:word;").
@@ -213,14 +213,6 @@ def layer_lines(s, rows):
         out.append("%6d-%-6d %5.1f %4.1f %s" % (round(a), round(b), r["lapse_k_per_km"],
                                                  r["saturated_k_per_km"],
                                                  word_text(WORDS, r["class"])))
-    return out
-
-
-def wrap(items, mark, width=40):
-    """Each sentence as lines of at most width columns, the first marked mark."""
-    out = []
-    for c in items:
-        out.extend(wrap_text(c, mark + " ", "  ", width))
     return out
 
 

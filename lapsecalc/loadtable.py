@@ -14,8 +14,7 @@ its 40-column text for the interpreter's loads word."""
 # before it lays out the table, and a Column per field temperature is built, used for
 # its cells and let go of before the next.
 from math import floor
-from lapsecalc.limits import check
-from lapsecalc.limits import const
+from lapsecalc.limits import check, const
 
 # The load table: default field temperatures, degC, and row spacing, m; at most
 # _TABLE_MAX rows or columns (a 40-column screen shows six temperatures).

@@ -8,8 +8,7 @@
 # Only these groups are read; the rest of the report (wind, visibility, weather,
 # cloud) is skipped. The field elevation is not in a METAR: the user gives it.
 from lapsecalc.units import inhg_to_hpa
-from lapsecalc.limits import check, check_dew, shown, QNH_MIN_HPA, QNH_MAX_HPA
-from lapsecalc.limits import const
+from lapsecalc.limits import check, check_dew, shown, QNH_MIN_HPA, QNH_MAX_HPA, const
 
 # Most groups read from one report (a report line is capped by the shell anyway).
 _MAX_GROUPS = const(80)

@@ -6,8 +6,7 @@
 #     balance that defines the thermodynamic wet-bulb temperature.
 from math import exp, log
 from lapsecalc.constants import EPS
-from lapsecalc.limits import check, check_t, check_p, check_dew
-from lapsecalc.limits import const
+from lapsecalc.limits import check, check_t, check_p, check_dew, const
 
 # Alduchov & Eskridge (1996) coefficients: hPa, dimensionless, degC.
 _AE_A = 6.1094

@@ -64,6 +64,15 @@ def _plain(text):
     return prev != 32
 
 
+def wrap_each(items, mark, width=40):
+    """Each sentence of items as lines of at most width columns (wrap), the first of
+    each marked mark ("!" a warning, "-" a note)."""
+    out = []
+    for c in items:
+        out.extend(wrap(c, mark + " ", "  ", width))
+    return out
+
+
 def wrap(text, first, rest="  ", width=40):
     """text as lines of at most width columns (a word longer than a line is cut), the
     first starting with first, the others with rest (first and rest end in a space or

@@ -9,11 +9,10 @@
 # once every setting of the line has passed. A new setting word: a setter here, its
 # entry in SETTINGS, its state keys in commands.CLEAR (and state.AIR_KEYS when the column
 # depends on them), its help in lapsecalc.helptext.
-from lapsecalc.limits import T_MIN_C, T_MAX_C, ELEV_MIN_M, ELEV_MAX_M, DEW_SLACK_K
+from lapsecalc.limits import T_MIN_C, T_MAX_C, ELEV_MIN_M, ELEV_MAX_M, DEW_SLACK_K, const
 from lapsecalc.limits import QNH_MIN_HPA, QNH_MAX_HPA, P_MAX_HPA, TOP_MAX_M
 from lapsecalc.typed import number, shown, value, said, unit_of, digits, in_unit
 from lapsecalc.output import f_h1, f_t, f_dt, f_p, f_lapse
-from lapsecalc.limits import const
 
 try:
     from micropython import const

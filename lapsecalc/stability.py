@@ -9,12 +9,11 @@
 # humidity aloft is not observed, so CAPE and CIN here are for the temperature only.
 from math import log, exp, fabs, ceil
 from lapsecalc.constants import G0, T0_K, KAPPA, EPS, DRY_LAPSE_K_PER_KM
-from lapsecalc.limits import check
+from lapsecalc.limits import check, const
 from lapsecalc.moisture import _dewpoint_from_e
 from lapsecalc.adiabats import moist_lapse_k_per_km
 from lapsecalc.standard import layer_pressure
 from lapsecalc import parcel
-from lapsecalc.limits import const
 
 # A lapse rate this close to a reference rate is called neutral, K/km.
 _NEUTRAL_BAND_K_PER_KM = const(0.1)

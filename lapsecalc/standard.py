@@ -9,8 +9,8 @@ from math import exp, log, pow
 from lapsecalc.constants import (G0, R_DRY, T0_K, ISA_T0_K, ISA_P0_HPA,
                                   ISA_LAPSE_K_PER_M)
 from lapsecalc.limits import (check, check_t, check_p, check_elev, check_dew,
-                              QNH_MIN_HPA, QNH_MAX_HPA)
-from lapsecalc.limits import const
+                              QNH_MIN_HPA, QNH_MAX_HPA, const)
+from lapsecalc.moisture import _es_water, virtual_temperature_k
 
 _ISA_MIN_M = const(-1000)
 _ISA_MAX_M = const(32000)
@@ -128,10 +128,7 @@ def qnh(p_station_hpa, elev_m):
 
 
 def _density(p_hpa, t_c, e_hpa):
-    # Ideal gas with the virtual temperature, kg/m3. The humidity code is loaded by the
-    # functions that need it: a board line that needs only the standard atmosphere (a
-    # flight level's pressure, while a line of settings is read) holds less.
-    from lapsecalc.moisture import virtual_temperature_k
+    # Ideal gas with the virtual temperature, kg/m3.
     return 100 * p_hpa / (R_DRY * virtual_temperature_k(t_c + T0_K, e_hpa, p_hpa))
 
 
@@ -142,7 +139,6 @@ def air_density(p_hpa, t_c, td_c=None):
     if td_c is None:
         return _density(p, check_t("t_c", t_c), 0)
     t, td = check_dew(t_c, td_c)
-    from lapsecalc.moisture import _es_water
     return _density(p, t, min(_es_water(td), 0.5 * p))
 
 

@@ -3,8 +3,7 @@
 # 1 inHg = 33.8639 hPa and 1 mmHg = 1.33322 hPa at 0 degC and standard gravity.
 # Every conversion takes a number (int or float) within +-1e30 and refuses anything
 # else (text, None, NaN, infinities, huge ints) with ValueError.
-from lapsecalc.limits import finite as _finite
-from lapsecalc.limits import const
+from lapsecalc.limits import finite as _finite, const
 
 M_PER_FT = 0.3048
 _HPA_PER_INHG = const(33.8639)

@@ -10,7 +10,8 @@ MicroPython; loaded only by the json mode)."""
 #
 # A line is written in pieces (shared strings mostly: keys, separators; a number's
 # text as number_text made it when it is already as CPython writes it), joined about
-# every 100 pieces into a segment and the segments once at the end. On a board a
+# every 100 pieces into a segment and the segments once at the end (or, for a session
+# that writes its output as it comes, the segments written one after the other). On a board a
 # collection before each segment puts it in the lowest hole that holds it, so that
 # the line finds one run of the heap above the garbage of its numbers (measured,
 # hardlimit --lines, the json report: 43 KiB of free heap needed, 45 without).
@@ -19,11 +20,14 @@ from lapsecalc.machine import number_text
 collect = None  # a board's collection (Session.collect) while line() writes a line
 
 
-def line(keys, values, rest=None, gc=None):
+def line(keys, values, rest=None, gc=None, write=None):
     """The JSON object of the keys of values in the order of keys (those values has),
     then rest (a (key, value) pair) if given; floats rounded by their key's family
     (lapsecalc.machine.DECIMALS; a nested dict's own keys name theirs). gc: a board's
-    collection (Session.collect), for a long line."""
+    collection (Session.collect), for a long line. write: a function taking text
+    (Session.write); when given, the line's segments, once all are made, are written
+    through it and then a newline, and None is returned: the line is never made whole
+    (on a board, no run of the heap as long as the line)."""
     global collect
     collect = gc
     out = [[]]  # the segments made, then the pieces of the next one
@@ -42,7 +46,12 @@ def line(keys, values, rest=None, gc=None):
     if gc is not None:
         gc()
     collect = None
-    return "".join(out)
+    if write is None:
+        return "".join(out)
+    for piece in out:
+        write(piece)
+    write("\n")
+    return None
 
 
 def seg(out, n=100):

@@ -34,8 +34,9 @@ def emit(s, keys, values, balloon=False, word=None, rest=True, plus=()):
         return ["# assumed " + n for n in notes] + kv_lines(values, keys)
     if s.mode == "json":
         from lapsecalc.jsontext import line
-        return [line(keys, values, ("assumed", notes) if notes else None,
-                     s.collect if s.drop_word_modules else None)]
+        text = line(keys, values, ("assumed", notes) if notes else None,
+                    s.collect if s.drop_word_modules else None, s.write)
+        return [] if text is None else [text]  # None: written through s.write
     from lapsecalc.layout import text_lines, text_keys, warning_lines
     if word is not None:
         keys = text_keys(word)

@@ -74,7 +74,13 @@ class Session:
 
     svg_writer, when given, is called as svg_writer(name, svg_text) by the svg word and
     returns the line to print (the CPython command line gives one; the core writes no
-    files)."""
+    files).
+
+    write (an attribute, None by default; repl() sets it): a function that takes text
+    and writes it out at once. When set, a line of the json mode is written through it
+    in pieces, ended by a newline, while feed() runs, and is not among the lines feed()
+    returns (it comes before them): a board never makes a whole report's object, about
+    4 KB in one run of the heap."""
 
     def __init__(self, svg_writer=None):
         self.state = {}
@@ -84,6 +90,7 @@ class Session:
         self.mode = "text"
         self.done = False
         self.svg_writer = svg_writer
+        self.write = None
         self.checks = []  # "check:" lines of the line being run (a word adds them)
         self._col = self._rep = self._levels = None
         self._rep_alt = False
@@ -332,11 +339,14 @@ def read_lines(stream):
 
 
 def repl(session=None, stream=None, prompt=PROMPT):
-    """Run lines until the end of input or bye, printing each line's output. Lines
-    come from stream (read_lines) when one is given, else from input(), which on a
-    board reads sys.stdin with line editing."""
+    """Run lines until the end of input or bye, printing each line's output (a json
+    line written in pieces as it comes: Session.write). Lines come from stream
+    (read_lines) when one is given, else from input(), which on a board reads sys.stdin
+    with line editing."""
     import sys
     s = session if session is not None else Session()
+    if s.write is None:
+        s.write = sys.stdout.write  # a json line written as it comes (Session.write)
     lines = None if stream is None else read_lines(stream)
     while not s.done:
         if lines is None:

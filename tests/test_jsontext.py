@@ -156,6 +156,22 @@ def test_a_long_object_in_many_chunks():
     assert line(keys, values) == reference(keys, values)
 
 
+def test_a_long_object_written_in_pieces():
+    # With a writer the line is written segment by segment, then a newline, and never
+    # made whole: the pieces are the line's text.
+    rnd = random.Random(11)
+    keys = ["k%03d_m" % i for i in range(400)]
+    values = dict((k, [rnd.uniform(-1e4, 1e4), "s\n"]) for k in keys)
+    pieces = []
+    assert line(keys, values, ("note", ["a", "b"]), None, pieces.append) is None
+    assert "".join(pieces) == reference(keys, values, ("note", ["a", "b"])) + "\n"
+    assert len(pieces) > 10 and pieces[-1] == "\n"
+    assert max(len(p) for p in pieces) < 2000
+    short = []
+    assert line((), (), ("ok", ["temp"]), None, short.append) is None
+    assert short == ['{"ok": ["temp"]}', "\n"]
+
+
 @pytest.fixture
 def checked(monkeypatch):
     # Every json line the session writes goes through jsontext.line: compare each
@@ -163,7 +179,8 @@ def checked(monkeypatch):
     seen = []
     real = jsontext.line
 
-    def spy(keys, values, rest=None, gc=None):
+    def spy(keys, values, rest=None, gc=None, write=None):
+        assert write is None  # these sessions return every line from feed()
         got = real(keys, values, rest, gc)
         assert got == reference(keys, values, rest)
         seen.append(got)

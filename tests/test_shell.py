@@ -1497,6 +1497,29 @@ def test_json_text_lines_without_room_are_left_out_not_an_error(monkeypatch):
     assert s.feed("help elr")[0].startswith('{"text": ')
 
 
+def test_repl_writes_json_lines_as_they_come(capsys):
+    # repl sets Session.write: a json line of a query is written through it in pieces
+    # while the line runs (not returned by feed), in its place among the output lines.
+    text = ("temp 27C dew 13C elev 1350ft qnh 1016\nout json\nreport\nbase\n"
+            "temp 99\nbye\n")
+    s = repl(stream=io.StringIO(text), prompt="")
+    got = capsys.readouterr().out.splitlines()
+    fresh = Session()
+    want = [x for line in text.splitlines() for x in fresh.feed(line)]
+    assert got == want and len(got) == 7 and got[0].startswith("ok: temp 27 C")
+    objs = [json.loads(x) for x in got[3:]]
+    assert objs[0] == {"ok": ["out"]} and objs[1]["cloud_base_agl_m"] == 1769.7
+    assert list(objs[2])[:2] == ["cloud_base_agl_m", "cloud_base_msl_m"]
+    assert list(objs[3]) == ["error"]
+    assert s.write is not None and s.done
+    # Fed directly with a writer, the query's line goes to the writer only.
+    pieces = []
+    s.write = pieces.append
+    s.done = False
+    assert s.feed("report") == []
+    assert "".join(pieces) == want[4] + "\n" and len(pieces) > 2
+
+
 def test_repl_goes_on_after_a_memory_error(monkeypatch, capsys):
     # The console loop is a board's main program: a MemoryError that still escapes a
     # line is said and the next line runs.

@@ -38,6 +38,12 @@ def line_failed(line, out):
     return None
 
 
+def written(text):
+    """A measured session's Session.write (a board's repl sets it to write to its
+    console): a json line's pieces, written as they come, are let go of here."""
+    return None
+
+
 def held():
     gc.collect()
     gc.collect()
@@ -65,6 +71,7 @@ def main(args):
     base = held()
     from lapsecalc.shell import Session
     s = Session()
+    s.write = written  # as repl() on a board: json lines written as they come
     peak = [0]
     if account:
         s.collect_after_line = False  # collected below, between lines

@@ -84,11 +84,12 @@ def main(args):
         sys.path.insert(0, args[0])
     here = __file__.rsplit("/", 1)[0] if "/" in __file__ else "."
     sys.path.insert(0, here)
-    from board_session import line_failed, held, numbered_lines
+    from board_session import line_failed, held, numbered_lines, written
     f = open(args[1] if len(args) > 1 else here + "/board_session.txt")
     base = held()
     from lapsecalc.shell import Session
     s = Session()
+    s.write = written  # as repl() on a board (board_session.py)
     worst = 0
     for n, line in numbered_lines(f):
         if not line.strip() or line[0] == "#":

@@ -210,6 +210,7 @@ function memMode(opt, pkgFiles, call, mp) {
     call(`_lc_ns = {"__name__": "board_session", "__file__": "board_session.py"}
 exec(${pyStr(src)}, _lc_ns)
 _lc_lf = _lc_ns["line_failed"]
+_lc_wr = _lc_ns["written"]
 _lc_ns = 0`);
   }
   settle();
@@ -269,7 +270,8 @@ _lc_ms = _lc_timeit(${opt.time})`);
 function sessionMode(opt, call, get, settle) {
   const lines = readFileSync(opt.session, "utf8").split("\n");
   if (lines.length && lines[lines.length - 1] === "") lines.pop();
-  call("from lapsecalc.shell import Session\n_lc_s = Session()\n_lc_s.collect_after_line = False");
+  // As repl() on a board (board_session.py): json lines written as they come.
+  call("from lapsecalc.shell import Session\n_lc_s = Session()\n_lc_s.collect_after_line = False\n_lc_s.write = _lc_wr");
   // A collection inside a line (Session.collect) records the heap just before it.
   call(`def _lc_collect():
     global _lc_pk

@@ -242,18 +242,33 @@ def _before(n, key, has):
     return False
 
 
-def report_text(s, rep, extra=(), head=()):
+def _written(parts, write):
+    # With write (Session.write), the sections gathered in parts written out, each line
+    # ended by a newline, and let go of.
+    if write is not None:
+        for sec in parts:
+            for line in sec:
+                write(line)
+                write("\n")
+        del parts[:]
+
+
+def report_text(s, rep, extra=(), head=(), write=None):
     """The whole report in sections (the groups of lapsecalc.groups.REPORT_GROUPS),
     after the lines head: warnings first, then the keys of no group (sorted), cautions
     last; extra, when given, are the altimeter section's lines (lapsecalc.altitext). A
     key of two sections is said in the first. Each section is gathered apart and the
     list returned is made once at its length (on a board the output list is one of a
-    line's largest pieces of heap; a list grown line by line doubles)."""
+    line's largest pieces of heap; a list grown line by line doubles). write: a
+    function taking text (Session.write); when given, each section is written through
+    it as soon as it is made and [] is returned (a board holds one section at a time;
+    out of heap midway, the sections before are already said)."""
     from lapsecalc.groups import has
     parts = [head]
     said = warning_lines(s, rep, rep)
     if said:
         parts.append(["-- warnings"] + said)
+    _written(parts, write)
     for n in range(len(SECTIONS)):
         heading, word = SECTIONS[n]
         sec = [heading]
@@ -263,6 +278,7 @@ def report_text(s, rep, extra=(), head=()):
         if word == "parcel":
             sec.append(PARCEL_NOTE)
         parts.append(sec)
+        _written(parts, write)
     if extra:
         parts.append(["-- altimeter"] + list(extra))
     sec = ["-- more"]
@@ -272,6 +288,7 @@ def report_text(s, rep, extra=(), head=()):
     if len(sec) > 1:
         parts.append(sec)
     parts.append(["-- cautions"] + wrap(rep.get("cautions", ()), "!"))
+    _written(parts, write)
     n = 0
     for sec in parts:
         n += len(sec)

@@ -89,7 +89,7 @@ def _c_report(s, w, args):
     extra = _altimeter_section(s, rep)
     s.release()
     from lapsecalc.layout import report_text
-    return report_text(s, rep, extra, assumed_text(s))
+    return report_text(s, rep, extra, assumed_text(s), s.write)
 
 
 def _altimeter_section(s, rep):

@@ -77,10 +77,11 @@ class Session:
     files).
 
     write (an attribute, None by default; repl() sets it): a function that takes text
-    and writes it out at once. When set, a line of the json mode is written through it
-    in pieces, ended by a newline, while feed() runs, and is not among the lines feed()
-    returns (it comes before them): a board never makes a whole report's object, about
-    4 KB in one run of the heap."""
+    and writes it out at once. When set, a query's line of the json mode is written
+    through it in pieces, ended by a newline, and the text report section by section,
+    while feed() runs; they are not among the lines feed() returns (they come before
+    them): a board never makes a whole report's object (about 4 KB in one run of the
+    heap) nor holds the text report's lines all at once."""
 
     def __init__(self, svg_writer=None):
         self.state = {}

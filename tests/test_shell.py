@@ -1497,17 +1497,20 @@ def test_json_text_lines_without_room_are_left_out_not_an_error(monkeypatch):
     assert s.feed("help elr")[0].startswith('{"text": ')
 
 
-def test_repl_writes_json_lines_as_they_come(capsys):
-    # repl sets Session.write: a json line of a query is written through it in pieces
-    # while the line runs (not returned by feed), in its place among the output lines.
+def test_repl_writes_long_output_as_it_comes(capsys):
+    # repl sets Session.write: a json line of a query, and the text report section by
+    # section, are written through it while the line runs (not returned by feed), in
+    # their place among the output lines.
     text = ("temp 27C dew 13C elev 1350ft qnh 1016\nout json\nreport\nbase\n"
-            "temp 99\nbye\n")
+            "temp 99\nout text\nreport\nbye\n")
     s = repl(stream=io.StringIO(text), prompt="")
     got = capsys.readouterr().out.splitlines()
     fresh = Session()
     want = [x for line in text.splitlines() for x in fresh.feed(line)]
-    assert got == want and len(got) == 7 and got[0].startswith("ok: temp 27 C")
-    objs = [json.loads(x) for x in got[3:]]
+    assert got == want and got[0].startswith("ok: temp 27 C")
+    assert got[7] == "ok: out text" and got[8].startswith("assumed ") and len(got) > 60
+    assert got[-2:] == ["! Follow the flight manual, local", "  regulations and licensed practice."]
+    objs = [json.loads(x) for x in got[3:7]]
     assert objs[0] == {"ok": ["out"]} and objs[1]["cloud_base_agl_m"] == 1769.7
     assert list(objs[2])[:2] == ["cloud_base_agl_m", "cloud_base_msl_m"]
     assert list(objs[3]) == ["error"]
@@ -1516,6 +1519,7 @@ def test_repl_writes_json_lines_as_they_come(capsys):
     pieces = []
     s.write = pieces.append
     s.done = False
+    s.mode = "json"
     assert s.feed("report") == []
     assert "".join(pieces) == want[4] + "\n" and len(pieces) > 2
 

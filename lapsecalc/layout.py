@@ -128,6 +128,14 @@ def text_lines(s, key, v, label_kind=None, rep=None):
             kind = field(table, i)
             if v is None and table.startswith(":q", i + len(kind)):
                 return _NONE  # quiet when None: a hazard not present
+    return _kind_lines(s, key, v, label, kind, words, rep)
+
+
+def _kind_lines(s, key, v, label, kind, words, rep):
+    # text_lines once the label and kind of key are known: the kinds said in several
+    # lines or none, then one line of the value (text_lines is split in three so that
+    # a board loads no piece of code larger than about 1 KB: a heap full of small
+    # holes still takes it).
     if kind == "until":
         return _NONE if v is None else wrap(
             ["no dry thermals until the surface reaches %s" % f_t(s, v, True)], "-")
@@ -165,42 +173,45 @@ def text_lines(s, key, v, label_kind=None, rep=None):
         return ["%-13s%s" % (label if i == 0 else "", level(s, z)) for i, z in enumerate(v)]
     if v is None:
         return ["%-13s%s" % (label, "   none in column" if kind == "z" else "   none")]
+    return ["%-13s%s" % (label, _value_text(s, key, v, kind, words, rep))]
+
+
+def _value_text(s, key, v, kind, words, rep):
+    # The text of value v (not None) of key, of kind kind, after its label.
     if isinstance(v, float) and -0.05 < v < 0.05 and kind in ("t", "dt", "kg"):
         v = 0.0  # no "-0.0" in a one-decimal column
     if kind == "z":
         # The report's own reading, if it has one: no Column built again for the text.
         ind = rep.get("indicated_altitude_m") if rep else None
-        text = level(s, v, ind.get(key) if ind else None)
-    elif kind in ("zt", "a", "i", "alt"):
+        return level(s, v, ind.get(key) if ind else None)
+    if kind in ("zt", "a", "i", "alt"):
         # The tag says what the height is (DA: its label does).
-        text = f_h(s, v, False, " MSL" if kind == "zt" else " AGL" if kind == "a" else
+        return f_h(s, v, False, " MSL" if kind == "zt" else " AGL" if kind == "a" else
                    " IND" if kind == "i" else "")
-    elif kind == "pa":
-        text = f_h(s, v, False, " FL%d" % round(units.m_to_ft(v) / 100.0))
-    elif kind == "t":
-        text = f_t(s, v)
-    elif kind == "dt":
-        text = f_dt(s, v)
-    elif kind == "ph":
-        text = "%7.1f hPa" % v  # aloft and vapour: hPa whatever the display unit
-    elif kind == "p":
-        text = f_p(s, v)
-    elif kind == "b":
-        text = "    yes" if v else "     no"
-    elif kind == "s":
-        text = " " + word_text(words, v)
-    elif kind in _PLAIN:
-        text = _PLAIN[kind] % v
-    elif kind == "frac":
-        text = "%7.1f %%" % (100.0 * v)
-    elif kind == "m3":
-        text = ("%7.0f m3 %8.0f ft3" if v >= 100.0 else "%7.2f m3 %8.1f ft3") % (
+    if kind == "pa":
+        return f_h(s, v, False, " FL%d" % round(units.m_to_ft(v) / 100.0))
+    if kind == "t":
+        return f_t(s, v)
+    if kind == "dt":
+        return f_dt(s, v)
+    if kind == "ph":
+        return "%7.1f hPa" % v  # aloft and vapour: hPa whatever the display unit
+    if kind == "p":
+        return f_p(s, v)
+    if kind == "b":
+        return "    yes" if v else "     no"
+    if kind == "s":
+        return " " + word_text(words, v)
+    if kind in _PLAIN:
+        return _PLAIN[kind] % v
+    if kind == "frac":
+        return "%7.1f %%" % (100.0 * v)
+    if kind == "m3":
+        return ("%7.0f m3 %8.0f ft3" if v >= 100.0 else "%7.2f m3 %8.1f ft3") % (
             v, units.m3_to_ft3(v))
-    elif kind == "kg":
-        text = "%7.1f kg %6.0f lb" % (v, units.kg_to_lb(v))
-    else:
-        text = ("%.6g" % v) if isinstance(v, float) else str(v)
-    return ["%-13s%s" % (label, text)]
+    if kind == "kg":
+        return "%7.1f kg %6.0f lb" % (v, units.kg_to_lb(v))
+    return ("%.6g" % v) if isinstance(v, float) else str(v)
 
 
 def layer_lines(s, rows):

@@ -48,6 +48,7 @@ package(
         "balloonsettings.py",
         "shell.py",
         "dispatch.py",
+        "settingline.py",
         "state.py",
         "thermals.py",
         "typed.py",

@@ -1,13 +1,13 @@
-"""A line's words read and its first word found in the word tables; a line of settings
-read and checked; a refused line worded (runs on MicroPython; loaded by Session.feed for each
-line and, on a board, let go of before the word runs)."""
+"""A line's words read and its first word found in the word tables; a refused line
+worded (runs on MicroPython; loaded by Session.feed for each line and, on a board, let go
+of before the word runs)."""
 # Sources: none of its own.
 #
 # Session.feed (lapsecalc.shell) calls find(s, line): the word's function and its
 # arguments come back, and on a board this module (and the word tables) is let go of
 # before the word computes, so a report's heap never holds the reading of the line.
-# A line of settings is read here into a copy of the state (read_settings); only a line
-# that passed every check replaces the state (Session.commit, with the new Column).
+# A line of settings comes back to the shell, which lets go of this module before
+# lapsecalc.settingline reads it.
 from lapsecalc.aliases import ALIASES, PAIRS, shown, split_number, starts_number
 
 # The setting words (lapsecalc.settings.SETTINGS) and the session words
@@ -17,9 +17,6 @@ SETTING_WORDS = ("temp", "dew", "rh", "elev", "qnh", "stn", "elr", "top", "exces
                  "env", "wt", "fill", "tmax", "tenv", "gas", "pure", "margin", "superheat",
                  "aloft", "trop")
 COMMAND_WORDS = ("clear", "unit", "heights", "out", "help", "bye")
-# The setting words' modules: let go of on a board once a line's settings are read,
-# before the new state's Column is built.
-SETTING_MODULES = ("settings", "balloonsettings", "aloftwords", "metar", "typed", "heights")
 # Words whose line never reads the report and needs much heap of its own: on a board
 # the report kept for the session is let go of before such a line (the next line that
 # reads it computes it again; measured: the balloon, loads and sunset lines' hard heap
@@ -46,10 +43,10 @@ def other_words():
     return tuple(QUERIES) + COMMAND_WORDS
 
 
-def _unknown(word, settings_only=False, number_next=False, after=None):
-    # The error for a word no table has (lapsecalc.typed.unknown, loaded only then):
-    # in a line of settings only settings are suggested; after a first word followed by
-    # a number, only words that take one.
+def unknown_word(word, settings_only=False, number_next=False, after=None):
+    """The message for a word no table has (lapsecalc.typed.unknown, loaded only then):
+    in a line of settings only settings are suggested; after a first word followed by
+    a number, only words that take one; after: the word before it."""
     from lapsecalc.typed import unknown
     known = list(SETTING_WORDS)
     if not settings_only:
@@ -104,7 +101,7 @@ def find(s, line):
     """(function, word, arguments) of line, the word's function to be called as
     function(s, word, arguments) for its output lines; a line with no words gives
     None. A line of settings comes back as (None, its first word, its words), for
-    read_settings. ValueError for a line no table knows."""
+    lapsecalc.settingline.read_settings. ValueError for a line no table knows."""
     words = joined(split_line(line))
     if not words:
         return None
@@ -127,64 +124,4 @@ def find(s, line):
         return COMMANDS[w], w, words[1:]
     if starts_number(w):
         raise ValueError("a line starts with a word, e.g. temp 27C (help lists them)")
-    raise ValueError(_unknown(words[0], False, len(words) > 1 and starts_number(words[1])))
-
-
-def read_settings(s, words):
-    """The new state of a line of settings (words, the first a setting word) read into
-    a copy of session s's state and checked as a whole, and the words of its ok line:
-    (new state, what each setting said, the setting words). The new state's Column is
-    built by Session.commit (ValueError then in the user's words: retold with it)."""
-    from lapsecalc import _forget
-    from lapsecalc.settings import SETTINGS, ONE, NUMBERS, whole, setter
-    new = dict(s.state)
-    said = []
-    set_words = []
-    i = 0
-    while i < len(words):
-        w = words[i].lower()
-        w = ALIASES.get(w, w)
-        if w not in SETTING_WORDS:
-            if w in other_words():
-                raise ValueError("'%s' cannot share a line with settings; give it its"
-                                 " own line" % w)
-            raise ValueError(_unknown(words[i], True, False, words[i - 1] if i else None))
-        takes, example = SETTINGS[w][1:]
-        fn = setter(w)
-        j = i + 2 if takes == ONE else len(words)
-        if takes == NUMBERS:
-            j = i + 1
-            while j < len(words) and starts_number(words[j]):
-                j += 1
-        args = words[i + 1:j]
-        if takes == ONE and not args:
-            raise ValueError("%s needs a value, e.g. %s" % (w, example))
-        try:
-            said.append(fn(s, new, args))
-            set_words.append(w)
-        except ValueError as e:
-            raise ValueError("%s %s" % (w, e))
-        i = j
-    try:
-        rest = whole(s, new)
-        if s.drop_word_modules:
-            # On a board the setting words' code is let go of before the points
-            # aloft are checked and the new state's Column is built (commit), as
-            # a query lets go of the physics before its text.
-            fn = whole = SETTINGS = setter = None
-            _forget(SETTING_MODULES)
-            s.collect()
-        if rest is not None:  # ("aloft", late): settings.whole
-            from lapsecalc.aloftwords import check_whole
-            check_whole(s, new)
-            if s.drop_word_modules:
-                # Its code let go of again before the Column is built.
-                check_whole = None
-                _forget(("aloftwords",))
-            if rest[1] is not None:
-                raise rest[1]
-    except ValueError as e:
-        # What only the library finds (the points aloft in the standard atmosphere) in
-        # the user's terms.
-        raise ValueError(retold(s, new, e))
-    return new, said, set_words
+    raise ValueError(unknown_word(words[0], False, len(words) > 1 and starts_number(words[1])))

@@ -8,9 +8,9 @@
 # "error: ..." line. feed() does no I/O; repl() and lapsecalc.cli do.
 #
 # Layers, top down: this module (Session: the state, the line's stages) ->
-# lapsecalc.dispatch (the word tables, a line of settings, the refusals' words) -> the
-# word modules: lapsecalc.settings (SETTINGS, several a line, all-or-nothing),
-# lapsecalc.queries (QUERIES, one a line), lapsecalc.commands (COMMANDS: clear unit out
+# lapsecalc.dispatch (the word tables, the refusals' words), lapsecalc.settingline (a
+# line of settings) -> the word modules: lapsecalc.settings (SETTINGS, several a line,
+# all-or-nothing), lapsecalc.queries (QUERIES, one a line), lapsecalc.commands (COMMANDS: clear unit out
 # help bye) -> lapsecalc.layout (text lines, loaded by text output) -> lapsecalc.groups
 # (result keys), lapsecalc.output (display units, acks, kv values), lapsecalc.state
 # (state keys, defaults, the Column), lapsecalc.typed (numbers, units; loaded by the
@@ -39,7 +39,8 @@ WORD_MODULES = PHYSICS_MODULES + (
     "limits", "settings", "commands", "units", "output", "machine", "groups", "helptext", "chart", "loadtable",
     "balloontext", "metar", "demo", "layout", "showword", "jsontext",
     "balloonwords", "atwords", "hazardtext", "altitext", "aloftwords",
-    "retell", "chartsvg", "balloonsettings", "dispatch", "queries", "aliases", "labels")
+    "retell", "chartsvg", "balloonsettings", "dispatch", "settingline", "queries", "aliases",
+    "labels")
 # The words whose report carries the altimetry keys (isa_deviation_c,
 # density_altitude_dry_m, indicated_altitude_m: Column.report(altimetry=True)).
 ALTIMETRY_WORDS = ("report", "obs", "da", "levels")
@@ -135,15 +136,12 @@ class Session:
         if len(line) > MAX_LINE:
             raise ValueError("line of %d characters refused; accepted at most %d"
                              % (len(line), MAX_LINE))
-        from lapsecalc.dispatch import find, read_settings
+        from lapsecalc.dispatch import find
         todo = find(self, line)
         if todo is None:
             return []
         fn, w, args = todo
         todo = find = None
-        if fn is None:  # a line of settings: read, then the new state's Column built
-            new, said, set_words = read_settings(self, args)
-        read_settings = None
         if self.drop_word_modules:
             # Here, not through self.drop(): measured, a collection one call deeper
             # left the reading's code held (Unix port 109 -> 113 KiB).
@@ -151,6 +149,14 @@ class Session:
             self.collect()
         if fn is not None:
             return fn(self, w, args)
+        # A line of settings: read (lapsecalc.settingline, let go of after it), then the
+        # new state's Column built.
+        from lapsecalc.settingline import read_settings
+        new, said, set_words = read_settings(self, args)
+        read_settings = None
+        if self.drop_word_modules:
+            drop_modules(("settingline",))
+            self.collect()
         try:
             self.commit(new)
         except ValueError as e:

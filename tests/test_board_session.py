@@ -377,7 +377,7 @@ def test_the_parcel_path_and_at_need_no_report():
 
 def test_a_board_settings_line_lets_go_of_the_setting_words_before_the_column(
         restore_word_modules):
-    # The setting words' code (settings, aloftwords, metar, typed: dispatch.SETTING_MODULES)
+    # The setting words' code (settings, aloftwords, metar, typed: settingline.SETTING_MODULES)
     # is let go of once the line's values are read and checked, before commit builds
     # the new state's Column; no setter loads the column's code for its bounds. (The
     # points aloft are checked after that: aloftwords.check_whole loads aloftwords

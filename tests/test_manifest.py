@@ -139,7 +139,8 @@ def test_board_modules_never_import_cpython_only_ones():
 # only modules of the layers below its own, at the top or inside a function.
 INTERPRETER_LAYERS = (
     ("shell",),
-    ("dispatch",),  # the word tables, a line of settings (shell loads it per line)
+    ("settingline",),  # a line of settings (shell loads it for one, without dispatch)
+    ("dispatch",),  # the word tables, a refusal's words (shell loads it per line)
     ("balloonwords", "showword", "atwords", "balloonsettings"),
     ("settings", "queries", "commands"),
     ("heights",),

@@ -49,6 +49,8 @@ package(
         "shell.py",
         "dispatch.py",
         "settingline.py",
+        "reportwords.py",
+        "chartwords.py",
         "state.py",
         "thermals.py",
         "typed.py",

@@ -5,12 +5,13 @@ temperature (runs on MicroPython; loaded only by their lines)."""
 # lapsecalc.typed (iso's temperature), lapsecalc.heights and lapsecalc.limits are
 # imported inside the words: a module-level name would keep their code alive through
 # the text.
-from lapsecalc.queries import emit, _c_group
+from lapsecalc.queries import emit
 
 
 def _c_at(s, w, args):
-    if w == "da" and not args:
-        return _c_group(s, w, args)
+    if w == "da" and not args:  # the field's density altitude: a group of the report
+        from lapsecalc.reportwords import group_word
+        return group_word(s, w, args)
     if not args:
         raise ValueError("at needs a height, e.g. at 8000ft, at 2000ft agl, at 700hPa")
     col = s.column(w)

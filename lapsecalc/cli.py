@@ -5,7 +5,7 @@ import argparse
 import sys
 
 from lapsecalc.shell import Session, PROMPT, read_lines, split_ends, repl
-from lapsecalc.queries import chart_svg
+from lapsecalc.chartwords import chart_svg
 from lapsecalc.demo import DEMO_LINES
 
 

@@ -114,10 +114,8 @@ def find(s, line):
     if w in SETTING_WORDS:
         return None, w, words
     from lapsecalc.queries import QUERIES
-    if w in QUERIES:
-        f = QUERIES[w]
-        if isinstance(f, str):  # a word whose code is a module of its own
-            f = __import__("lapsecalc." + f, None, None, ["WORDS"]).WORDS[w]
+    if w in QUERIES:  # the word's function, from the module that has it
+        f = __import__("lapsecalc." + QUERIES[w], None, None, ["WORDS"]).WORDS[w]
         return f, w, words[1:]
     if w in COMMAND_WORDS:
         from lapsecalc.commands import COMMANDS

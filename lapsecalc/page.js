@@ -23,7 +23,7 @@ const GLUE = `
 import gc, json, sys
 import lapsecalc
 from lapsecalc.shell import Session
-from lapsecalc.queries import chart_svg
+from lapsecalc.chartwords import chart_svg
 _pg_s = Session()
 _pg_banner = "lapsecalc %s, MicroPython %s" % (
     lapsecalc.__version__, ".".join(str(x) for x in sys.implementation.version[:3]))

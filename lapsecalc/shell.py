@@ -10,8 +10,8 @@
 # Layers, top down: this module (Session: the state, the line's stages) ->
 # lapsecalc.dispatch (the word tables, the refusals' words), lapsecalc.settingline (a
 # line of settings) -> the word modules: lapsecalc.settings (SETTINGS, several a line,
-# all-or-nothing), lapsecalc.queries (QUERIES, one a line), lapsecalc.commands (COMMANDS: clear unit out
-# help bye) -> lapsecalc.layout (text lines, loaded by text output) -> lapsecalc.groups
+# all-or-nothing), the query words' (lapsecalc.queries.QUERIES names them, one a line),
+# lapsecalc.commands (COMMANDS: clear unit out help bye) -> lapsecalc.layout (text lines, loaded by text output) -> lapsecalc.groups
 # (result keys), lapsecalc.output (display units, acks, kv values), lapsecalc.state
 # (state keys, defaults, the Column), lapsecalc.typed (numbers, units; loaded by the
 # lines that read one), lapsecalc.aliases (other names of words, slips) -> the library.
@@ -40,7 +40,7 @@ WORD_MODULES = PHYSICS_MODULES + (
     "balloontext", "metar", "demo", "layout", "showword", "jsontext",
     "balloonwords", "atwords", "hazardtext", "altitext", "aloftwords",
     "retell", "chartsvg", "balloonsettings", "dispatch", "settingline", "queries", "aliases",
-    "labels")
+    "labels", "reportwords", "chartwords")
 # The words whose report carries the altimetry keys (isa_deviation_c,
 # density_altitude_dry_m, indicated_altitude_m: Column.report(altimetry=True)).
 ALTIMETRY_WORDS = ("report", "obs", "da", "levels")
@@ -145,8 +145,8 @@ class Session:
         if self.drop_word_modules:
             # Here, not through self.drop(): measured, a collection one call deeper
             # left the reading's code held (Unix port 109 -> 113 KiB).
-            drop_modules(("dispatch",))
-            self.collect()
+            drop_modules(("dispatch", "queries"))  # queries: the table (and the output
+            self.collect()                         # code, loaded again after the numbers)
         if fn is not None:
             return fn(self, w, args)
         # A line of settings: read (lapsecalc.settingline, let go of after it), then the

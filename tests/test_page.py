@@ -18,7 +18,7 @@ import pytest
 import lapsecalc
 from lapsecalc import page
 from lapsecalc.demo import DEMO_LINES
-from lapsecalc.queries import chart_svg
+from lapsecalc.chartwords import chart_svg
 from lapsecalc.shell import PROMPT, Session
 from lapsecalc.stability import CAUTIONS
 

@@ -1465,14 +1465,14 @@ def test_no_room_to_retell_says_the_library_words(monkeypatch):
     # A refusal in the library's wording is retold in the user's terms by
     # lapsecalc.retell, loaded only then; with no room for that code the library's own
     # words are said, never a MemoryError out of feed().
-    from lapsecalc import queries, retell
+    from lapsecalc import reportwords, retell
 
     def refuses(s, w, args):
         raise ValueError("t_c=99 is outside -90..60 degC")
 
     def no_room(s, st, msg):
         raise MemoryError("memory allocation failed, allocating 1168 bytes")
-    monkeypatch.setitem(queries.QUERIES, "obs", refuses)
+    monkeypatch.setitem(reportwords.WORDS, "obs", refuses)
     s = Session()
     s.feed("temp 27C dew 13C elev 400m")
     told = s.feed("obs")

@@ -5,6 +5,9 @@
 #   (tests/test_balloon_text.py holds the two to the same lines). This module lays its
 #   lines out without loading lapsecalc.layout and lapsecalc.groups: on a board the
 #   balloon line's text stage then holds about 13 KiB less (Unix port, measured).
+from lapsecalc.state import assumed
+from lapsecalc.output import f_h, f_t, f_dt, f_p, wrap
+from lapsecalc.units import m3_to_ft3, kg_to_lb
 
 # balloon report kind -> its keys in the order shown, one string each (_GROUPS as in
 # lapsecalc.groups). "hot": working-temperature figures first, the absolute limit (at
@@ -102,9 +105,6 @@ def text_lines(s, word, r, rest=True):
     """The text lines of balloon report r (word "hot", "gas" or "sunset"; its other
     keys after them unless rest is False) in session s's display units, after the
     defaults in use."""
-    from lapsecalc.state import assumed
-    from lapsecalc.output import f_h, f_t, f_dt, f_p, wrap
-    from lapsecalc.units import m3_to_ft3, kg_to_lb
     out = ["assumed " + n for n in assumed(s.state, True, s.disp["p"] == "inhg")]
     for k in keys(word, r if rest else None):
         if k in HEADINGS:
@@ -122,40 +122,42 @@ def text_lines(s, word, r, rest=True):
             i += len(k) + 2
             j = LABELS.find(":", i)
             label, kind = LABELS[i:j], LABELS[j + 1:LABELS.find(";", j)]
-        if kind == "say1":
-            continue  # said among the warnings
-        if isinstance(v, float) and -0.05 < v < 0.05 and kind in ("t", "dt", "kg"):
-            v = 0.0  # no "-0.0" in a one-decimal column
-        if v is None:
-            text = "   none in column" if kind == "z" else "   none"
-        elif kind == "z":
-            if s.disp.get("z") == "ind":  # indicated on QNH: the layout's reading
-                from lapsecalc.layout import level
-                text = level(s, v)
-            else:
-                text = f_h(s, v, False, " MSL")
-        elif kind == "t":
-            text = f_t(s, v)
-        elif kind == "dt":
-            text = f_dt(s, v)
-        elif kind == "p":
-            text = f_p(s, v)
-        elif kind == "b":
-            text = "    yes" if v else "     no"
-        elif kind == "s":
-            text = " " + str(v)
-        elif kind == "rho":
-            text = "%7.3f kg/m3" % v
-        elif kind == "gmol":
-            text = "%7.3f g/mol" % v
-        elif kind == "frac":
-            text = "%7.1f %%" % (100.0 * v)
-        elif kind == "m3":
-            text = ("%7.0f m3 %8.0f ft3" if v >= 100.0 else "%7.2f m3 %8.1f ft3") % (
-                v, m3_to_ft3(v))
-        elif kind == "kg":
-            text = "%7.1f kg %6.0f lb" % (v, kg_to_lb(v))
-        else:
-            text = ("%.6g" % v) if isinstance(v, float) else str(v)
-        out.append("%-13s%s" % (label, text))
+        if kind != "say1":  # else said among the warnings
+            out.append("%-13s%s" % (label, _value_text(s, kind, v)))
     return out
+
+
+def _value_text(s, kind, v):
+    # The text of value v of kind kind after its label (text_lines is split in two so
+    # that a board loads no piece of its code larger than about 1 KB).
+    if isinstance(v, float) and -0.05 < v < 0.05 and kind in ("t", "dt", "kg"):
+        v = 0.0  # no "-0.0" in a one-decimal column
+    if v is None:
+        return "   none in column" if kind == "z" else "   none"
+    if kind == "z":
+        if s.disp.get("z") == "ind":  # indicated on QNH: the layout's reading
+            from lapsecalc.layout import level
+            return level(s, v)
+        return f_h(s, v, False, " MSL")
+    if kind == "t":
+        return f_t(s, v)
+    if kind == "dt":
+        return f_dt(s, v)
+    if kind == "p":
+        return f_p(s, v)
+    if kind == "b":
+        return "    yes" if v else "     no"
+    if kind == "s":
+        return " " + str(v)
+    if kind == "rho":
+        return "%7.3f kg/m3" % v
+    if kind == "gmol":
+        return "%7.3f g/mol" % v
+    if kind == "frac":
+        return "%7.1f %%" % (100.0 * v)
+    if kind == "m3":
+        return ("%7.0f m3 %8.0f ft3" if v >= 100.0 else "%7.2f m3 %8.1f ft3") % (
+            v, m3_to_ft3(v))
+    if kind == "kg":
+        return "%7.1f kg %6.0f lb" % (v, kg_to_lb(v))
+    return ("%.6g" % v) if isinstance(v, float) else str(v)

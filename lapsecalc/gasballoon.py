@@ -188,20 +188,6 @@ def gas_report(col, gas, purity, gas_volume_m3, envelope_m3, weight_kg, z_m=None
                                ("float height", col.top_m if flt_above else flt)))
     if oxygen:
         warnings.append(oxygen)
-    notes = [
-        "The gas is taken at the outside pressure and at the outside temperature plus the"
-        " superheat you set (%.1f K), the same at every height; its impurity is dry air."
-        % dt,
-        "Zero-pressure envelope: below the full height all the gas is aboard and the lift"
-        " hardly changes; above it gas vents and the lift falls with the air density.",
-        "ballast_to_hold_kg is the ballast to drop at this height to stop sinking there;"
-        " with free lift, valve gas instead.",
-    ]
-    if dt > 0.0:
-        notes.append("When the superheat goes (sunset, shade) drop ballast_superheat_lost_kg"
-                     " to hold level; gas vented while warm makes it more than it gave.")
-    if gas == "hydrogen":
-        notes.append("Hydrogen burns in air: handle it under the rules that apply to it.")
     out["z_msl_m"] = z
     out["ambient_t_c"] = t_air
     out["ambient_p_hpa"] = p
@@ -230,6 +216,27 @@ def gas_report(col, gas, purity, gas_volume_m3, envelope_m3, weight_kg, z_m=None
     out["gas_t_c"] = t_air + dt
     out["superheat_lift_kg"] = g_z - gross(z, 0.0)
     out["ballast_superheat_lost_kg"] = superheat_loss_kg(rho, t_air, min(v_z, v_env), dt)
-    out["notes"] = tuple(notes)
+    out["notes"] = _notes(dt, gas)
     out["warnings"] = tuple(warnings)
     return out
+
+
+def _notes(superheat_k, gas):
+    # The report's notes: what the figures assume, and what the superheat and the gas
+    # ask for (gas_report is split so that a board loads no piece of its code larger
+    # than about 1 KB).
+    notes = [
+        "The gas is taken at the outside pressure and at the outside temperature plus the"
+        " superheat you set (%.1f K), the same at every height; its impurity is dry air."
+        % superheat_k,
+        "Zero-pressure envelope: below the full height all the gas is aboard and the lift"
+        " hardly changes; above it gas vents and the lift falls with the air density.",
+        "ballast_to_hold_kg is the ballast to drop at this height to stop sinking there;"
+        " with free lift, valve gas instead.",
+    ]
+    if superheat_k > 0.0:
+        notes.append("When the superheat goes (sunset, shade) drop ballast_superheat_lost_kg"
+                     " to hold level; gas vented while warm makes it more than it gave.")
+    if gas == "hydrogen":
+        notes.append("Hydrogen burns in air: handle it under the rules that apply to it.")
+    return tuple(notes)

@@ -87,25 +87,7 @@ def hot_air_report(col, volume_m3, weight_kg, max_envelope_t_c, envelope_t_c=Non
     else:
         limit_ceiling, limit_above = _ceiling(col, v, w, t_max, col.elev_m if ceiling is None
                                               else max(col.elev_m, ceiling - _TOL_M))
-    warnings = []
-    # Float noise of the two lift sums (about 1e-13 kg in double, 1e-4 in single
-    # precision) is no overload: a weight equal to the gross lift takes off.
-    if payload < -_NOISE_KG_PER_KG * w:
-        over = -payload
-        warnings.append("Too heavy to take off at the working envelope temperature %.0f degC:"
-                        " %s kg over." % (t_env, "%.0f" % over if over >= 1.0
-                                          else "less than 1"))
-    if t_need is None:
-        warnings.append("No envelope temperature floats %.0f kg at %.0f m MSL." % (w, z))
-    elif t_need > t_max:
-        warnings.append("Floating %.0f kg at %.0f m MSL needs %.1f degC in the envelope, above"
-                        " the maximum envelope temperature %.0f degC you set."
-                        % (w, z, t_need, t_max))
-    elif t_need > t_env:
-        warnings.append("Floating %.0f kg at %.0f m MSL needs %.1f degC in the envelope, above"
-                        " the working temperature %.0f degC." % (w, z, t_need, t_env))
-    if t_env == t_max:
-        warnings.append("Working temperature = maximum: all figures are the limit, no margin.")
+    warnings = _warnings(w, z, t_env, t_max, t_need, payload)
     if above:
         warnings.append("The ceiling lies above the column top (%.0f m MSL)." % col.top_m)
     oxygen = oxygen_note(col, (("planned height", z),
@@ -142,17 +124,49 @@ def hot_air_report(col, volume_m3, weight_kg, max_envelope_t_c, envelope_t_c=Non
     out["limit_ceiling_p_hpa"] = None if limit_ceiling is None else col.p_at(limit_ceiling)
     out["limit_ceiling_above_top"] = limit_above
     out["oxygen_note"] = oxygen
-    out["notes"] = (
+    out["notes"] = _notes(t_env, t_max, envelope_t_c is not None)
+    out["warnings"] = tuple(warnings)
+    return out
+
+
+def _warnings(w, z, t_env, t_max, t_need, payload):
+    # The warnings of the weight w kg at z m MSL (a list, more may follow): too heavy
+    # to take off (payload kg), the envelope temperature t_need that floats it against
+    # the working t_env and the maximum t_max (hot_air_report is split so that a board
+    # loads no piece of its code larger than about 1 KB).
+    warnings = []
+    # Float noise of the two lift sums (about 1e-13 kg in double, 1e-4 in single
+    # precision) is no overload: a weight equal to the gross lift takes off.
+    if payload < -_NOISE_KG_PER_KG * w:
+        over = -payload
+        warnings.append("Too heavy to take off at the working envelope temperature %.0f degC:"
+                        " %s kg over." % (t_env, "%.0f" % over if over >= 1.0
+                                          else "less than 1"))
+    if t_need is None:
+        warnings.append("No envelope temperature floats %.0f kg at %.0f m MSL." % (w, z))
+    elif t_need > t_max:
+        warnings.append("Floating %.0f kg at %.0f m MSL needs %.1f degC in the envelope, above"
+                        " the maximum envelope temperature %.0f degC you set."
+                        % (w, z, t_need, t_max))
+    elif t_need > t_env:
+        warnings.append("Floating %.0f kg at %.0f m MSL needs %.1f degC in the envelope, above"
+                        " the working temperature %.0f degC." % (w, z, t_need, t_env))
+    if t_env == t_max:
+        warnings.append("Working temperature = maximum: all figures are the limit, no margin.")
+    return warnings
+
+
+def _notes(t_env, t_max, set_by_you):
+    # The report's notes: the working temperature t_env (set by the user or the
+    # default) under the maximum t_max, and what the figures assume.
+    return (
         "Working figures: mean envelope air %.0f degC (%s, %.0f K under the maximum)."
         " The %.0f degC maximum is a crown limit: figures at it are the absolute limit,"
         " never a plan."
-        % (t_env, "set by you" if envelope_t_c is not None else "the default",
-           t_max - t_env, t_max),
+        % (t_env, "set by you" if set_by_you else "the default", t_max - t_env, t_max),
         "A crown reading runs hotter than the mean: enter it less the margin, never as"
         " it is.",
         "Envelope air is taken as the outside air heated at the same pressure with the"
         " same humidity; burner exhaust and heat losses are not modelled.",
         "Lift comes from the assumed lapse rate, not a sounding; the real air differs.",
     )
-    out["warnings"] = tuple(warnings)
-    return out

@@ -13,7 +13,6 @@ lapsecalc.showword) and their output in text, kv and json form (runs on MicroPyt
 # that use them. A new query word: its function in a word module's WORDS and its entry
 # in QUERIES; the keys it shows in lapsecalc.groups, their text labels in
 # lapsecalc.labels, its help in lapsecalc.helptext.
-from lapsecalc.aliases import shown
 from lapsecalc.state import assumed
 
 
@@ -60,6 +59,7 @@ def kv_report(s):
     try:
         rep = s.report()
     except ValueError as e:
+        from lapsecalc.aliases import shown
         return ["error: " + shown(str(e), 300)]
     from lapsecalc.groups import report_keys
     from lapsecalc.machine import kv_lines

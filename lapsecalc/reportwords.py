@@ -6,15 +6,22 @@ altimeter's view of it). Loaded for the word's line by lapsecalc.dispatch
 #   this module only picks and orders them.
 #
 # A word computes first and loads its output code (lapsecalc.queries.emit, the text
-# layout) after: on a board the word tables and that code are not held while the
-# report is computed.
-from lapsecalc.aliases import no_args
+# layout) after: on a board the word tables, the words' other names
+# (lapsecalc.aliases, read here only to refuse arguments) and that code are not held
+# while the report is computed.
+
+
+def _nothing_after(w, args):
+    # Refuse arguments after word w (lapsecalc.aliases.no_args, loaded only then).
+    if args:
+        from lapsecalc.aliases import no_args
+        no_args(w, args)
 
 
 def group_word(s, w, args):
     """A group of the report (obs base ice frost stab parcel thermal; da with no
     height): its lines."""
-    no_args(w, args)
+    _nothing_after(w, args)
     plus = ()
     if w == "base" and s.state.get("excess_c"):
         # The heated thermals' cloud base beside the unheated one.
@@ -39,7 +46,7 @@ def group_word(s, w, args):
 
 
 def _c_report(s, w, args):
-    no_args(w, args)
+    _nothing_after(w, args)
     rep = s.report(w)
     if s.mode != "text":
         s.release()
@@ -74,7 +81,7 @@ def _c_altimeter(s, w, args):
     if w == "levels":
         # The report first (its heap peak), then, with the report's own code let go
         # of (the Column stays), the altimeter code.
-        no_args(w, args)
+        _nothing_after(w, args)
         s.report(w)
         s.drop(("parcel", "stability", "hazards", "adiabats"))
     from lapsecalc.altiwords import altimeter_word

@@ -145,8 +145,10 @@ class Session:
         if self.drop_word_modules:
             # Here, not through self.drop(): measured, a collection one call deeper
             # left the reading's code held (Unix port 109 -> 113 KiB).
-            drop_modules(("dispatch", "queries"))  # queries: the table (and the output
-            self.collect()                         # code, loaded again after the numbers)
+            # The word tables (queries': and the output code, loaded again once the
+            # numbers are computed) and the words' other names (lapsecalc.aliases).
+            drop_modules(("dispatch", "queries", "aliases"))
+            self.collect()
         if fn is not None:
             return fn(self, w, args)
         # A line of settings: read (lapsecalc.settingline, let go of after it), then the

@@ -33,6 +33,7 @@ def group_word(s, w, args):
         for method in ("bolton", "spread"):
             more.append(s.column().cloud_base(method)[0])
     rep = s.report(w)
+    s.release()  # before the output code loads (emit would after)
     from lapsecalc.queries import emit
     out = emit(s, w, rep, False, None if plus else w, True, plus)
     if more:

@@ -34,7 +34,7 @@ def _s_tballoon(key, name, lo):
     return setter
 
 
-def _s_gas(s, new, args):
+def gas(s, new, args):
     g = {"he": "helium", "helium": "helium", "h2": "hydrogen", "hydrogen": "hydrogen",
          "none": None, "hot": None}.get(args[0].lower(), False)
     if g is False:
@@ -46,28 +46,29 @@ def _s_gas(s, new, args):
     return "gas " + (g or "none (hot air)")
 
 
-def _s_pure(s, new, args):
+def pure(s, new, args):
     new["purity"] = value(args[0], "rh", "%", 50.0, 100.0) / 100.0
     return "purity " + said(args[0], "%")
 
 
-def _s_margin(s, new, args):
+def margin(s, new, args):
     # A temperature difference, like excess: bare in K, F typed as F.
     new["margin_k"] = value(args[0], "dt", "k", 0.0, _MARGIN_MAX_K)
     return "margin %s below tmax" % echo(s, args[0], "dt", "k", new["margin_k"])
 
 
-def _s_superheat(s, new, args):
+def superheat(s, new, args):
     new["superheat_k"] = value(args[0], "dt", "k", 0.0, _SUPERHEAT_MAX_K)
     return "superheat " + echo(s, args[0], "dt", "k", new["superheat_k"])
 
 
-# word -> setter (what each takes and an example: lapsecalc.settings.SETTINGS)
+# word -> setter (what each takes and an example: lapsecalc.settings.SETTINGS); a
+# setter named after its word, as settings' are
 SETTERS = {
     "env": _s_amount("env_m3", "v", 0.1, 2.0e6, "m3", "envelope"),
     "wt": _s_amount("wt_kg", "w", 0.01, 20000.0, "kg", "weight"),
     "fill": _s_amount("fill_m3", "v", 0.1, 1.0e5, "m3", "fill"),
     "tmax": _s_tballoon("tmax_c", "tmax", _TMAX_MIN_C),
     "tenv": _s_tballoon("tenv_c", "tenv", T_MIN_C),
-    "gas": _s_gas, "pure": _s_pure, "margin": _s_margin, "superheat": _s_superheat,
+    "gas": gas, "pure": pure, "margin": margin, "superheat": superheat,
 }

@@ -41,7 +41,7 @@ def read_settings(s, words):
                 j += 1
         args = words[i + 1:j]
         if takes == ONE and not args:
-            raise ValueError("%s needs a value, e.g. %s" % (w, example))
+            raise ValueError("%s needs a value, %s" % (w, example))
         try:
             said.append(fn(s, new, args))
             set_words.append(w)

@@ -50,20 +50,13 @@ def parse_level(tok):
                      " 914m, 2.5km), a flight level (FL180) or a pressure (700hPa)" % shown(tok))
 
 
-
-
-def _sig(x):
-    # A derived amount at a sensible precision: 680, 12.3, 0.45.
-    return ("%.0f" if x >= 100.0 else "%.1f" if x >= 10.0 else "%.2f") % x
-
-
 def echo(s, tok, kind, bare, x):
     """The typed number tok (value x in the library's unit) said back as typed, and in
     the display unit when it was typed in another: "80.6 F (27.0 C)", "1350 ft (411 m)"."""
     u = unit_of(tok, bare)
     text = said(tok, bare)
     other = None
-    if kind == "t" and u not in (s.disp["t"], "deg" + s.disp["t"]):
+    if kind == "t" and u[-1] != s.disp["t"]:  # c or degc for c, f or degf for f
         other = f_t(s, x, True)
     elif kind == "h":
         other = "%d m" % round(x) if u == "ft" else f_h1(s, x) if u != s.disp["h"] else (
@@ -71,7 +64,9 @@ def echo(s, tok, kind, bare, x):
     elif kind == "p" and (u == "inhg") != (s.disp["p"] == "inhg") or u in ("mmhg", "kpa"):
         other = f_p(s, x, True)
     elif kind in ("w", "v") and u in ("lb", "ft3"):
-        other = _sig(x) + (" kg" if kind == "w" else " m3")
+        # A derived amount at a sensible precision: 680 kg, 12.3 m3, 0.45 kg.
+        other = ("%.0f %s" if x >= 100.0 else "%.1f %s" if x >= 10.0 else "%.2f %s") % (
+            x, "kg" if kind == "w" else "m3")
     elif kind == "dt" and u in ("f", "degf"):
         other = f_dt(s, x, True)
     return text if other is None else "%s (%s)" % (text, other)
@@ -101,19 +96,21 @@ def _temp(s, tok, what, hot):
 
 
 # ---- settings: f(session, new_state, args) -> words for the "ok" line ----
+# Each setter is named after its word: a board interns the word anyway, and a name of
+# its own ("_s_temp") would be one more name held for good.
 
-def _s_temp(s, new, args):
+def temp(s, new, args):
     new["t_c"], text = _temp(s, args[0], "temp", _HOT_T_C)
     return text
 
 
-def _s_dew(s, new, args):
+def dew(s, new, args):
     td, text = _temp(s, args[0], "dew", _HOT_TD_C)
     new["hum"] = ("td", td)
     return text
 
 
-def _s_rh(s, new, args):
+def rh(s, new, args):
     v = value(args[0], "rh", "%", 0.0, 100.0)
     if v <= 0.0:
         raise ValueError("0 % has no dewpoint; accepted above 0 up to 100 %")
@@ -125,7 +122,7 @@ def _s_rh(s, new, args):
     return "rh " + said(args[0], "%")
 
 
-def _s_elev(s, new, args):
+def elev(s, new, args):
     new["elev_m"] = value(args[0], "h", s.disp["h"], ELEV_MIN_M, ELEV_MAX_M)
     return "elev " + echo(s, args[0], "h", s.disp["h"], new["elev_m"]) + " MSL"
 
@@ -152,19 +149,19 @@ def _pressure(s, tok, lo, hi):
         raise ValueError(str(e) + hint)
 
 
-def _s_qnh(s, new, args):
+def qnh(s, new, args):
     v = _pressure(s, args[0], QNH_MIN_HPA, QNH_MAX_HPA)
     new["press"] = ("qnh", v)
     return "QNH " + echo(s, args[0], "p", s.disp["p"], v)
 
 
-def _s_stn(s, new, args):
+def stn(s, new, args):
     v = _pressure(s, args[0], _STN_MIN_HPA, P_MAX_HPA)
     new["press"] = ("stn", v)
     return "station " + echo(s, args[0], "p", s.disp["p"], v)
 
 
-def _s_elr(s, new, args):
+def elr(s, new, args):
     if not args:
         raise ValueError("needs a rate, e.g. elr 6.5 or elr -5@300m 8@2km 6.5")
     if len(args) > _MAX_LAYERS:
@@ -192,18 +189,18 @@ def _s_elr(s, new, args):
     return "ELR " + f_lapse(s, new["lapse"])
 
 
-def _s_top(s, new, args):
+def top(s, new, args):
     new["top_m"] = value(args[0], "h", s.disp["h"], -400.0, TOP_MAX_M)
     return "top " + echo(s, args[0], "h", s.disp["h"], new["top_m"]) + " MSL"
 
 
-def _s_excess(s, new, args):
+def excess(s, new, args):
     # A temperature difference: bare in K (or C: the same step), F typed as F.
     new["excess_c"] = value(args[0], "dt", "k", 0.0, 10.0)
     return "excess " + echo(s, args[0], "dt", "k", new["excess_c"])
 
 
-def _s_metar(s, new, args):
+def metar(s, new, args):
     from lapsecalc.metar import parse
     m = parse(" ".join(args))
     new["t_c"] = m["t_c"]
@@ -225,12 +222,12 @@ def _s_metar(s, new, args):
     return ", ".join(said)
 
 
-def _s_aloft(s, new, args):
+def aloft(s, new, args):
     from lapsecalc.aloftwords import set_aloft
     return set_aloft(s, new, args, parse_level)
 
 
-def _s_trop(s, new, args):
+def trop(s, new, args):
     from lapsecalc.aloftwords import set_trop
     return set_trop(s, new, args, echo)
 
@@ -250,9 +247,9 @@ def whole(s, new):
                          % (f_t(s, hum[1], True), f_t(s, t, True)))
     press, elev = new.get("press"), new.get("elev_m")
     if press is not None and press[0] == "stn" and elev is not None:
-        from lapsecalc.standard import qnh
+        from lapsecalc import standard
         try:
-            qnh(press[1], elev)
+            standard.qnh(press[1], elev)
         except ValueError:
             lo, hi = in_unit(QNH_MIN_HPA, s.disp["p"], "p"), in_unit(QNH_MAX_HPA, s.disp["p"], "p")
             raise ValueError("stn %s at elev %s gives a QNH outside %s..%s; check both"
@@ -277,20 +274,25 @@ def whole(s, new):
 ONE, NUMBERS, REST = 1, 2, 3
 # word -> (setter, what it takes, example); the balloon's setters are in
 # lapsecalc.balloonsettings (the name of that module here: the shell loads it only for
-# a line that sets one).
+# a line that sets one). Each example starts "e.g. ": longer than 10 characters, a
+# string a board does not intern (it holds it only while this module is loaded).
 SETTINGS = {
-    "temp": (_s_temp, ONE, "temp 27C"), "dew": (_s_dew, ONE, "dew 13C"),
-    "rh": (_s_rh, ONE, "rh 45%"), "elev": (_s_elev, ONE, "elev 1350ft"),
-    "qnh": (_s_qnh, ONE, "qnh 1016"), "stn": (_s_stn, ONE, "stn 967hPa"),
-    "elr": (_s_elr, NUMBERS, "elr 6.5"), "top": (_s_top, ONE, "top 30000ft"),
-    "excess": (_s_excess, ONE, "excess 2C"),
-    "metar": (_s_metar, REST, "metar ... 24/M02 Q1016"),
-    "env": ("balloonsettings", ONE, "env 2800m3"), "wt": ("balloonsettings", ONE, "wt 450kg"),
-    "fill": ("balloonsettings", ONE, "fill 12m3"), "tmax": ("balloonsettings", ONE, "tmax 120C"),
-    "tenv": ("balloonsettings", ONE, "tenv 95C"), "gas": ("balloonsettings", ONE, "gas helium"),
-    "pure": ("balloonsettings", ONE, "pure 98%"), "margin": ("balloonsettings", ONE, "margin 20K"),
-    "superheat": ("balloonsettings", ONE, "superheat 12K"),
-    "aloft": (_s_aloft, REST, "aloft 6000ft 9C/2C"), "trop": (_s_trop, ONE, "trop 36000ft"),
+    "temp": (temp, ONE, "e.g. temp 27C"), "dew": (dew, ONE, "e.g. dew 13C"),
+    "rh": (rh, ONE, "e.g. rh 45%"), "elev": (elev, ONE, "e.g. elev 1350ft"),
+    "qnh": (qnh, ONE, "e.g. qnh 1016"), "stn": (stn, ONE, "e.g. stn 967hPa"),
+    "elr": (elr, NUMBERS, "e.g. elr 6.5"), "top": (top, ONE, "e.g. top 30000ft"),
+    "excess": (excess, ONE, "e.g. excess 2C"),
+    "metar": (metar, REST, "e.g. metar ... 24/M02 Q1016"),
+    "env": ("balloonsettings", ONE, "e.g. env 2800m3"),
+    "wt": ("balloonsettings", ONE, "e.g. wt 450kg"),
+    "fill": ("balloonsettings", ONE, "e.g. fill 12m3"),
+    "tmax": ("balloonsettings", ONE, "e.g. tmax 120C"),
+    "tenv": ("balloonsettings", ONE, "e.g. tenv 95C"),
+    "gas": ("balloonsettings", ONE, "e.g. gas helium"),
+    "pure": ("balloonsettings", ONE, "e.g. pure 98%"),
+    "margin": ("balloonsettings", ONE, "e.g. margin 20K"),
+    "superheat": ("balloonsettings", ONE, "e.g. superheat 12K"),
+    "aloft": (aloft, REST, "e.g. aloft 6000ft 9C/2C"), "trop": (trop, ONE, "e.g. trop 36000ft"),
 }
 
 

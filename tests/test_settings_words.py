@@ -6,7 +6,7 @@ Units: 1 ft = 0.3048 m, 1 lb = 0.45359237 kg, 1 inHg = 33.8639 hPa, 1 mmHg =
 import pytest
 
 from lapsecalc.shell import Session
-from lapsecalc.settings import parse_level, _sig, SETTINGS, ONE, NUMBERS, REST
+from lapsecalc.settings import parse_level, echo, SETTINGS, ONE, NUMBERS, REST
 
 
 def feed(s, line):
@@ -224,9 +224,15 @@ def test_parse_level():
 
 
 def test_derived_amounts_at_a_sensible_precision():
-    # Three significant digits or whole units: 680, 45.4, 9.07, 0.28.
-    assert [_sig(x) for x in (680.389, 100.0, 99.94, 45.359, 10.0, 9.996, 9.0718, 0.2832)] == [
-        "680", "100", "99.9", "45.4", "10.0", "10.00", "9.07", "0.28"]
+    # Three significant digits or whole units: 680, 45.4, 9.07, 0.28 (an amount typed in
+    # lb said back in kg, one in ft3 in m3).
+    s = Session()
+    xs = (680.389, 100.0, 99.94, 45.359, 10.0, 9.996, 9.0718, 0.2832)
+    assert [echo(s, "1lb", "w", "kg", x) for x in xs] == [
+        "1 lb (%s kg)" % t for t in ("680", "100", "99.9", "45.4", "10.0", "10.00", "9.07",
+                                     "0.28")]
+    assert echo(s, "2ft3", "v", "m3", 0.0566) == "2 ft3 (0.06 m3)"
+    assert echo(s, "2kg", "w", "kg", 2.0) == "2 kg"
 
 
 def test_what_each_setting_takes():

@@ -17,7 +17,7 @@ CLEAR = {"temp": ("t_c",), "dew": ("hum",), "rh": ("hum",), "elev": ("elev_m",),
          "aloft": ("aloft",), "trop": ("trop_m",)}
 
 
-def _clear(s, w, args):
+def clear(s, w, args):
     new = {} if not args else dict(s.state)
     for a in args:
         if a.lower() not in CLEAR:
@@ -35,7 +35,7 @@ _DISPLAY = {"ft": ("h", "ft"), "m": ("h", "m"), "c": ("t", "c"), "degc": ("t", "
             "inhg": ("p", "inhg")}
 
 
-def _unit(s, w, args):
+def unit(s, w, args):
     disp = dict(s.disp)
     for a in args:
         if a.lower() not in _DISPLAY:
@@ -47,12 +47,12 @@ def _unit(s, w, args):
                                       "hPa" if disp["p"] == "hpa" else "inHg"), ["unit"])
 
 
-def _heights(s, w, args):
+def heights(s, w, args):
     from lapsecalc.altitext import heights_word
     return heights_word(s, w, args)
 
 
-def _out(s, w, args):
+def out(s, w, args):
     mode = args[0].lower() if len(args) == 1 else ""
     if mode not in ("text", "kv", "json"):
         raise ValueError("out needs one of text, kv, json")
@@ -60,7 +60,7 @@ def _out(s, w, args):
     return ack(s, "out " + mode, ["out"])
 
 
-def _help(s, w, args):
+def help(s, w, args):
     from lapsecalc.helptext import OVERVIEW, HELP
     if not args:
         return list(OVERVIEW)
@@ -71,12 +71,13 @@ def _help(s, w, args):
     return list(HELP[word])
 
 
-def _bye(s, w, args):
+def bye(s, w, args):
     no_args(w, args)
     s.done = True
     return []
 
 
-# session word -> f(session, word, args) -> output lines
-COMMANDS = {"clear": _clear, "unit": _unit, "heights": _heights, "out": _out, "help": _help,
-            "bye": _bye}
+# session word -> f(session, word, args) -> output lines; each function is named after
+# its word (a board interns the word anyway, a name of its own would be one more)
+COMMANDS = {"clear": clear, "unit": unit, "heights": heights, "out": out, "help": help,
+            "bye": bye}

@@ -27,23 +27,42 @@ _UNITS = {
     "%": ("rh", None), "m3": ("v", None), "ft3": ("v", units.ft3_to_m3),
     "kg": ("w", None), "lb": ("w", units.lb_to_kg),
 }
-# How a unit is written back to the user.
-_WRITTEN = {"c": "C", "degc": "C", "f": "F", "degf": "F", "k": "K", "hpa": "hPa",
-            "mb": "mb", "mbar": "mbar", "inhg": "inHg", "mmhg": "mmHg", "kpa": "kPa",
-            "k/km": "K/km", "c/km": "C/km", "c/1000ft": "C/1000ft", "k/1000ft": "K/1000ft",
-            "f/1000ft": "F/1000ft", "c/100m": "C/100m", "k/100m": "K/100m"}
-_ACCEPTED = {"t": "C F K", "h": "ft m km", "p": "hPa mb inHg mmHg kPa",
-             "l": "K/km C/1000ft C/100m F/1000ft", "rh": "%", "v": "m3 ft3", "w": "kg lb"}
+
+
+def written(u):
+    """The unit u (lower case, as typed) as it is written back to the user: "hPa" for
+    hpa, "C" for degc; a unit written as it is typed (ft, m, mb, %) is u itself."""
+    # One string of "typed=written" entries, not a table of short strings (a board
+    # interns each string of up to 10 characters for good).
+    table = (" c=C f=F k=K hpa=hPa inhg=inHg mmhg=mmHg kpa=kPa k/km=K/km c/km=C/km"
+             " c/1000ft=C/1000ft k/1000ft=K/1000ft f/1000ft=F/1000ft c/100m=C/100m"
+             " k/100m=K/100m ")
+    key = u[3:] if u in ("degc", "degf") else u
+    i = table.find(" %s=" % key)
+    if i < 0:
+        return u
+    i += len(key) + 2
+    return table[i:table.find(" ", i)]
+
+
+def accepted(want):
+    """The units accepted for quantity want (t degC, h m, p hPa, l K/km, rh %, v m3,
+    w kg), as an error message lists them: "C F K"."""
+    # One string of ";quantity:units" entries (as written(): no short strings).
+    table = (";t:C F K;h:ft m km;p:hPa mb inHg mmHg kPa;l:K/km C/1000ft C/100m F/1000ft"
+             ";rh:%;v:m3 ft3;w:kg lb;")
+    i = table.find(";%s:" % want) + len(want) + 2
+    return table[i:table.find(";", i)]
 
 def number(tok, kind, bare):
-    """Value of the typed number tok in the library's unit of quantity kind (a key of
-    _ACCEPTED, or "dt" for a temperature difference); bare is the unit of a number
+    """Value of the typed number tok in the library's unit of quantity kind (one that
+    accepted() knows, or "dt" for a temperature difference); bare is the unit of a number
     without a suffix. Raises ValueError naming what is accepted."""
     want = "t" if kind == "dt" else kind
     sp = split_number(tok)
     if sp is None:
         raise ValueError("'%s' is not a number; accepted e.g. 12, -3.5, 1e3, with a unit %s"
-                         % (shown(tok), _ACCEPTED[want]))
+                         % (shown(tok), accepted(want)))
     x = float(sp[0])
     if not isfinite(x):
         raise ValueError("'%s' is not a finite number" % shown(tok))
@@ -54,7 +73,7 @@ def number(tok, kind, bare):
     entry = _UNITS.get(u)
     if entry is None or entry[0] != want:
         raise ValueError("'%s': unit '%s' not accepted here; accepted %s"
-                         % (shown(tok), shown(u), _ACCEPTED[want]))
+                         % (shown(tok), shown(u), accepted(want)))
     if kind == "dt":
         return x * 5.0 / 9.0 if u in ("f", "degf") else x
     return x if entry[1] is None else entry[1](x)
@@ -91,7 +110,7 @@ def in_unit(x, u, kind="t"):
     text = ("%." + str(d) + "f") % v
     if "." in text:
         text = text.rstrip("0").rstrip(".")
-    return ("0" if text == "-0" else text) + " " + _WRITTEN.get(u, u)
+    return ("0" if text == "-0" else text) + " " + written(u)
 
 
 def value(tok, kind, bare, lo, hi, word=""):
@@ -115,7 +134,7 @@ def digits(tok):
         d = d[1:]
     if d[:1] == "-" and float(d) == 0.0:
         d = d[1:]
-    if d[:1] == "." or d[:2] == "-.":
+    if d.lstrip("-")[:1] == ".":
         d = d.replace(".", "0.", 1)
     if d[-1:] == ".":
         d = d[:-1]
@@ -129,11 +148,11 @@ def said(tok, bare):
     if sp is None:
         return shown(tok)
     u = sp[1] or bare
-    return "%s %s" % (shown(digits(tok), 16), _WRITTEN.get(u, u))
+    return "%s %s" % (shown(digits(tok), 16), written(u))
 
 
 def unit_kind(tok):
-    """The quantity (a key of _ACCEPTED) of the unit written after the number tok, or
+    """The quantity (one that accepted() knows) of the unit written after the number tok, or
     None (no number, no unit, or an unknown one)."""
     sp = split_number(tok)
     return None if sp is None else _UNITS.get(sp[1], (None,))[0]
@@ -169,12 +188,6 @@ def join_words(words):
     return out
 
 
-def near_unit(word):
-    """The unit (as written: "ft", "hPa") closest to word, or None (nearest())."""
-    u = nearest(word, list(_UNITS) + ["feet"])
-    return None if u is None else _WRITTEN.get(u, u)
-
-
 def _edit_distance(a, b):
     # Levenshtein distance of two short words (callers cap them at 16 characters).
     prev = list(range(len(b) + 1))
@@ -186,11 +199,11 @@ def _edit_distance(a, b):
     return prev[-1]
 
 
-def nearest(word, known):
-    """The known word closest to word (at most 2 edits, fewer than its length), or None."""
+def nearest(word, words):
+    """The one of words closest to word (at most 2 edits, fewer than its length), or None."""
     w = word.lower()[:16]
     best, best_d = None, 3
-    for k in sorted(known):
+    for k in sorted(words):
         if abs(len(k) - len(w)) < best_d:
             d = _edit_distance(w, k)
             if d < best_d and d < len(w):
@@ -198,23 +211,25 @@ def nearest(word, known):
     return best
 
 
-def unknown(word, known, after=None):
+def unknown(word, words, after=None):
     """The error for word, which no table has. A suggestion is only of the same kind:
     a unit is said to be one; right after a number (after, the word before it) a slip
-    of a unit is a unit ("6500 fet"); else the nearest of known (the words that may
-    stand there, the caller's list: it is extended by their aliases)."""
+    of a unit is a unit ("6500 fet"); else the nearest of words (those that may stand
+    there, the caller's list: it is extended by their aliases)."""
     if is_unit(word):
         return "'%s' is a unit: write it after its number, e.g. elev 6500 ft" % shown(word)
     if word.lower() in AMBIGUOUS:
         return AMBIGUOUS[word.lower()]
-    unit = near_unit(word) if after is not None and starts_number(after) else None
+    unit = None
+    if after is not None and starts_number(after):
+        unit = nearest(word, list(_UNITS) + ["feet"])
     if unit is not None:
         return "unknown word '%s' after %s; did you mean the unit: %s %s?" % (
-            shown(word), shown(after), shown(after), unit)
+            shown(word), shown(after), shown(after), written(unit))
     for a in ALIASES:
-        if ALIASES[a] in known and len(a) > 2:
-            known.append(a)
-    near = nearest(word, known)
+        if ALIASES[a] in words and len(a) > 2:
+            words.append(a)
+    near = nearest(word, words)
     near = ALIASES.get(near, near)
     return "unknown word '%s'; %s(help lists the words)" % (
         shown(word), "did you mean '%s'? " % near if near else "")

@@ -12,14 +12,14 @@ except ImportError:
 
 T_MIN_C = -90.0
 T_MAX_C = 60.0
-P_MIN_HPA = 1.0
+_P_MIN_HPA = const(1.0)
 P_MAX_HPA = 1100.0
 QNH_MIN_HPA = 850.0
 QNH_MAX_HPA = 1100.0
 ELEV_MIN_M = -500.0
 ELEV_MAX_M = 9000.0
-LAPSE_MIN_K_PER_KM = -30.0
-LAPSE_MAX_K_PER_KM = 30.0
+_LAPSE_MIN_K_PER_KM = const(-30.0)
+_LAPSE_MAX_K_PER_KM = const(30.0)
 # How far a dewpoint may exceed the temperature before it is an error (rounding), K.
 DEW_SLACK_K = 0.05
 # The highest column top, m MSL (lapsecalc.profile; here so that the setting words check
@@ -46,9 +46,9 @@ def check(name, value, lo, hi, unit):
     except (TypeError, ValueError, OverflowError):
         x = None
     if x is None or not lo <= x <= hi:  # NaN fails every comparison
-        raise ValueError("%s=%s is %s the allowed range %g..%g %s" % (
-            name, shown(value), "outside" if x is not None else "not a number in", lo, hi,
-            unit))
+        raise ValueError("%s=%s is %s allowed range %g..%g %s" % (
+            name, shown(value), "outside the" if x is not None else "not a number in the",
+            lo, hi, unit))
     return x
 
 
@@ -63,7 +63,7 @@ def check_t(name, t_c):
 
 
 def check_p(name, p_hpa):
-    return check(name, p_hpa, P_MIN_HPA, P_MAX_HPA, "hPa")
+    return check(name, p_hpa, _P_MIN_HPA, P_MAX_HPA, "hPa")
 
 
 def check_elev(name, elev_m):
@@ -71,7 +71,7 @@ def check_elev(name, elev_m):
 
 
 def check_lapse(name, lapse):
-    return check(name, lapse, LAPSE_MIN_K_PER_KM, LAPSE_MAX_K_PER_KM, "K/km")
+    return check(name, lapse, _LAPSE_MIN_K_PER_KM, _LAPSE_MAX_K_PER_KM, "K/km")
 
 
 def check_dew(t_c, td_c):

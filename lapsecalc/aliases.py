@@ -5,18 +5,27 @@ lapsecalc.typed's, loaded only for a line that needs one)."""
 # Sources: none. lapsecalc.typed (numbers with units) builds on it and re-exports it.
 
 
-# Other names of words: typed word -> the word it stands for. Each stands for one word
-# only; "alt" (altimeter or altitude?) is refused with both (AMBIGUOUS).
-ALIASES = {"t": "temp", "oat": "temp", "temperature": "temp", "td": "dew", "dp": "dew",
-           "dewpoint": "dew", "humidity": "rh", "elevation": "elev", "altimeter": "qnh",
-           "frz": "ice", "therm": "thermal", "units": "unit", "bal": "balloon", "sh": "superheat",
-           "?": "help",
-           "quit": "bye", "exit": "bye"}
+# Other names of words: " typed=word" entries, read by look_up(). Each stands for one
+# word only; "alt" (altimeter or altitude?) is refused with both (AMBIGUOUS). One
+# string, not a table: a board interns each short string of a table for good.
+ALIASES = (" t=temp oat=temp temperature=temp td=dew dp=dew dewpoint=dew humidity=rh"
+           " elevation=elev altimeter=qnh frz=ice therm=thermal units=unit bal=balloon"
+           " sh=superheat ?=help quit=bye exit=bye ")
 AMBIGUOUS = {"alt": "'alt' is the altimeter setting or an altitude: write qnh (qnh"
                     " 29.92inHg), elev (elev 1350ft) or at (at 8000ft)"}
 # Two typed words that are one: "field elevation".
 PAIRS = {("field", "elevation"): "elev", ("field", "elev"): "elev",
          ("dew", "point"): "dew", ("altimeter", "setting"): "qnh"}
+
+
+def look_up(table, key, default=None):
+    """The value of key in table, a string of " key=value" entries (ALIASES), or
+    default when it has none: look_up(ALIASES, "oat") == "temp"."""
+    i = table.find(" %s=" % key)
+    if i < 0:
+        return default
+    i += len(key) + 2
+    return table[i:table.find(" ", i)]
 
 
 def shown(text, cap=24):

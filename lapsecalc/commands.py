@@ -5,7 +5,7 @@ MicroPython)."""
 # A session word is f(session, word, args) -> output lines, like a query, but it may
 # change the session: it checks everything first and changes only at the end, so a
 # refused line leaves the session as it was.
-from lapsecalc.typed import ALIASES, shown, no_args
+from lapsecalc.typed import ALIASES, shown, no_args, look_up
 from lapsecalc.output import ack
 
 # clear WORD -> state keys it forgets (the keys: lapsecalc.state)
@@ -65,7 +65,7 @@ def help(s, w, args):
     if not args:
         return list(OVERVIEW)
     word = args[0].lower()
-    word = ALIASES.get(word, word)
+    word = look_up(ALIASES, word, word)
     if len(args) > 1 or word not in HELP:
         raise ValueError("help takes one word of the list, e.g. help elr; help alone lists them")
     return list(HELP[word])

@@ -8,7 +8,7 @@ of before the word runs)."""
 # before the word computes, so a report's heap never holds the reading of the line.
 # A line of settings comes back to the shell, which lets go of this module before
 # lapsecalc.settingline reads it.
-from lapsecalc.aliases import ALIASES, PAIRS, shown, split_number, starts_number
+from lapsecalc.aliases import ALIASES, PAIRS, shown, split_number, starts_number, look_up
 
 # The setting words (lapsecalc.settings.SETTINGS) and the session words
 # (lapsecalc.commands.COMMANDS), in their tables' order: their modules load only for a
@@ -76,7 +76,7 @@ def retold(s, st, e, line=None):
         from lapsecalc.retell import retell
         text = retell(s, st, text)
         w = split_line(line)[:1] if isinstance(line, str) else None
-        w = ALIASES.get(w[0].lower(), w[0].lower()) if w else ""
+        w = look_up(ALIASES, w[0].lower(), w[0].lower()) if w else ""
         from lapsecalc.queries import QUERIES
         if w in QUERIES and text[:len(w)] != w:
             text = w + ": " + text
@@ -106,7 +106,7 @@ def find(s, line):
     if not words:
         return None
     w = words[0].lower()
-    w = ALIASES.get(w, w)
+    w = look_up(ALIASES, w, w)
     if s.drop_word_modules and s._rep is not None and (
             w in _NO_REPORT or (w == "da" and len(words) > 1)):
         s._rep = None

@@ -5,7 +5,7 @@ tables, lapsecalc.dispatch, are let go of)."""
 #
 # Each setting word's setter (lapsecalc.settings) writes into the copy; only a line
 # that passed every check replaces the state (Session.commit, with the new Column).
-from lapsecalc.aliases import ALIASES, starts_number
+from lapsecalc.aliases import ALIASES, starts_number, look_up
 
 # The setting words' modules: let go of on a board once a line's settings are read,
 # before the points aloft are checked and the new state's Column is built.
@@ -25,7 +25,7 @@ def read_settings(s, words):
     i = 0
     while i < len(words):
         w = words[i].lower()
-        w = ALIASES.get(w, w)
+        w = look_up(ALIASES, w, w)
         if w not in SETTINGS:
             from lapsecalc.dispatch import other_words, unknown_word
             if w in other_words():

@@ -7,7 +7,7 @@ named here too (runs on MicroPython)."""
 from math import isfinite
 from lapsecalc import units
 from lapsecalc.aliases import (ALIASES, AMBIGUOUS, PAIRS, shown, split_number,  # noqa: F401
-                               no_args, starts_number)
+                               no_args, starts_number, look_up)
 
 # Unit suffix (lower case) -> (quantity, converter to the library's unit or None).
 # Quantities: t degC, h m, p hPa, l K/km, rh %, v m3, w kg.
@@ -32,17 +32,12 @@ _UNITS = {
 def written(u):
     """The unit u (lower case, as typed) as it is written back to the user: "hPa" for
     hpa, "C" for degc; a unit written as it is typed (ft, m, mb, %) is u itself."""
-    # One string of "typed=written" entries, not a table of short strings (a board
+    # One string of " typed=written" entries, not a table of short strings (a board
     # interns each string of up to 10 characters for good).
     table = (" c=C f=F k=K hpa=hPa inhg=inHg mmhg=mmHg kpa=kPa k/km=K/km c/km=C/km"
              " c/1000ft=C/1000ft k/1000ft=K/1000ft f/1000ft=F/1000ft c/100m=C/100m"
              " k/100m=K/100m ")
-    key = u[3:] if u in ("degc", "degf") else u
-    i = table.find(" %s=" % key)
-    if i < 0:
-        return u
-    i += len(key) + 2
-    return table[i:table.find(" ", i)]
+    return look_up(table, u[3:] if u in ("degc", "degf") else u, u)
 
 
 def accepted(want):
@@ -226,10 +221,11 @@ def unknown(word, words, after=None):
     if unit is not None:
         return "unknown word '%s' after %s; did you mean the unit: %s %s?" % (
             shown(word), shown(after), shown(after), written(unit))
-    for a in ALIASES:
-        if ALIASES[a] in words and len(a) > 2:
+    for entry in ALIASES.split():
+        a, stands_for = entry.split("=")
+        if stands_for in words and len(a) > 2:
             words.append(a)
     near = nearest(word, words)
-    near = ALIASES.get(near, near)
+    near = look_up(ALIASES, near, near)
     return "unknown word '%s'; %s(help lists the words)" % (
         shown(word), "did you mean '%s'? " % near if near else "")

@@ -87,7 +87,8 @@ def test_nearest_takes_at_most_two_edits():
 # 1 lb = 0.45359237 kg, F = C * 1.8 + 32) ----
 
 from lapsecalc.typed import (in_unit, digits, said, value, unit_of, unit_kind, join_words,
-                             is_unit, starts_number, no_args, ALIASES, AMBIGUOUS, PAIRS)
+                             is_unit, starts_number, no_args, ALIASES, AMBIGUOUS, PAIRS,
+                             look_up)
 
 
 def test_shown_keeps_the_printable_ends():
@@ -170,9 +171,14 @@ def test_words_joined():
         "temp", "27C", "metar", "field", "elevation"]
     # every pair and alias names a word of one meaning; alt is refused as ambiguous
     assert set(PAIRS.values()) <= {"elev", "dew", "qnh"}
-    assert ALIASES["altimeter"] == "qnh" and ALIASES["elevation"] == "elev"
-    assert ALIASES["oat"] == "temp" and ALIASES["dp"] == "dew" and ALIASES["dewpoint"] == "dew"
-    assert "alt" not in ALIASES and "qnh" in AMBIGUOUS["alt"] and "elev" in AMBIGUOUS["alt"]
+    assert look_up(ALIASES, "altimeter") == "qnh" and look_up(ALIASES, "elevation") == "elev"
+    assert look_up(ALIASES, "oat") == "temp" and look_up(ALIASES, "dp") == "dew"
+    assert look_up(ALIASES, "dewpoint") == "dew" and look_up(ALIASES, "t") == "temp"
+    assert look_up(ALIASES, "exit") == "bye" and look_up(ALIASES, "?") == "help"
+    # Only a whole typed word is an alias; anything else is itself (the default).
+    for w in ("alt", "temp", "dew", "e", "oat=temp", "", "=", "it", "exi", "xit"):
+        assert look_up(ALIASES, w) is None and look_up(ALIASES, w, w) == w
+    assert "qnh" in AMBIGUOUS["alt"] and "elev" in AMBIGUOUS["alt"]
 
 
 def test_exponent_digits_and_nearest_ties():

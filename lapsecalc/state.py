@@ -39,11 +39,11 @@ def fl_pressure_hpa(fl):
     return isa(fl * 30.48)[1]
 
 
-def aloft_points(pts):
-    """The state's points aloft (kind, level, t_c, td_c; lapsecalc.aloftwords) as
-    lapsecalc.column.Column takes them."""
+def aloft_points(aloft):
+    """The state's points aloft (its "aloft": kind, level, t_c, td_c;
+    lapsecalc.aloftwords) as lapsecalc.column.Column takes them."""
     out = []
-    for kind, level, t, td in pts:
+    for kind, level, t, td in aloft:
         if kind == "z":
             out.append((level, t, td))
         else:
@@ -80,7 +80,7 @@ def assumed(st, balloon=False, inhg=False):
     inHg when inhg; each fits a 40-column line after "assumed ")."""
     out = []
     if "press" not in st:
-        out.append("QNH %s (qnh not set)" % ("29.92 inHg" if inhg else "1013.25 hPa"))
+        out.append("QNH 29.92 inHg (qnh not set)" if inhg else "QNH 1013.25 hPa (qnh not set)")
     if "lapse" not in st:
         out.append("ELR %.1f K/km (ISA; elr not set)" % ISA_LAPSE_K_PER_KM)
     if balloon and "gas" in st and "purity" not in st:

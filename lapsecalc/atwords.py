@@ -8,7 +8,7 @@ temperature (runs on MicroPython; loaded only by their lines)."""
 from lapsecalc.queries import emit
 
 
-def _c_at(s, w, args):
+def at(s, w, args):
     if w == "da" and not args:  # the field's density altitude: a group of the report
         from lapsecalc.reportwords import group_word
         return group_word(s, w, args)
@@ -60,7 +60,7 @@ def _parcel_t(s, col, z):
     return t
 
 
-def _c_iso(s, w, args):
+def iso(s, w, args):
     if len(args) != 1:
         raise ValueError("iso needs one temperature, e.g. iso -15C")
     col = s.column(w)
@@ -74,5 +74,6 @@ def _c_iso(s, w, args):
     return emit(s, "iso", vals)
 
 
-# word -> f(session, word, args) -> output lines
-WORDS = {"at": _c_at, "da": _c_at, "iso": _c_iso}
+# word -> f(session, word, args) -> output lines (each named after its word: a board
+# interns the word anyway)
+WORDS = {"at": at, "da": at, "iso": iso}

@@ -43,7 +43,7 @@ def _gas_report(s, w, args, gas):
                       st["wt_kg"], z, st.get("superheat_k", 0.0))
 
 
-def _c_balloon(s, w, args):
+def balloon(s, w, args):
     st = s.state
     gas = st.get("gas")
     _balloon_needs(s, w, gas)
@@ -83,7 +83,7 @@ def _hot_report(s, w, args):
                           st.get("margin_k", DEFAULT_MARGIN_K))
 
 
-def _c_sunset(s, w, args):
+def sunset(s, w, args):
     gas = s.state.get("gas")
     if not gas:
         raise ValueError("sunset is for a gas balloon: set gas helium (or h2), env, fill, wt"
@@ -96,7 +96,7 @@ def _c_sunset(s, w, args):
     return out
 
 
-def _c_loads(s, w, args):
+def loads(s, w, args):
     # loads [EMPTY]: the load table at the working temperature, rows every 2000 ft (or
     # 500 m) up to 10000 ft (3000 m) above the field, six field temperatures (few
     # rows: every cell is a lift computed in its own column, and a board pays for each).
@@ -139,5 +139,6 @@ def _load_table(s, w, empty):
                       step_m=609.6 if ft else 500.0, depth_m=3048.0 if ft else 3000.0)
 
 
-# balloon word -> f(session, word, args) -> output lines
-WORDS = {"balloon": _c_balloon, "loads": _c_loads, "sunset": _c_sunset}
+# balloon word -> f(session, word, args) -> output lines (each named after its word: a board
+# interns the word anyway)
+WORDS = {"balloon": balloon, "loads": loads, "sunset": sunset}

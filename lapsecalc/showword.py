@@ -64,7 +64,7 @@ def show_text(s):
     return out
 
 
-def _c_show(s, w, args):
+def show(s, w, args):
     no_args(w, args)
     st = s.state
     if s.mode == "text":
@@ -114,4 +114,5 @@ def _c_show(s, w, args):
     return kv_lines(vals, keys)
 
 
-WORDS = {"show": _c_show}
+# show -> its function (named after the word: a board interns the word anyway)
+WORDS = {"show": show}

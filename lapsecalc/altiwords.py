@@ -33,13 +33,6 @@ def levels_word(s, w):
     return keys, vals, cold_warnings(col, rep)
 
 
-# Heights above the field the cold word shows when asked for none, in the display unit.
-_COLD = {"ft": (500.0, 1000.0, 1500.0, 2000.0, 3000.0, 5000.0),
-         "m": (150.0, 300.0, 500.0, 1000.0, 1500.0)}
-COLD_KEYS = ("isa_deviation_c", "cold_height_agl_m", "cold_correction_icao_m",
-             "cold_correction_column_m")
-
-
 def cold_word(s, w, args):
     """The cold word: (keys, values) of the cold-temperature correction (PANS-OPS
     formula and the column's own) for a few heights above the field, or for the one in
@@ -66,14 +59,17 @@ def cold_word(s, w, args):
             value(args[0], "h", s.disp["h"], 0.0, room, w)
         hs = [h]
     else:
-        u = s.disp["h"]
-        hs = [h * units.M_PER_FT if u == "ft" else h for h in _COLD[u]]
+        # The heights above the field shown when none is asked for, in the display unit.
+        hs = [150.0, 300.0, 500.0, 1000.0, 1500.0]
+        if s.disp["h"] == "ft":
+            hs = [h * units.M_PER_FT for h in (500.0, 1000.0, 1500.0, 2000.0, 3000.0, 5000.0)]
         hs = [h for h in hs if h <= room]
     vals = {"isa_deviation_c": isa_deviation_at(col, col.elev_m), "cold_height_agl_m": hs,
             "cold_correction_icao_m": [cold_temperature_correction(h, col.t_c, col.elev_m)
                                        for h in hs],
             "cold_correction_column_m": [column_cold_correction(col, h) for h in hs]}
-    return COLD_KEYS, vals
+    return ("isa_deviation_c", "cold_height_agl_m", "cold_correction_icao_m",
+            "cold_correction_column_m"), vals
 
 
 def flight_level_token(tok):

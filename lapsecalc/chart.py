@@ -14,12 +14,10 @@ _WIDTH = const(40)
 # plot, so the curves inside the band stay visible. Letters sharing a row are joined by
 # "+" ("F+L"), so that two never read as a word or a code (as "FL" would).
 _PLOT_W = _WIDTH - 13
-_MARKS_PER_ROW = 3
+_MARKS_PER_ROW = const(3)
 # Right-margin letters: report key -> letter, in the order they are written.
 MARKS = (("cloud_base_msl_m", "B"), ("freezing_level_msl_m", "F"), ("lfc_msl_m", "L"),
          ("el_msl_m", "E"), ("thermal_top_msl_m", "T"), ("tropopause_msl_m", "P"))
-_TOP_KEYS = ("cloud_base_msl_m", "freezing_level_msl_m", "minus20_level_msl_m", "lfc_msl_m",
-             "el_msl_m", "icing_band_top_msl_m", "thermal_top_msl_m", "ccl_msl_m")
 
 
 def top_of(col, rep, top_m=None):
@@ -30,7 +28,9 @@ def top_of(col, rep, top_m=None):
     if rep.get("el_above_top"):
         return col.top_m
     hi = col.elev_m + 5000.0
-    marks = [rep[k] for k in _TOP_KEYS if rep.get(k) is not None]
+    marks = [rep[k] for k in ("cloud_base_msl_m", "freezing_level_msl_m", "minus20_level_msl_m",
+                              "lfc_msl_m", "el_msl_m", "icing_band_top_msl_m",
+                              "thermal_top_msl_m", "ccl_msl_m") if rep.get(k) is not None]
     if marks:
         hi = col.elev_m + 1.15 * (max(marks) - col.elev_m)
     return min(max(hi, col.elev_m + 3000.0), col.top_m)

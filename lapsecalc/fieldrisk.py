@@ -32,14 +32,12 @@ CARB_BANDS = (
 )
 
 
-# Hyland & Wexler (1983) over water, ln(p / Pa) = C8/T + C9 + C10 T + C11 T^2 + C12 T^3
-# + C13 ln T, T in K (ASHRAE Fundamentals ch. 1 eq. 6).
-_HW_WATER = (-5.8002206e3, 1.3914993, -4.8640239e-2, 4.1764768e-5, -1.4452093e-8, 6.5459673)
-
-
 def _es_water_hw(t_c):
     # Hyland & Wexler over liquid water (supercooled below 0 degC), hPa.
-    c8, c9, c10, c11, c12, c13 = _HW_WATER
+    # Hyland & Wexler (1983) over water, ln(p / Pa) = C8/T + C9 + C10 T + C11 T^2 + C12 T^3
+    # + C13 ln T, T in K (ASHRAE Fundamentals ch. 1 eq. 6).
+    c8, c9, c10, c11, c12, c13 = (-5.8002206e3, 1.3914993, -4.8640239e-2, 4.1764768e-5,
+                                  -1.4452093e-8, 6.5459673)
     t = t_c + 273.15
     return exp(c8 / t + c9 + t * (c10 + t * (c11 + t * c12)) + c13 * log(t)) / 100.0
 

@@ -16,9 +16,8 @@ its 40-column text for the interpreter's loads word."""
 from math import floor
 from lapsecalc.limits import check, const
 
-# The load table: default field temperatures, degC, and row spacing, m; at most
-# _TABLE_MAX rows or columns (a 40-column screen shows six temperatures).
-TABLE_TEMPS_C = (-10.0, 0.0, 10.0, 20.0, 30.0, 40.0)
+# The load table: row spacing and depth, m; at most _TABLE_MAX rows or columns (a
+# 40-column screen shows six field temperatures, load_table's default -10..40 degC).
 _TABLE_STEP_M = const(500.0)
 _TABLE_DEPTH_M = const(3000.0)
 _TABLE_MAX = const(40)
@@ -60,7 +59,8 @@ def _heights(col, heights_msl_m, step_m, depth_m):
 
 
 def load_table(col, volume_m3, envelope_t_c, max_envelope_t_c=None, empty_kg=None,
-               temps_c=TABLE_TEMPS_C, heights_msl_m=None, step_m=_TABLE_STEP_M,
+               temps_c=(-10.0, 0.0, 10.0, 20.0, 30.0, 40.0), heights_msl_m=None,
+               step_m=_TABLE_STEP_M,
                depth_m=None):
     """The greatest gross weight, kg, a hot-air balloon of volume_m3 (10..20000) lifts
     at the working envelope temperature envelope_t_c (-90..150 degC; not above

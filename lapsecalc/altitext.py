@@ -80,16 +80,13 @@ def cold_warning_lines(s, warnings):
     return wrap_each(cold_warning_text(s, warnings), "!")
 
 
-# The height above the field the report's cold-temperature line is for, by unit.
-_REPORT_COLD = {"ft": 1000.0 * units.M_PER_FT, "m": 300.0}
-
-
 def altimeter_lines(s, rep):
     """The report's altimeter section: the cold-temperature correction when the field
     is colder than ISA, and the cold-air warnings; [] when there is nothing to say."""
     col = s.column()
     out = []
-    h = _REPORT_COLD[s.disp["h"]]
+    # The height above the field the cold-temperature line is for, by unit.
+    h = 1000.0 * units.M_PER_FT if s.disp["h"] == "ft" else 300.0
     if rep.get("isa_deviation_c", 0.0) < 0.0:
         from lapsecalc.altimetry import (cold_temperature_correction, column_cold_correction,
                                          indicated_altitude_at)
@@ -98,11 +95,12 @@ def altimeter_lines(s, rep):
         # checks it (elevation + h may round past the top); the field is under 9 km, so
         # the height is always inside the ISA troposphere the PANS-OPS formula needs.
         if h <= min(col.top_m, indicated_altitude_at(col, col.top_m)) - col.elev_m:
-            out.append("%-13s%+7d %s at %d %s AGL" % (
-                "cold corr", _h_number(s, cold_temperature_correction(h, col.t_c, col.elev_m)),
+            # Labels padded to 13 columns, as the report's others.
+            out.append("cold corr    %+7d %s at %d %s AGL" % (
+                _h_number(s, cold_temperature_correction(h, col.t_c, col.elev_m)),
                 s.disp["h"], _h_number(s, h), s.disp["h"]))
-            out.append("%-13s%+7d %s (its own ELR)" % (
-                "  column", _h_number(s, column_cold_correction(col, h)), s.disp["h"]))
+            out.append("  column     %+7d %s (its own ELR)" % (
+                _h_number(s, column_cold_correction(col, h)), s.disp["h"]))
     if "indicated_altitude_m" in rep:
         from lapsecalc.altimetry import cold_warnings
         out.extend(cold_warning_lines(s, cold_warnings(col, rep)))

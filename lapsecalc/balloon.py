@@ -159,7 +159,7 @@ def oxygen_note(col, heights):
     if worst is None:
         return None
     label, pa, z = worst
-    return ("Oxygen: the %s, %.0f m MSL (%.0f ft pressure altitude), passes %s; rules"
+    return ("Oxygen: the %s, %.0f m MSL (%.0f ft pressure altitude), passes %d ft; rules"
             " commonly require it above 10000 ft for over 30 min, 13000 ft always (common"
             " practice). Check your local regulations."
-            % (label, z, pa / 0.3048, "13000 ft" if pa > _OXYGEN_ALWAYS_M else "10000 ft"))
+            % (label, z, pa / 0.3048, 13000 if pa > _OXYGEN_ALWAYS_M else 10000))

@@ -12,10 +12,6 @@ from lapsecalc.limits import T_MIN_C, T_MAX_C, DEW_SLACK_K, SAME_LEVEL_M as _SAM
 from lapsecalc.standard import layer_pressure, ratio_ln
 
 
-def _name(i, level, by_p):
-    return "aloft point %d (%g %s)" % (i + 1, level, "hPa" if by_p else "m MSL")
-
-
 def _number(name, what, v, lo, hi, unit):
     try:
         x = float(v)
@@ -48,7 +44,7 @@ def _point(i, pt):
     if not isfinite(level):
         raise ValueError("aloft point %d: level=%r is not a finite number; allowed a height in"
                          " m MSL or a pressure in hPa" % (i + 1, pt[0]))
-    name = _name(i, level, by_p)
+    name = "aloft point %d (%g %s)" % (i + 1, level, "hPa" if by_p else "m MSL")
     t = _number(name, "t_c", pt[1], T_MIN_C, T_MAX_C, "degC")
     td = pt[2]
     if td is not None:

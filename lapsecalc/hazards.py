@@ -32,9 +32,6 @@ def _h(z_m):
     return "%d m (%d ft)" % (round(z_m), round(z_m / 0.3048))
 
 
-_PRECIP_WORDS = {"glaze": "freezing rain", "pellets": "ice pellets",
-                 "glaze_or_pellets": "freezing rain or ice pellets", "snow": "snow",
-                 "rain_or_snow": "rain or snow", "rain": "rain"}
 # The serious carburettor icing bands (lapsecalc.fieldrisk.CARB_SERIOUS) in words.
 _CARB_WORDS = {"any_power": "serious at any power",
                "cruise_and_glide": "serious at descent power, moderate at cruise power",
@@ -53,11 +50,15 @@ def cautions(r):
             "up (no dewpoints given above)" if r["icing_band_basis"] == "layers" else
             "up (cloud tops unknown)"))
     if r.get("warm_layer_bottom_msl_m") is not None:
+        # The precipitation type (lapsecalc.precip) in words.
+        precip = {"glaze": "freezing rain", "pellets": "ice pellets",
+                  "glaze_or_pellets": "freezing rain or ice pellets", "snow": "snow",
+                  "rain_or_snow": "rain or snow", "rain": "rain"}[r["precip_type"]]
         out.append("Warm layer (max %+.1f degC) %s to %s MSL over freezing air %d m deep:"
                    " freezing rain or ice pellets possible, here %s." % (
                        r["warm_layer_max_t_c"], _h(r["warm_layer_bottom_msl_m"]),
                        _h(r["warm_layer_top_msl_m"]), round(r["cold_layer_below_depth_m"]),
-                       _PRECIP_WORDS[r["precip_type"]]))
+                       precip))
     if r.get("fog_risk"):
         out.append("Spread %.1f K at the field: fog or low stratus likely." % (
             r["t_c"] - r["td_c"]))

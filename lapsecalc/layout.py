@@ -90,13 +90,10 @@ def warning_lines(s, rep, keys):
     return wrap(said, "!")
 
 
-# No lines (one shared empty tuple: a board allocates every new list).
-_NONE = ()
-
-
 def text_lines(s, key, v, label_kind=None, rep=None):
     """Text-mode lines of one result key and value for session s (its display units),
-    a list or, for none, an empty tuple; rep, when given, is the whole result (some
+    a list or, for none, the empty tuple () (one shared object: a board allocates
+    every new list, never it); rep, when given, is the whole result (some
     lines depend on another key). The hazard keys' labels and words are in
     lapsecalc.hazardtext, loaded only for them."""
     if key == "stability_layers":
@@ -105,7 +102,7 @@ def text_lines(s, key, v, label_kind=None, rep=None):
     if label_kind:  # (label, kind) or find_label's (label, kind, True): balloon, show
         label, kind = label_kind[0], label_kind[1]
         if v is None and len(label_kind) > 2:
-            return _NONE
+            return ()
     else:
         # The label and kind read from the table in place (no tuple: a board counts
         # every allocation of a line).
@@ -127,7 +124,7 @@ def text_lines(s, key, v, label_kind=None, rep=None):
             i += len(label) + 1
             kind = field(table, i)
             if v is None and table.startswith(":q", i + len(kind)):
-                return _NONE  # quiet when None: a hazard not present
+                return ()  # quiet when None: a hazard not present
     return _kind_lines(s, key, v, label, kind, words, rep)
 
 
@@ -137,20 +134,20 @@ def _kind_lines(s, key, v, label, kind, words, rep):
     # a board loads no piece of code larger than about 1 KB: a heap full of small
     # holes still takes it).
     if kind == "until":
-        return _NONE if v is None else wrap(
+        return () if v is None else wrap(
             ["no dry thermals until the surface reaches %s" % f_t(s, v, True)], "-")
     if kind == "ztop":
         if v is None and rep is not None and rep.get("icing_band_basis") is not None:
             return ["%-13s%s" % (label, "   unknown")]
         kind = "z"
     if kind == "hide" or (key == "warnings" and rep is not None and "levels_above_top" in rep):
-        return _NONE
+        return ()
     if isinstance(v, dict):
-        return _NONE  # indicated_altitude_m: the levels word and "heights ind" show it
+        return ()  # indicated_altitude_m: the levels word and "heights ind" show it
     if key == "cautions" or kind == "say!":
         return wrap(v, "!")
     if kind == "say1":
-        return _NONE  # said among the warnings
+        return ()  # said among the warnings
     if kind == "say-":
         return wrap(v, "-")
     if v is None and rep is not None and key in rep.get("levels_above_top", ()):
@@ -161,7 +158,7 @@ def _kind_lines(s, key, v, label, kind, words, rep):
         return ["%-13s%7.1f K/km %s" % (label, v, word_text(WORDS, c) if c else "")]
     if kind == "zz":
         if v is None:
-            return _NONE  # no dewpoints aloft: the assumed humidity places no layers
+            return ()  # no dewpoints aloft: the assumed humidity places no layers
         if not v:
             return ["%-13s%s" % (label + "s", "   none (spread > 3 K)")]
         return ["%-13s%s" % (label if i == 0 else "", "%s-%s" % (
@@ -169,7 +166,7 @@ def _kind_lines(s, key, v, label, kind, words, rep):
     if kind == "zl":
         # Every pass only when there is more than one (else the level line says it).
         if len(v) < 2:
-            return _NONE
+            return ()
         return ["%-13s%s" % (label if i == 0 else "", level(s, z)) for i, z in enumerate(v)]
     if v is None:
         return ["%-13s%s" % (label, "   none in column" if kind == "z" else "   none")]

@@ -72,13 +72,6 @@ def echo(s, tok, kind, bare, x):
     return text if other is None else "%s (%s)" % (text, other)
 
 
-def _f_hint(tok, bare, x, lo, hi):
-    # For a bare temperature read in C that is out of range but fits in F: the hint.
-    if unit_of(tok, bare) == "c" and tok == digits(tok) and lo <= (x - 32.0) / 1.8 <= hi:
-        return "; in F write %sF" % tok
-    return ""
-
-
 def _temp(s, tok, what, hot):
     # A temperature or dewpoint setting: (value degC, ack text); a check line when it
     # is hotter than any surface observation.
@@ -86,8 +79,13 @@ def _temp(s, tok, what, hot):
     try:
         x = value(tok, "t", bare, T_MIN_C, T_MAX_C)
     except ValueError as e:
+        # For a bare temperature read in C that is out of range but fits in F: a hint.
         x = number(tok, "t", bare)
-        raise ValueError(str(e) + _f_hint(tok, bare, x, T_MIN_C, T_MAX_C))
+        hint = ""
+        if unit_of(tok, bare) == "c" and tok == digits(tok) and \
+                T_MIN_C <= (x - 32.0) / 1.8 <= T_MAX_C:
+            hint = "; in F write %sF" % tok
+        raise ValueError(str(e) + hint)
     if x > hot and unit_of(tok, bare) == "c":
         s.checks.append("%s %s is %s on record; in F write %sF" % (
             what, said(tok, bare), "higher than any dewpoint" if what == "dew" else
@@ -124,7 +122,7 @@ def rh(s, new, args):
 
 def elev(s, new, args):
     new["elev_m"] = value(args[0], "h", s.disp["h"], ELEV_MIN_M, ELEV_MAX_M)
-    return "elev " + echo(s, args[0], "h", s.disp["h"], new["elev_m"]) + " MSL"
+    return "elev %s MSL" % echo(s, args[0], "h", s.disp["h"], new["elev_m"])
 
 
 def _pressure(s, tok, lo, hi):

@@ -83,9 +83,6 @@ _FROM_LIB = {"f": units.c_to_f, "degf": units.c_to_f, "k": units.c_to_k,
              "f/1000ft": lambda x: units.k_per_km_to_c_per_1000ft(x) * 1.8,
              "c/100m": units.k_per_km_to_c_per_100m, "k/100m": units.k_per_km_to_c_per_100m,
              "ft3": units.m3_to_ft3, "lb": units.kg_to_lb}
-# Decimals of a range bound said in unit u (0 when not listed).
-_BOUND_DECIMALS = {"inhg": 2, "km": 1, "kpa": 1, "c/1000ft": 2, "k/1000ft": 2,
-                   "f/1000ft": 1, "c/100m": 1, "k/100m": 1}
 
 
 def unit_of(tok, bare):
@@ -101,8 +98,10 @@ def in_unit(x, u, kind="t"):
     else:
         conv = _FROM_LIB.get(u)
         v = x if conv is None else conv(x)
-    d = _BOUND_DECIMALS.get(u, 0 if abs(v) >= 10.0 else 2)
-    text = ("%." + str(d) + "f") % v
+    # The decimals of a range bound said in unit u (by its size for a unit not listed).
+    d = look_up(" inhg=2 km=1 kpa=1 c/1000ft=2 k/1000ft=2 f/1000ft=1 c/100m=1 k/100m=1 ", u,
+                "0" if abs(v) >= 10.0 else "2")
+    text = ("%." + d + "f") % v
     if "." in text:
         text = text.rstrip("0").rstrip(".")
     return ("0" if text == "-0" else text) + " " + written(u)

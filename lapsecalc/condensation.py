@@ -129,6 +129,7 @@ def _spread(t_c, td_c, p_hpa):
     return z, t_lcl, p_lcl
 
 
+_METHODS = {"exact": _romps, "bolton": _bolton, "spread": _spread}
 
 
 def cloud_base(t_c, td_c, p_hpa, method="exact"):
@@ -146,8 +147,7 @@ def cloud_base(t_c, td_c, p_hpa, method="exact"):
     """
     t_c, td_c = check_dew(t_c, td_c)
     p_hpa = check_p("p_hpa", p_hpa)
-    fn = _romps if method == "exact" else _bolton if method == "bolton" else (
-        _spread if method == "spread" else None)
+    fn = _METHODS.get(method)
     if fn is None:
         raise ValueError("method=%r is not known; allowed: exact, bolton, spread" % (method,))
     if t_c - td_c <= 0.0:

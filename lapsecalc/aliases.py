@@ -21,7 +21,7 @@ PAIRS = {("field", "elevation"): "elev", ("field", "elev"): "elev",
 def look_up(table, key, default=None):
     """The value of key in table, a string of " key=value" entries (ALIASES), or
     default when it has none: look_up(ALIASES, "oat") == "temp"."""
-    i = table.find(" %s=" % key)
+    i = table.find(" " + key + "=")
     if i < 0:
         return default
     i += len(key) + 2

@@ -48,7 +48,7 @@ def gas(s, new, args):
 
 def pure(s, new, args):
     new["purity"] = value(args[0], "rh", "%", 50.0, 100.0) / 100.0
-    return "purity " + said(args[0], "%")
+    return "%s %s" % ("purity", said(args[0], "%"))
 
 
 def margin(s, new, args):
@@ -59,7 +59,7 @@ def margin(s, new, args):
 
 def superheat(s, new, args):
     new["superheat_k"] = value(args[0], "dt", "k", 0.0, _SUPERHEAT_MAX_K)
-    return "superheat " + echo(s, args[0], "dt", "k", new["superheat_k"])
+    return "%s %s" % ("superheat", echo(s, args[0], "dt", "k", new["superheat_k"]))
 
 
 # word -> setter (what each takes and an example: lapsecalc.settings.SETTINGS); a

@@ -30,17 +30,15 @@ def clear(s, w, args):
                ["clear"])
 
 
-_DISPLAY = {"ft": ("h", "ft"), "m": ("h", "m"), "c": ("t", "c"), "degc": ("t", "c"),
-            "f": ("t", "f"), "degf": ("t", "f"), "hpa": ("p", "hpa"), "mb": ("p", "hpa"),
-            "inhg": ("p", "inhg")}
-
-
 def unit(s, w, args):
     disp = dict(s.disp)
     for a in args:
-        if a.lower() not in _DISPLAY:
+        # unit WORD -> " WORD=quantity:display unit" (h heights, t temperatures, p pressures).
+        entry = look_up(" ft=h:ft m=h:m c=t:c degc=t:c f=t:f degf=t:f hpa=p:hpa mb=p:hpa"
+                        " inhg=p:inhg ", a.lower())
+        if entry is None:
             raise ValueError("unit: '%s' not accepted; accepted ft m C F hPa inHg" % shown(a))
-        k, v = _DISPLAY[a.lower()]
+        k, v = entry.split(":")
         disp[k] = v
     s.disp = disp
     return ack(s, "units %s %s %s" % (disp["h"], disp["t"].upper(),

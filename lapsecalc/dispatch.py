@@ -25,9 +25,6 @@ COMMAND_WORDS = ("clear", "unit", "heights", "out", "help", "bye")
 # it; measured: hard limit 117 -> 114 KiB), and da H (as at H: find).
 _NO_REPORT = ("balloon", "loads", "sunset", "show", "iso", "at", "help", "cold", "clear") + \
     SETTING_WORDS
-# Query words that take a number after them (a first word followed by a number is
-# one of these or a setting).
-_TAKE_NUMBER = ("at", "da", "iso", "balloon", "chart")
 
 
 def split_line(line):
@@ -50,7 +47,9 @@ def unknown_word(word, settings_only=False, number_next=False, after=None):
     from lapsecalc.typed import unknown
     known = list(SETTING_WORDS)
     if not settings_only:
-        known += list(_TAKE_NUMBER) if number_next else list(other_words())
+        # The query words that take a number after them (a first word followed by a
+        # number is one of these or a setting).
+        known += ["at", "da", "iso", "balloon", "chart"] if number_next else list(other_words())
     return unknown(word, known, after)
 
 

@@ -69,7 +69,7 @@ def echo(s, tok, kind, bare, x):
             x, "kg" if kind == "w" else "m3")
     elif kind == "dt" and u in ("f", "degf"):
         other = f_dt(s, x, True)
-    return text if other is None else "%s (%s)" % (text, other)
+    return text if other is None else text + " (" + other + ")"
 
 
 def _temp(s, tok, what, hot):
@@ -174,10 +174,12 @@ def elr(s, new, args):
         top = None
         if len(parts) == 2:
             top = number(parts[1], "h", s.disp["h"])
+            if top < below + 1.0 and not below:
+                raise ValueError("layer top %s is not above the field"
+                                 % said(parts[1], s.disp["h"]))
             if top < below + 1.0:
-                raise ValueError("layer top %s is not above %s" % (
-                    said(parts[1], s.disp["h"]),
-                    "the field" if not below else "the layer below (%s AGL)" % f_h1(s, below)))
+                raise ValueError("layer top %s is not above the layer below (%s AGL)"
+                                 % (said(parts[1], s.disp["h"]), f_h1(s, below)))
             top = below = value(parts[1], "h", s.disp["h"], below + 1.0, TOP_MAX_M)
         elif k != len(args) - 1:
             raise ValueError("'%s' has no @top; only the last layer runs to the column top"

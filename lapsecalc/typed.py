@@ -40,13 +40,13 @@ def written(u):
     return look_up(table, u[3:] if u in ("degc", "degf") else u, u)
 
 
-def accepted(want):
-    """The units accepted for quantity want (t degC, h m, p hPa, l K/km, rh %, v m3,
+def accepted(kind):
+    """The units accepted for quantity kind (t degC, h m, p hPa, l K/km, rh %, v m3,
     w kg), as an error message lists them: "C F K"."""
     # One string of ";quantity:units" entries (as written(): no short strings).
     table = (";t:C F K;h:ft m km;p:hPa mb inHg mmHg kPa;l:K/km C/1000ft C/100m F/1000ft"
              ";rh:%;v:m3 ft3;w:kg lb;")
-    i = table.find(";%s:" % want) + len(want) + 2
+    i = table.find(";" + kind + ":") + len(kind) + 2
     return table[i:table.find(";", i)]
 
 def number(tok, kind, bare):
@@ -99,9 +99,8 @@ def in_unit(x, u, kind="t"):
         conv = _FROM_LIB.get(u)
         v = x if conv is None else conv(x)
     # The decimals of a range bound said in unit u (by its size for a unit not listed).
-    d = look_up(" inhg=2 km=1 kpa=1 c/1000ft=2 k/1000ft=2 f/1000ft=1 c/100m=1 k/100m=1 ", u,
-                "0" if abs(v) >= 10.0 else "2")
-    text = ("%." + d + "f") % v
+    d = look_up(" inhg=2 km=1 kpa=1 c/1000ft=2 k/1000ft=2 f/1000ft=1 c/100m=1 k/100m=1 ", u)
+    text = "%.*f" % (int(d) if d else 0 if abs(v) >= 10.0 else 2, v)
     if "." in text:
         text = text.rstrip("0").rstrip(".")
     return ("0" if text == "-0" else text) + " " + written(u)
@@ -225,6 +224,7 @@ def unknown(word, words, after=None):
         if stands_for in words and len(a) > 2:
             words.append(a)
     near = nearest(word, words)
-    near = look_up(ALIASES, near, near)
+    if near is not None:
+        near = look_up(ALIASES, near, near)
     return "unknown word '%s'; %s(help lists the words)" % (
         shown(word), "did you mean '%s'? " % near if near else "")

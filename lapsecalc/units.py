@@ -3,7 +3,7 @@
 # 1 inHg = 33.8639 hPa and 1 mmHg = 1.33322 hPa at 0 degC and standard gravity.
 # Every conversion takes a number (int or float) within +-1e30 and refuses anything
 # else (text, None, NaN, infinities, huge ints) with ValueError.
-from lapsecalc.limits import finite, const
+from lapsecalc.limits import finite as _finite, const
 
 M_PER_FT = 0.3048
 _HPA_PER_INHG = const(33.8639)
@@ -16,7 +16,7 @@ M3_PER_FT3 = M_PER_FT * M_PER_FT * M_PER_FT
 def _lin(x, mul, div=1.0, before=0.0, after=0.0):
     # (x + before) * mul / div + after for a number x within +-1e30 (every result is
     # then finite, in single precision too).
-    return (finite("value", x) + before) * mul / div + after
+    return (_finite("value", x) + before) * mul / div + after
 
 
 def ft_to_m(ft):
@@ -77,11 +77,11 @@ def hpa_to_kpa(hpa):
 
 # A millibar is a hectopascal.
 def mb_to_hpa(mb):
-    return finite("mb", mb)
+    return _finite("mb", mb)
 
 
 def hpa_to_mb(hpa):
-    return finite("hpa", hpa)
+    return _finite("hpa", hpa)
 
 
 def c_per_1000ft_to_k_per_km(rate):

@@ -91,6 +91,30 @@ from lapsecalc.typed import (in_unit, digits, said, value, unit_of, unit_kind, j
                              look_up)
 
 
+def test_units_written_back_and_the_units_accepted_per_quantity():
+    # The unit spellings of the README's interpreter section (K/km, C/1000ft, inHg, ...).
+    from lapsecalc.typed import written, accepted
+    typed = ("c", "degc", "f", "degf", "k", "hpa", "inhg", "mmhg", "kpa", "k/km", "c/km",
+             "c/1000ft", "k/1000ft", "f/1000ft", "c/100m", "k/100m")
+    assert [written(u) for u in typed] == [
+        "C", "C", "F", "F", "K", "hPa", "inHg", "mmHg", "kPa", "K/km", "C/km", "C/1000ft",
+        "K/1000ft", "F/1000ft", "C/100m", "K/100m"]
+    # Units written as typed, and text that is no unit of the table, come back as given.
+    for u in ("ft", "m", "km", "mb", "mbar", "%", "m3", "ft3", "kg", "lb", "degk", "", "hp",
+              "c/1000", "hpa=hPa", "hPa", "/km", "deg"):
+        assert written(u) == u
+    assert [accepted(q) for q in ("t", "h", "p", "l", "rh", "v", "w")] == [
+        "C F K", "ft m km", "hPa mb inHg mmHg kPa", "K/km C/1000ft C/100m F/1000ft", "%",
+        "m3 ft3", "kg lb"]
+
+
+def test_look_up_reads_only_whole_entries():
+    table = " a=one ab=two b=three "
+    assert [look_up(table, k) for k in ("a", "ab", "b")] == ["one", "two", "three"]
+    for k in ("", "c", "one", "a=one", "=", "bb", " a"):
+        assert look_up(table, k) is None and look_up(table, k, "x") == "x"
+
+
 def test_shown_keeps_the_printable_ends():
     assert shown(" ~") == " ~" and shown("\x1f\x7f") == "??"
 

@@ -5,7 +5,6 @@ loaded only by the lines that show them."""
 #   lapsecalc.altimetry). Every line fits a 40-column screen.
 from lapsecalc import units
 from lapsecalc.output import f_dt, ack
-from lapsecalc.aliases import look_up
 
 # The text layout (lapsecalc.layout) is imported by the functions that use its labels:
 # the cold word in kv mode needs none of it.
@@ -128,9 +127,8 @@ def cold_text(s, vals):
 def heights_word(s, w, args):
     """The heights word: levels shown true (msl) or indicated on QNH (ind)."""
     # heights WORD -> how levels are shown: true (geopotential) MSL or indicated on QNH.
-    mode = None
-    if len(args) == 1:
-        mode = look_up(" msl=msl true=msl ind=ind qnh=ind ", args[0].lower())
+    word = args[0].lower() if len(args) == 1 else ""
+    mode = "msl" if word in ("msl", "true") else "ind" if word in ("ind", "qnh") else None
     if mode is None:
         raise ValueError("heights needs msl (true heights) or ind (indicated on QNH)")
     disp = dict(s.disp)

@@ -174,10 +174,10 @@ def elr(s, new, args):
         top = None
         if len(parts) == 2:
             top = number(parts[1], "h", s.disp["h"])
-            if top < below + 1.0 and not below:
-                raise ValueError("layer top %s is not above the field"
-                                 % said(parts[1], s.disp["h"]))
             if top < below + 1.0:
+                if not below:
+                    raise ValueError("layer top %s is not above the field"
+                                     % said(parts[1], s.disp["h"]))
                 raise ValueError("layer top %s is not above the layer below (%s AGL)"
                                  % (said(parts[1], s.disp["h"]), f_h1(s, below)))
             top = below = value(parts[1], "h", s.disp["h"], below + 1.0, TOP_MAX_M)

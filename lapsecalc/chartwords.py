@@ -5,7 +5,7 @@ for the word's line by lapsecalc.dispatch (queries.QUERIES names this module).""
 #   path; lapsecalc.chart and lapsecalc.chartsvg draw them).
 
 
-def _c_chart(s, w, args):
+def chart(s, w, args):
     # chart [TOP [agl]]: TOP zooms (a 2000 ft marine layer fills the picture).
     # Its numbers first (chart.figure), then the Column, the parcel path and the
     # physics code let go of (Session.release) before the lines are drawn.
@@ -27,7 +27,7 @@ def _c_chart(s, w, args):
     return draw(fig, rep, s.disp["h"], s.disp["t"])
 
 
-def _c_svg(s, w, args):
+def svg(s, w, args):
     if len(args) != 1:
         raise ValueError("svg needs one file name, e.g. svg profile.svg")
     if s.svg_writer is None:
@@ -42,9 +42,10 @@ def _c_svg(s, w, args):
 
 def chart_svg(s):
     """The profile chart of session s's state as SVG text."""
-    from lapsecalc.chartsvg import svg
-    return svg(s.column("svg"), s.report("svg"), s.levels(), s.disp["h"], s.disp["t"])
+    from lapsecalc import chartsvg
+    return chartsvg.svg(s.column("svg"), s.report("svg"), s.levels(), s.disp["h"], s.disp["t"])
 
 
-# word -> f(session, word, args) -> output lines
-WORDS = {"chart": _c_chart, "svg": _c_svg}
+# word -> f(session, word, args) -> output lines (a word's own function named after it:
+# a board interns the word anyway)
+WORDS = {"chart": chart, "svg": svg}

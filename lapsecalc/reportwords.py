@@ -46,7 +46,7 @@ def group_word(s, w, args):
     return out
 
 
-def _c_report(s, w, args):
+def report(s, w, args):
     _nothing_after(w, args)
     rep = s.report(w)
     if s.mode != "text":
@@ -98,7 +98,8 @@ def _c_altimeter(s, w, args):
     return assumed_text(s) + text
 
 
-# word -> f(session, word, args) -> output lines
+# word -> f(session, word, args) -> output lines (a word's own function named after it:
+# a board interns the word anyway)
 WORDS = {"obs": group_word, "base": group_word, "ice": group_word, "frost": group_word,
          "stab": group_word, "parcel": group_word, "thermal": group_word,
-         "report": _c_report, "levels": _c_altimeter, "cold": _c_altimeter}
+         "report": report, "levels": _c_altimeter, "cold": _c_altimeter}

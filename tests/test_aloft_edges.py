@@ -20,6 +20,15 @@ def test_temperature_limits_are_taken():
             Column(15.0, 5.0, 1000.0, 100.0, aloft=[(3000.0, t, None)])
 
 
+def test_a_point_dewpoint_up_to_the_slack_above_its_temperature_is_taken_as_it():
+    # DEW_SLACK_K (0.05 K, limits.py): a dewpoint that much above the temperature is
+    # rounding, clipped to the temperature; a little more is refused.
+    col = Column(15.0, 5.0, 1000.0, 100.0, aloft=[(3000.0, 0.0, 0.05)])
+    assert col.dewpoint_at(3000.0) == 0.0 and col.t_at(3000.0) == 0.0
+    with pytest.raises(ValueError, match="td_c=0.0501 is above t_c=0"):
+        Column(15.0, 5.0, 1000.0, 100.0, aloft=[(3000.0, 0.0, 0.0501)])
+
+
 def test_a_pressure_point_at_the_station_pressure_is_refused():
     with pytest.raises(ValueError, match=r"aloft point 1 \(1000 hPa\) is not above the surface"):
         Column(15.0, 5.0, 1000.0, 100.0, aloft=[(1000.0, 14.0, None, "hPa")])

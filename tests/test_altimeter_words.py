@@ -61,6 +61,16 @@ def test_cold_word_from_zero_up_to_the_column_top():
     assert " ".join(s.feed("cold 8300m")) == "error: cold: 8300 m is outside 0..8250 m"
 
 
+def test_cold_word_alone_shows_a_default_height_right_at_the_column_top():
+    # The column top 1500 m above the field (2250 - 750; in cold air the true top is
+    # the limit): the default heights 150 .. 1500 m all fit, the last one exactly.
+    s = session(COLD, "unit m", "top 2250m")
+    rows = [x.split()[0] for x in s.feed("cold") if " AGL " in x]
+    assert rows == ["150", "300", "500", "1000", "1500"]
+    s = session(COLD, "unit m", "top 2249m")
+    assert [x.split()[0] for x in s.feed("cold") if " AGL " in x][-1] == "1000"
+
+
 def test_equal_errors_name_the_lowest_level_once():
     # Two levels with the same altimeter error: the lowest is both the first and the
     # worst, one sentence.

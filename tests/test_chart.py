@@ -330,3 +330,30 @@ def test_point_aloft_at_the_charts_top_is_drawn():
     assert [z for z, _ in fig[-1]] == [1000.0, 3000.0]
     assert abs(fig[-1][1][1] - 23.9) < 1e-9  # -4.5 C = 23.9 F
     assert chart.figure(col, rep, levels, "c", 2999.0)[-1] == [(1000.0, 8.5)]
+
+
+class _Col:
+    # The two heights top_of reads of a Column, m MSL.
+    elev_m, top_m = 500.0, 12000.0
+
+
+def test_top_of_the_chart():
+    # Its rules (chart.top_of's docstring): the top asked for within the field (1 m
+    # above it) and the column top; else 1.15 times the highest marked level's height
+    # above the field, at least 3000 m above it (5000 m with no level marked), never
+    # above the column top; the column top when the EL lies above it.
+    col = _Col()
+    assert chart.top_of(col, {}, 4000.0) == 4000.0
+    assert chart.top_of(col, {}, 20000.0) == 12000.0
+    assert chart.top_of(col, {}, 100.0) == 501.0
+    assert chart.top_of(col, {"el_above_top": True}) == 12000.0
+    assert chart.top_of(col, {}) == 5500.0
+    assert chart.top_of(col, {"cloud_base_msl_m": 2500.0}) == 3500.0
+    assert chart.top_of(col, {"thermal_top_msl_m": 11000.0}) == 12000.0
+    assert chart.top_of(col, {"tropopause_msl_m": 9000.0, "ccl_msl_m": None}) == 5500.0
+    for k in ("cloud_base_msl_m", "freezing_level_msl_m", "minus20_level_msl_m",
+              "lfc_msl_m", "el_msl_m", "icing_band_top_msl_m", "thermal_top_msl_m",
+              "ccl_msl_m"):
+        rep = {"cloud_base_msl_m": 2500.0}
+        rep[k] = 6500.0
+        assert chart.top_of(col, rep) == pytest.approx(500.0 + 1.15 * 6000.0, abs=1e-6), k

@@ -154,3 +154,13 @@ def test_metar_refuses_what_is_not_text():
     for bad in (None, 10 ** 400, 3.5, float("nan"), []):
         with pytest.raises(ValueError):
             parse(bad)
+
+
+def test_a_dewpoint_up_to_the_slack_above_the_temperature_is_clipped_to_it():
+    # DEW_SLACK_K (0.05 K, limits.py): that much above is rounding, taken as the
+    # temperature; a little more is an error naming both.
+    from lapsecalc.limits import check_dew
+    assert check_dew(0.0, 0.05) == (0.0, 0.0) and check_dew(20.0, 20.0) == (20.0, 20.0)
+    assert check_dew(20.0, 19.5) == (20.0, 19.5)
+    with pytest.raises(ValueError, match="td_c=0.0501 is above t_c=0.0"):
+        check_dew(0.0, 0.0501)

@@ -49,6 +49,7 @@ package(
         "shell.py",
         "dispatch.py",
         "settingline.py",
+        "airsettings.py",
         "reportwords.py",
         "chartwords.py",
         "state.py",

@@ -9,7 +9,8 @@ from lapsecalc.aliases import ALIASES, starts_number, look_up
 
 # The setting words' modules: let go of on a board once a line's settings are read,
 # before the points aloft are checked and the new state's Column is built.
-SETTING_MODULES = ("settings", "balloonsettings", "aloftwords", "metar", "typed", "heights")
+SETTING_MODULES = ("settings", "airsettings", "balloonsettings", "aloftwords", "metar", "typed",
+                   "heights")
 
 
 def read_settings(s, words):

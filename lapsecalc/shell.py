@@ -39,8 +39,8 @@ WORD_MODULES = PHYSICS_MODULES + (
     "limits", "settings", "commands", "units", "output", "machine", "groups", "helptext", "chart", "loadtable",
     "balloontext", "metar", "demo", "layout", "showword", "jsontext",
     "balloonwords", "atwords", "hazardtext", "altitext", "aloftwords",
-    "retell", "chartsvg", "balloonsettings", "dispatch", "settingline", "queries", "aliases",
-    "labels", "reportwords", "chartwords")
+    "retell", "chartsvg", "balloonsettings", "airsettings", "dispatch", "settingline",
+    "queries", "aliases", "labels", "reportwords", "chartwords")
 # The words whose report carries the altimetry keys (isa_deviation_c,
 # density_altitude_dry_m, indicated_altitude_m: Column.report(altimetry=True)).
 ALTIMETRY_WORDS = ("report", "obs", "da", "levels")

@@ -141,7 +141,7 @@ INTERPRETER_LAYERS = (
     ("shell",),
     ("settingline",),  # a line of settings (shell loads it for one, without dispatch)
     ("dispatch",),  # the word tables, a refusal's words (shell loads it per line)
-    ("balloonwords", "showword", "atwords", "balloonsettings"),
+    ("balloonwords", "showword", "atwords", "balloonsettings", "airsettings"),
     ("reportwords", "chartwords"),  # atwords' da says a group of the report
     ("settings", "queries", "commands"),
     ("heights",),

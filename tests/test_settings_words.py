@@ -322,12 +322,41 @@ def test_a_balloon_setting_loads_its_own_module_and_an_air_one_does_not():
     assert "lapsecalc.balloonsettings" not in sys.modules
     assert feed(s, "env 2800m3 tmax 120C") == ["ok: envelope 2800 m3, tmax 120 C"]
     assert s.state["env_m3"] == 2800.0 and s.state["tmax_c"] == 120.0
-    from lapsecalc import balloonsettings
+    from lapsecalc import airsettings, balloonsettings
     for w in SETTINGS:
         f = settings.setter(w)
         if w in balloonsettings.SETTERS:
             assert SETTINGS[w][0] == "balloonsettings" and f is balloonsettings.SETTERS[w]
+        elif w in airsettings.SETTERS:
+            assert SETTINGS[w][0] == "airsettings" and f is airsettings.SETTERS[w]
         else:
             assert f is SETTINGS[w][0] and callable(f)
-    assert sorted(balloonsettings.SETTERS) == sorted(
-        w for w in SETTINGS if isinstance(SETTINGS[w][0], str))
+    assert sorted(balloonsettings.SETTERS) + sorted(airsettings.SETTERS) == sorted(
+        w for w in SETTINGS if SETTINGS[w][0] == "balloonsettings") + sorted(
+        w for w in SETTINGS if SETTINGS[w][0] == "airsettings")
+    assert sorted(w for w in SETTINGS if not isinstance(SETTINGS[w][0], str)) == [
+        "aloft", "trop"]
+
+
+def test_a_line_of_points_aloft_loads_no_other_setters_nor_the_display_code():
+    # The air's setters (lapsecalc.airsettings), the balloon's and the display code
+    # (lapsecalc.output) load only for the lines that need them: a line of points aloft
+    # (on a board also reading a flight level's pressure) holds none of them.
+    # (The ok line's words are said by output.ack once the line is read and checked.)
+    import sys
+    import lapsecalc
+    from lapsecalc.settingline import read_settings
+    s = Session()
+    feed(s, "temp 20C dew 5C elev 300m")
+    for m in ("airsettings", "balloonsettings", "output"):
+        sys.modules.pop("lapsecalc." + m, None)
+        lapsecalc.__dict__.pop(m, None)
+    new, said, words = read_settings(s, ["aloft", "FL100", "2C", "700hPa", "3C"])
+    assert said == ["aloft FL100 2C, 700hPa 3C, 2 points set"] and words == ["aloft"]
+    # Lowest first: FL100 lies at 696.8 hPa in the standard atmosphere (common
+    # practice), above the 700 hPa level.
+    assert new["aloft"] == (("p", 700.0, 3.0, None), ("fl", 100, 2.0, None))
+    for m in ("airsettings", "balloonsettings", "output"):
+        assert "lapsecalc." + m not in sys.modules, m
+    assert read_settings(s, ["temp", "22C"])[1] == ["temp 22 C"]
+    assert "lapsecalc.airsettings" in sys.modules and "lapsecalc.output" in sys.modules

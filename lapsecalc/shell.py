@@ -264,10 +264,11 @@ class Session:
             self.collect()
 
     def read_done(self):
-        """On a board: let go of the number reader (lapsecalc.typed) once a word has
-        read what was typed after it, before it computes (hold no name of it in a
-        local across this call). Nothing on CPython."""
-        self.drop(("typed",))
+        """On a board: let go of the number reader (lapsecalc.typed, and the height
+        reader, the units and the words' other names it loaded) once a word has read
+        what was typed after it, before it computes (hold no name of them in a local
+        across this call). Nothing on CPython."""
+        self.drop(("typed", "heights", "units", "aliases"))
 
     def release(self):
         """On a board: let go of the Column, the parcel path and the physics code once

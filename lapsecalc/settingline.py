@@ -11,6 +11,10 @@ from lapsecalc.aliases import ALIASES, starts_number, look_up
 # before the points aloft are checked and the new state's Column is built.
 SETTING_MODULES = ("settings", "airsettings", "balloonsettings", "aloftwords", "metar", "typed",
                    "heights")
+# The setters' own modules and what only they load (the display code: the ok words are
+# said by output.ack after the line is read): let go of before the line is checked as
+# a whole.
+_SETTER_MODULES = ("airsettings", "balloonsettings", "aloftwords", "metar", "heights", "output")
 
 
 def read_settings(s, words):
@@ -49,6 +53,12 @@ def read_settings(s, words):
         except ValueError as e:
             raise ValueError("%s %s" % (w, e))
         i = j
+    if s.drop_word_modules:
+        # The setters' own code let go of before the line is checked as a whole
+        # (settings.whole loads the standard atmosphere's code for a station pressure).
+        fn = None
+        _forget(_SETTER_MODULES)
+        s.collect()
     try:
         rest = whole(s, new)
         if s.drop_word_modules:

@@ -10,7 +10,6 @@
 # "trop_m": the tropopause, m MSL, or None (off); absent means the ICAO 11000 m.
 from lapsecalc.limits import T_MIN_C, T_MAX_C, DEW_SLACK_K, TOP_MAX_M, const
 from lapsecalc.aliases import shown
-from lapsecalc.output import f_h1, f_t, f_p
 from lapsecalc.state import DEFAULT_TOP_M, fl_pressure_hpa
 
 # At most this many points (a board's session heap).
@@ -108,6 +107,7 @@ def set_trop(s, new, args, echo):
 
 def level_text(s, pt):
     """A point's level as shown: "6000 ft", "FL180", "700.0 hPa"."""
+    from lapsecalc.output import f_h1, f_p
     kind, level = pt[0], pt[1]
     if kind == "fl":
         return "FL%03d" % level
@@ -116,6 +116,7 @@ def level_text(s, pt):
 
 def point_text(s, pt):
     """One point as show lists it: "6000 ft 9.0 C/2.0 C"."""
+    from lapsecalc.output import f_t
     td = "" if pt[3] is None else "/" + f_t(s, pt[3], True)
     return "%s %s%s" % (level_text(s, pt), f_t(s, pt[2], True), td)
 
@@ -129,22 +130,26 @@ def check(s, new, p_stn):
     """What one point alone cannot tell: a height point at or below the field or above
     the column top, a pressure point at or above the station pressure p_stn (hPa, None
     when not known yet), a tropopause too close to the field. ValueError in the user's
-    display units."""
+    display units (the display code, lapsecalc.output, loaded only to say one)."""
     elev = new.get("elev_m")
     top = new.get("top_m", DEFAULT_TOP_M)
     for pt in new.get("aloft", ()):
         if pt[0] == "z":
             if elev is not None and pt[1] <= elev:
+                from lapsecalc.output import f_h1
                 raise ValueError("aloft %s is not above the field (elev %s)"
                                  % (level_text(s, pt), f_h1(s, elev)))
             if pt[1] > top:
+                from lapsecalc.output import f_h1
                 raise ValueError("aloft %s is above the column top (top %s)"
                                  % (level_text(s, pt), f_h1(s, top)))
         elif p_stn is not None and -_level(pt) >= p_stn:
+            from lapsecalc.output import f_p
             raise ValueError("aloft %s is not above the field: its pressure is not under"
                              " the station pressure %s" % (level_text(s, pt), f_p(s, p_stn, True)))
     trop = new.get("trop_m")
     if trop is not None and elev is not None and trop < elev + 100.0:
+        from lapsecalc.output import f_h1
         raise ValueError("trop %s is less than 100 m (328 ft) above the field (%s)"
                          % (f_h1(s, trop), f_h1(s, elev)))
 

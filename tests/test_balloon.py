@@ -707,3 +707,20 @@ def test_superheat_worked_example():
     with pytest.raises(ValueError) as err:
         gas_report(col, "helium", 1.0, 1000.0, 2000.0, 500.0, None, 51.0)
     assert str(err.value).startswith("superheat_k=")
+
+
+def test_oxygen_note_names_the_first_of_the_highest_pressure_altitudes():
+    # ISA + 20 K at the field (35 degC, 1013.25 hPa, 6.5 K/km; ICAO Doc 7488/3 for the
+    # pressure altitude): warm air, so the pressure altitude lies below the height.
+    from lapsecalc.balloon import oxygen_note
+    from lapsecalc.standard import pressure_altitude
+    col = Column.from_qnh(35.0, 5.0, 1013.25, 0.0, 6.5, 16000.0)
+    pa = pressure_altitude(col.p_at(4100.0))
+    assert 3048.0 < pressure_altitude(col.p_at(4000.0)) < pa < 3962.4 < 4000.0
+    note = oxygen_note(col, [("lower", 4000.0), ("upper", 4100.0), ("none", None)])
+    assert note.startswith("Oxygen: the upper, 4100 m MSL (%.0f ft pressure altitude),"
+                           " passes 10000 ft;" % (pa / 0.3048))
+    assert oxygen_note(col, [("first", 4500.0), ("second", 4500.0)]).startswith(
+        "Oxygen: the first, 4500 m MSL") and "passes 13000 ft" in oxygen_note(
+        col, [("first", 4500.0)])
+    assert oxygen_note(col, [("low", 2000.0), ("none", None)]) is None

@@ -71,6 +71,8 @@ DEFAULT_TESTS = {
                    "test_balloon_full.py", "test_shell_values.py"],
     "settings": ["test_settings_limits.py", "test_settings_words.py", "test_shell.py",
                  "test_shell_values.py", "test_metar.py", "test_aloft_words.py"],
+    "airsettings": ["test_settings_limits.py", "test_settings_words.py", "test_shell.py",
+                    "test_shell_values.py", "test_metar.py"],
     "typed": ["test_typed.py", "test_settings_limits.py", "test_shell.py", "test_units.py"],
     "metar": ["test_metar.py", "test_settings_limits.py", "test_shell.py"],
     "indicated": ["test_altimetry_edges.py", "test_altimetry.py", "test_report_keys.py",

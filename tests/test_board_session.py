@@ -181,6 +181,13 @@ def test_smallest_heap_is_stable_above():
         == 106
 
 
+def test_sweep_line_counts_each_size_and_sums():
+    # hardlimit --sweep: the failing lines at each size, in order, and their sum.
+    import hardlimit
+    assert hardlimit.sweep_line({66: 3, 64: 10, 65: 0}) == "64=10 65=0 66=3  sum=13"
+    assert hardlimit.sweep_line({70: 0}) == "70=0  sum=0"
+
+
 def test_accounting_line_parse():
     sys.path.insert(0, os.path.join(os.path.dirname(HERE), "bench"))
     import mpy_budget

@@ -10,7 +10,10 @@ bench/mpy_budget.py (what main holds now) and exits 1 when one fails; it also sa
 whether each runs within the board budget (64 KiB session, 32 KiB report, times the
 word-size factor: the Unix port has 64-bit words, a board 32-bit ones). --find
 searches the smallest heap (1 KiB steps) in which each runs. --at KIB... names the
-session lines that fail at those sizes (the lines that bind). --lines prints, per
+session lines that fail at those sizes (the lines that bind). --sweep LO HI counts
+them at every size from LO to HI KiB and prints the sum: a change moves --find by the
+heap layout of one line, the sum by every line's (fewer failing lines over the range:
+less heap needed, in most lines). --lines prints, per
 session line, the heap held before it and the least free heap it needs
 (tests/mpy/lineneed.py): where the session's heap goes. Without the micropython command it
 says so and exits 0, except under CI=true (exit 1).
@@ -125,6 +128,12 @@ def failing(mp, folder, heap_kib):
             if x.startswith("line ") and " failed" in x or x.startswith("MemoryError")]
 
 
+def sweep_line(counts):
+    """The --sweep line of {heap KiB: number of failing lines}: each size, then the sum."""
+    return " ".join("%d=%d" % (k, counts[k]) for k in sorted(counts)) + \
+        "  sum=%d" % sum(counts.values())
+
+
 def limits(port="unix"):
     """{what: (ceiling KiB, budget KiB)} on the Unix port or on micropython32 ("board32")
     (bench/mpy_budget.py)."""
@@ -153,6 +162,8 @@ def main():
                     help="per session line: heap held and least free heap needed")
     ap.add_argument("--at", type=int, nargs="+", default=(), metavar="KIB",
                     help="the session lines that fail at each of these heap sizes")
+    ap.add_argument("--sweep", type=int, nargs=2, default=None, metavar=("LO", "HI"),
+                    help="the number of failing lines at each size LO..HI KiB, and the sum")
     ap.add_argument("--micropython", default=None, help="the Unix port's command")
     ap.add_argument("--board32", action="store_true",
                     help="use micropython32 (32-bit words, float32; built when needed)")
@@ -180,11 +191,15 @@ def main():
             proc = subprocess.run([mp, "-X", "heapsize=1024K", "lineneed.py", LIB],
                                   cwd=folder, universal_newlines=True, timeout=_TIMEOUT_S * 5)
             failed += proc.returncode != 0
+        if args.sweep:
+            lo, hi = args.sweep
+            print("sweep: " + sweep_line(dict((k, len(failing(mp, folder, k)))
+                                              for k in range(lo, hi + 1))))
         for kib in args.at:
             bad = failing(mp, folder, kib)
             print("at %d KiB: %s" % (kib, "; ".join(
                 x.split(" ->")[0].replace(" failed:", ":")[:40] for x in bad) if bad else "OK"))
-        if args.check or not (args.find or args.lines or args.at):
+        if args.check or not (args.find or args.lines or args.at or args.sweep):
             for what, (ceiling, budget) in sorted(limits(port).items()):
                 ok, tail = run(mp, folder, what, ceiling)
                 print("hard limit %s at %d KiB (%s, the ceiling): %s"

@@ -113,3 +113,21 @@ def test_superheat_note_only_with_superheat():
     assert not any("superheat goes" in n for n in gas()["notes"])
     assert any("superheat goes" in n for n in gas(superheat_k=5.0)["notes"])
     assert any("superheat goes" in n for n in gas(superheat_k=0.005)["notes"])
+
+
+def test_hot_air_warnings_at_their_edges():
+    # The warnings of a 1000 kg load at 500 m MSL, working at 95 degC under a 120 degC
+    # maximum: over by the float-noise allowance (1e-6 of the weight) takes off; over
+    # by exactly 1 kg says "1 kg", under 1 kg "less than 1"; needing exactly the
+    # maximum is above the working temperature, not above the maximum.
+    from lapsecalc.hotreport import _warnings
+    assert _warnings(1000.0, 500.0, 95.0, 120.0, 90.0, -(1e-6 * 1000.0)) == []
+    heavy = "Too heavy to take off at the working envelope temperature 95 degC: %s kg over."
+    assert _warnings(1000.0, 500.0, 95.0, 120.0, 90.0, -1.0) == [heavy % "1"]
+    assert _warnings(1000.0, 500.0, 95.0, 120.0, 90.0, -0.5) == [heavy % "less than 1"]
+    assert _warnings(1000.0, 500.0, 95.0, 120.0, 120.0, 5.0) == [
+        "Floating 1000 kg at 500 m MSL needs 120.0 degC in the envelope, above the working"
+        " temperature 95 degC."]
+    assert _warnings(1000.0, 500.0, 95.0, 120.0, 120.1, 5.0) == [
+        "Floating 1000 kg at 500 m MSL needs 120.1 degC in the envelope, above the maximum"
+        " envelope temperature 120 degC you set."]

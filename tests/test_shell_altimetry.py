@@ -274,6 +274,40 @@ def test_report_altimeter_section_and_warning():
     assert not any("true altitude is below" in x for x in got)
 
 
+def test_report_altimeter_section_for_a_warm_field_under_cold_air():
+    # Invented: a field 5.7 K warmer than ISA under air far colder than ISA aloft
+    # (-10 C at 2000 m, -35 C at 4000 m): the altimeter reads high aloft, so the
+    # report has its altimeter section though the field is not cold.
+    s = session("elev 100m temp 20C dew 5C qnh 1013 aloft 2000m -10C 4000m -35C")
+    col = s.column()
+    r = col.report()
+    assert r["isa_deviation_c"] > 5.0
+    got = s.feed("report")
+    sec = got[got.index("-- altimeter") + 1:got.index("-- cautions")]
+    text = " ".join(x.strip("! ") for x in sec)
+    base = r["cloud_base_msl_m"]
+    assert ind_of(col, base) - base > 15.0
+    assert ("true altitude is below indicated by %d ft at cloud base, %d ft MSL"
+            % (ft(ind_of(col, base) - base), ft(base))) in text
+
+
+@pytest.mark.parametrize("t", ["15.005C", "15.5C"])
+def test_report_of_a_field_warmer_than_isa_loads_no_altimeter_text(t, monkeypatch):
+    # A sea-level field on the standard QNH a little warmer than ISA (15 C, ICAO Doc
+    # 7488/3), with no level where the altimeter reads high: the report has no
+    # altimeter section and never loads its text code (lapsecalc.altitext).
+    import sys
+    s = session("elev 0m dew 5C qnh 1013.25 temp " + t)
+    rep = s.column().report()
+    assert 0.0 < rep["isa_deviation_c"] < 0.6
+    assert not any(v is not None and v > rep[k]
+                   for k, v in rep["indicated_altitude_m"].items())
+    monkeypatch.delitem(sys.modules, "lapsecalc.altitext", raising=False)
+    got = s.feed("report")
+    assert "-- altimeter" not in got and "-- cautions" in got
+    assert "lapsecalc.altitext" not in sys.modules
+
+
 def test_at_warns_in_cold_air():
     s = session(COLD)
     col = cold_column()

@@ -194,3 +194,78 @@ def test_text_lines_takes_a_label_with_or_without_the_quiet_mark():
     assert len(plain) == 1 and plain[0].startswith("float")
     assert layout.text_lines(s, "x_m", 1000.0, ("float", "z", True)) == \
         layout.text_lines(s, "x_m", 1000.0, ("float", "z"))
+
+
+def test_values_within_a_twentieth_of_zero_are_said_as_zero():
+    # A temperature, difference or mass under 0.05 from zero is said as 0 (no "-0.0",
+    # no "-0 lb"); from 0.05 out it is rounded as it is. F = 1.8 C + 32 and
+    # lb = kg / 0.45359237 (exact definitions): -0.05 C is 31.91 F, 0.04 C is 32.072 F
+    # (said 32.0: taken as 0 C), 0.0504 C is 32.09 F, 0.5 C is 32.9 F.
+    s = _S()
+    s.disp["t"] = "f"
+    for v, t, kg in ((-0.05, "   31.9 F", "   -0.1 kg     -0 lb"),
+                     (-0.0502, "   31.9 F", "   -0.1 kg     -0 lb"),
+                     (-0.04, "   32.0 F", "    0.0 kg      0 lb"),
+                     (0.04, "   32.0 F", "    0.0 kg      0 lb"),
+                     (0.0502, "   32.1 F", "    0.1 kg      0 lb"),
+                     (0.05, "   32.1 F", "    0.1 kg      0 lb"),
+                     (0.5, "   32.9 F", "    0.5 kg      1 lb")):
+        assert layout._value_text(s, "x", v, "t", None, None) == t, v
+        assert layout._value_text(s, "x", v, "kg", None, None) == kg, v
+        assert balloontext._value_text(s, "t", v) == t, v
+        assert balloontext._value_text(s, "kg", v) == kg, v
+    s.disp["t"] = "c"
+    assert layout._value_text(s, "x", -0.04, "dt", None, None) == "   +0.0 K"
+    assert balloontext._value_text(s, "dt", -0.04) == "   +0.0 K"
+
+
+def test_said_kinds_become_marked_lines_or_none():
+    # cautions (no label) and warnings (kind say!) are said after "! ", notes (say-)
+    # after "- "; the report's warnings (it has levels_above_top) are said apart, as is
+    # the balloon's oxygen note (say1: among its warnings).
+    s = _S()
+    assert layout.text_lines(s, "cautions", ["Mind the gap."]) == ["! Mind the gap."]
+    assert layout.text_lines(s, "warnings", ["Too hot."], None, {"warnings": []}) == \
+        ["! Too hot."]
+    assert layout.text_lines(s, "warnings", ["Too hot."], None,
+                             {"warnings": [], "levels_above_top": []}) == ()
+    assert layout.text_lines(s, "notes", ["Calm air."], None, {}) == ["- Calm air."]
+    assert layout.text_lines(s, "oxygen_note", "Oxygen above 10000 ft.",
+                             layout.find_label(balloontext.LABELS, "oxygen_note"), {}) == ()
+
+
+def test_cloud_layers_each_on_a_line_or_none():
+    # Invented dewpoints aloft: two layers with a spread of 3 K or less (the surface's
+    # 2 K up to 1167 m, and 2214..2591 m), each "bottom-top" with the top in the other
+    # unit too; with every spread over 3 K, "none".
+    from lapsecalc.shell import Session
+    s = Session()
+    for line in ("unit m C hPa", "elev 100m", "temp 8C dew 6C", "stn 1000hPa",
+                 "aloft 1000m 3C/2.5C 1500m 0C/-8C 2500m -5C/-6C 3000m -8C/-20C"
+                 " 4000m -15C/-30C"):
+        assert s.feed(line)[0].startswith("ok"), line
+    got = s.feed("report")
+    i = got.index("cloud layer  100 m-1167 m (3828 ft)")
+    assert got[i + 1] == "             2214 m-2591 m (8500 ft)"
+    s.feed("unit ft")
+    got = s.feed("base")
+    i = got.index("cloud layer  328 ft-3828 ft (1167 m)")
+    assert got[i + 1] == "             7265 ft-8500 ft (2591 m)"
+    s.feed("dew 0C")
+    s.feed("clear aloft")
+    s.feed("aloft 1500m 2C/-10C 3000m -8C/-25C")
+    assert "cloud layers    none (spread > 3 K)" in s.feed("base")
+
+
+def test_balloon_kinds_in_the_layout():
+    # A fraction as a percentage; a volume in m3 and ft3 (1 ft = 0.3048 m exactly:
+    # 1 m3 = 35.3147 ft3), whole from 100 m3, to two decimals below; a mass in kg and
+    # lb (1 lb = 0.45359237 kg exactly).
+    s = _S()
+    for kind, v, want in (("frac", 0.123, "   12.3 %"),
+                          ("m3", 250.0, "    250 m3     8829 ft3"),
+                          ("m3", 100.0, "    100 m3     3531 ft3"),
+                          ("m3", 99.99, "  99.99 m3   3531.1 ft3"),
+                          ("kg", 450.0, "  450.0 kg    992 lb")):
+        assert layout._value_text(s, "x", v, kind, None, None) == want, (kind, v)
+        assert balloontext._value_text(s, kind, v) == want, (kind, v)

@@ -165,3 +165,14 @@ def test_a_pressure_point_against_the_station_pressure():
     assert said(s, "aloft 980hPa 20C") == ("error: aloft 980.0 hPa is not above the field:"
                                             " its pressure is not under the station pressure"
                                             " 967.4 hPa")
+
+
+def test_a_pressure_point_at_the_station_pressure_is_refused():
+    # Invented field: station pressure 967 hPa. A point at exactly that pressure is at
+    # the field, not above it; a tenth of a hPa under it is aloft.
+    s = session("stn 967hPa")
+    assert said(s, "aloft 967hPa 20C") == ("error: aloft 967.0 hPa is not above the field:"
+                                           " its pressure is not under the station"
+                                           " pressure 967.0 hPa")
+    assert "aloft" not in s.state
+    assert said(s, "aloft 966.9hPa 20C") == "ok: aloft 966.9hPa 20C, 1 point set"

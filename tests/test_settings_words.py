@@ -360,3 +360,14 @@ def test_a_line_of_points_aloft_loads_no_other_setters_nor_the_display_code():
         assert "lapsecalc." + m not in sys.modules, m
     assert read_settings(s, ["temp", "22C"])[1] == ["temp 22 C"]
     assert "lapsecalc.airsettings" in sys.modules and "lapsecalc.output" in sys.modules
+
+
+def test_a_temperature_typed_in_deg_units_is_echoed_once_in_its_own_unit():
+    # "degC" and "degF" are the display unit's own: said back without a conversion;
+    # in the other unit converted (F = 1.8 C + 32, exact).
+    s = Session()
+    assert feed(s, "temp 27degC") == ["ok: temp 27 C"]
+    assert feed(s, "temp 80.6degF") == ["ok: temp 80.6 F (27.0 C)"]
+    s.feed("unit F")
+    assert feed(s, "temp 80degF") == ["ok: temp 80 F"]
+    assert feed(s, "temp 27degC") == ["ok: temp 27 C (80.6 F)"]

@@ -373,7 +373,9 @@ def markdown(after, before, equiv):
            " before |", "|---|---|---|---|---|---|---|---|---|"]
     tot = dict.fromkeys(("mutants", "run", "killed", "timeout", "survived", "equivalent"), 0)
     btot = [0, 0]
-    after = dict((name, _rejudged(e, equiv.get(name, {}))) for name, e in after.items())
+    # An entry named "MODULE [functions]" is a --key run of MODULE (its own row).
+    after = dict((name, _rejudged(e, equiv.get(name.split(" ")[0], {})))
+                 for name, e in after.items())
     for name in sorted(after):
         e = after[name]
         b = before.get(name)
@@ -394,7 +396,8 @@ def markdown(after, before, equiv):
     out += ["", "Survivors judged equivalent (from `bench/mutation_equivalent.txt`; those"
             " met in this run are marked *):", ""]
     for module in sorted(equiv):
-        seen = set(after.get(module, {}).get("equivalent_seen", ()))
+        seen = set(k for name in after if name.split(" ")[0] == module
+                   for k in after[name].get("equivalent_seen", ()))
         for key, reason in sorted(equiv[module].items()):
             out.append("- %s`%s %s`: %s" % ("*" if key in seen else "", module, key, reason))
     left = [(m, s) for m in sorted(after) for s in after[m]["survivors"]]

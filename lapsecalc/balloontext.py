@@ -130,8 +130,8 @@ def text_lines(s, word, r, rest=True):
 def _value_text(s, kind, v):
     # The text of value v of kind kind after its label (text_lines is split in two so
     # that a board loads no piece of its code larger than about 1 KB).
-    if isinstance(v, float) and -0.05 < v < 0.05 and kind in ("t", "dt", "kg"):
-        v = 0.0  # no "-0.0" in a one-decimal column
+    if isinstance(v, float) and -0.05 < v < 0.05 and kind == "kg":
+        v = 0.0  # no "-0.0 kg -0 lb" (a temperature is rounded in its display unit)
     if v is None:
         return "   none in column" if kind == "z" else "   none"
     if kind == "z":

@@ -175,8 +175,8 @@ def _kind_lines(s, key, v, label, kind, words, rep):
 
 def _value_text(s, key, v, kind, words, rep):
     # The text of value v (not None) of key, of kind kind, after its label.
-    if isinstance(v, float) and -0.05 < v < 0.05 and kind in ("t", "dt", "kg"):
-        v = 0.0  # no "-0.0" in a one-decimal column
+    if isinstance(v, float) and -0.05 < v < 0.05 and kind == "kg":
+        v = 0.0  # no "-0.0 kg -0 lb" (a temperature is rounded in its display unit)
     if kind == "z":
         # The report's own reading, if it has one: no Column built again for the text.
         ind = rep.get("indicated_altitude_m") if rep else None

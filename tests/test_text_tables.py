@@ -197,16 +197,16 @@ def test_text_lines_takes_a_label_with_or_without_the_quiet_mark():
 
 
 def test_values_within_a_twentieth_of_zero_are_said_as_zero():
-    # A temperature, difference or mass under 0.05 from zero is said as 0 (no "-0.0",
-    # no "-0 lb"); from 0.05 out it is rounded as it is. F = 1.8 C + 32 and
-    # lb = kg / 0.45359237 (exact definitions): -0.05 C is 31.91 F, 0.04 C is 32.072 F
-    # (said 32.0: taken as 0 C), 0.0504 C is 32.09 F, 0.5 C is 32.9 F.
+    # A temperature is rounded in its display unit, with no "-0.0"; a mass under 0.05
+    # kg from zero is said as 0 (no "-0 lb"), from 0.05 out it is rounded as it is.
+    # F = 1.8 C + 32 and lb = kg / 0.45359237 (exact definitions): -0.05 C is 31.91 F,
+    # -0.04 C is 31.928 F, 0.04 C is 32.072 F, 0.0502 C is 32.09 F, 0.5 C is 32.9 F.
     s = _S()
     s.disp["t"] = "f"
     for v, t, kg in ((-0.05, "   31.9 F", "   -0.1 kg     -0 lb"),
                      (-0.0502, "   31.9 F", "   -0.1 kg     -0 lb"),
-                     (-0.04, "   32.0 F", "    0.0 kg      0 lb"),
-                     (0.04, "   32.0 F", "    0.0 kg      0 lb"),
+                     (-0.04, "   31.9 F", "    0.0 kg      0 lb"),
+                     (0.04, "   32.1 F", "    0.0 kg      0 lb"),
                      (0.0502, "   32.1 F", "    0.1 kg      0 lb"),
                      (0.05, "   32.1 F", "    0.1 kg      0 lb"),
                      (0.5, "   32.9 F", "    0.5 kg      1 lb")):
@@ -215,6 +215,7 @@ def test_values_within_a_twentieth_of_zero_are_said_as_zero():
         assert balloontext._value_text(s, "t", v) == t, v
         assert balloontext._value_text(s, "kg", v) == kg, v
     s.disp["t"] = "c"
+    assert layout._value_text(s, "x", -0.04, "t", None, None) == "    0.0 C"
     assert layout._value_text(s, "x", -0.04, "dt", None, None) == "   +0.0 K"
     assert balloontext._value_text(s, "dt", -0.04) == "   +0.0 K"
 

@@ -186,7 +186,8 @@ def unix_ceiling_kib(what):
 # -> 112.
 # Then the levels word's text without the layout (labels.py) and without the report's
 # own code: (c) session 74 -> 73 KiB, ceiling 77 -> 76.
-# Then the steps of session 6 (above): (c) session 73 -> 67 KiB, ceiling 76 -> 70; the
+# Then the steps of session 6 (above): (c) session 73 -> 67 KiB (68 once a display fix
+# moved the heap's layout: the base line after points aloft), ceiling 76 -> 70; the
 # core report stays at 32 KiB (it runs from 31.875 KiB in 128-byte steps).
 CEILINGS["board32_session_kib"] = 70
 CEILINGS["board32_report_kib"] = 35

@@ -152,7 +152,8 @@ WORD_FACTOR = 1.5
 # the air's setters in airsettings.py, the query words' code in modules of words
 # (reportwords, chartwords) with the word tables and the words' other names let go of
 # before a word runs, the display code loaded only to say a number, about 100 names
-# fewer: (b) session 109 -> 96 KiB (the Unix port's board budget), ceiling 112 -> 99;
+# fewer: (b) session 109 -> 96-97 KiB (about the Unix port's board budget, 96),
+# ceiling 112 -> 99;
 # (c) below.
 CEILINGS = {"board_session_heap_bytes": 177 * KIB, "board_report_heap_bytes": 92 * KIB,
             "unix_session_kib": 99, "unix_report_kib": 53}
@@ -186,8 +187,8 @@ def unix_ceiling_kib(what):
 # -> 112.
 # Then the levels word's text without the layout (labels.py) and without the report's
 # own code: (c) session 74 -> 73 KiB, ceiling 77 -> 76.
-# Then the steps of session 6 (above): (c) session 73 -> 67 KiB (68 once a display fix
-# moved the heap's layout: the base line after points aloft), ceiling 76 -> 70; the
+# Then the steps of session 6 (above): (c) session 73 -> 67 KiB (68 for a while: one
+# layout of the heap, the base line after points aloft), ceiling 76 -> 70; the
 # core report stays at 32 KiB (it runs from 31.875 KiB in 128-byte steps).
 CEILINGS["board32_session_kib"] = 70
 CEILINGS["board32_report_kib"] = 35

@@ -6,8 +6,7 @@
 #   lines out without loading lapsecalc.layout and lapsecalc.groups: on a board the
 #   balloon line's text stage then holds about 13 KiB less (Unix port, measured).
 from lapsecalc.state import assumed
-from lapsecalc.output import f_h, f_t, f_dt, f_p, wrap
-from lapsecalc.units import m3_to_ft3, kg_to_lb
+from lapsecalc.output import f_h, value_text, wrap
 
 # balloon report kind -> its keys in the order shown, one string each (_GROUPS as in
 # lapsecalc.groups). "hot": working-temperature figures first, the absolute limit (at
@@ -128,10 +127,9 @@ def text_lines(s, word, r, rest=True):
 
 
 def _value_text(s, kind, v):
-    # The text of value v of kind kind after its label (text_lines is split in two so
-    # that a board loads no piece of its code larger than about 1 KB).
-    if isinstance(v, float) and -0.05 < v < 0.05 and kind == "kg":
-        v = 0.0  # no "-0.0 kg -0 lb" (a temperature is rounded in its display unit)
+    # The text of value v of kind kind after its label: a height (MSL, or indicated as
+    # the layout reads it) or a word, then the kinds every layout shares
+    # (output.value_text).
     if v is None:
         return "   none in column" if kind == "z" else "   none"
     if kind == "z":
@@ -139,25 +137,6 @@ def _value_text(s, kind, v):
             from lapsecalc.layout import level
             return level(s, v)
         return f_h(s, v, False, " MSL")
-    if kind == "t":
-        return f_t(s, v)
-    if kind == "dt":
-        return f_dt(s, v)
-    if kind == "p":
-        return f_p(s, v)
-    if kind == "b":
-        return "    yes" if v else "     no"
     if kind == "s":
         return " " + str(v)
-    if kind == "rho":
-        return "%7.3f kg/m3" % v
-    if kind == "gmol":
-        return "%7.3f g/mol" % v
-    if kind == "frac":
-        return "%7.1f %%" % (100.0 * v)
-    if kind == "m3":
-        return ("%7.0f m3 %8.0f ft3" if v >= 100.0 else "%7.2f m3 %8.1f ft3") % (
-            v, m3_to_ft3(v))
-    if kind == "kg":
-        return "%7.1f kg %6.0f lb" % (v, kg_to_lb(v))
-    return ("%.6g" % v) if isinstance(v, float) else str(v)
+    return value_text(s, kind, v)

@@ -2,7 +2,7 @@
 # Sources: none; labels and units only. Every line fits a 40-column screen: a
 #   13-column label, then the value in the session's display units.
 from lapsecalc import units
-from lapsecalc.output import f_h, f_t, f_dt, f_p, wrap_each as wrap
+from lapsecalc.output import f_h, f_t, value_text, wrap_each as wrap
 from lapsecalc.labels import LABELS, find, field, find_label
 
 # Words for the stability classes and thermal kinds in text mode ("value:word;").
@@ -61,8 +61,6 @@ def level(s, z_m, ind_m=None):
 
 
 # Kinds shown as one number and a fixed unit.
-_PLAIN = {"rho": "%7.3f kg/m3", "jkg": "%7.0f J/kg", "pct": "%7.0f %%", "gkg": "%7.1f g/kg",
-          "gmol": "%7.3f g/mol"}
 # What a report's level line says when the level lies above the column top (the
 # library's levels_above_top); the top follows on the next line.
 ABOVE = "above the column top"
@@ -174,9 +172,8 @@ def _kind_lines(s, key, v, label, kind, words, rep):
 
 
 def _value_text(s, key, v, kind, words, rep):
-    # The text of value v (not None) of key, of kind kind, after its label.
-    if isinstance(v, float) and -0.05 < v < 0.05 and kind == "kg":
-        v = 0.0  # no "-0.0 kg -0 lb" (a temperature is rounded in its display unit)
+    # The text of value v (not None) of key, of kind kind, after its label: the kinds
+    # of the report's own, then those every layout shares (output.value_text).
     if kind == "z":
         # The report's own reading, if it has one: no Column built again for the text.
         ind = rep.get("indicated_altitude_m") if rep else None
@@ -187,28 +184,11 @@ def _value_text(s, key, v, kind, words, rep):
                    " IND" if kind == "i" else "")
     if kind == "pa":
         return f_h(s, v, False, " FL%d" % round(units.m_to_ft(v) / 100.0))
-    if kind == "t":
-        return f_t(s, v)
-    if kind == "dt":
-        return f_dt(s, v)
     if kind == "ph":
         return "%7.1f hPa" % v  # aloft and vapour: hPa whatever the display unit
-    if kind == "p":
-        return f_p(s, v)
-    if kind == "b":
-        return "    yes" if v else "     no"
     if kind == "s":
         return " " + word_text(words, v)
-    if kind in _PLAIN:
-        return _PLAIN[kind] % v
-    if kind == "frac":
-        return "%7.1f %%" % (100.0 * v)
-    if kind == "m3":
-        return ("%7.0f m3 %8.0f ft3" if v >= 100.0 else "%7.2f m3 %8.1f ft3") % (
-            v, units.m3_to_ft3(v))
-    if kind == "kg":
-        return "%7.1f kg %6.0f lb" % (v, units.kg_to_lb(v))
-    return ("%.6g" % v) if isinstance(v, float) else str(v)
+    return value_text(s, kind, v)
 
 
 def layer_lines(s, rows):

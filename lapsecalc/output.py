@@ -44,6 +44,38 @@ def f_p(s, hpa, compact=False):
     return ("%.1f hPa" if compact else "%7.1f hPa") % hpa
 
 
+# Plain kinds: the value in a fixed format after its label.
+_PLAIN = {"rho": "%7.3f kg/m3", "jkg": "%7.0f J/kg", "pct": "%7.0f %%", "gkg": "%7.1f g/kg",
+          "gmol": "%7.3f g/mol"}
+
+
+def value_text(s, kind, v):
+    """The text after its label of a value v (not None) of a kind both text layouts say
+    alike (lapsecalc.layout, lapsecalc.balloontext): t a temperature, dt a difference,
+    p a pressure (session s's display units), b yes/no, frac a fraction in %, m3 a
+    volume (and ft3), kg a mass (and lb), a plain kind (_PLAIN); else v as it is."""
+    if kind == "t":
+        return f_t(s, v)
+    if kind == "dt":
+        return f_dt(s, v)
+    if kind == "p":
+        return f_p(s, v)
+    if kind == "b":
+        return "    yes" if v else "     no"
+    if kind in _PLAIN:
+        return _PLAIN[kind] % v
+    if kind == "frac":
+        return "%7.1f %%" % (100.0 * v)
+    if kind == "m3":
+        return ("%7.0f m3 %8.0f ft3" if v >= 100.0 else "%7.2f m3 %8.1f ft3") % (
+            v, units.m3_to_ft3(v))
+    if kind == "kg":
+        if -0.05 < v < 0.05:
+            v = 0.0  # no "-0.0 kg -0 lb" (a temperature is rounded in its display unit)
+        return "%7.1f kg %6.0f lb" % (v, units.kg_to_lb(v))
+    return ("%.6g" % v) if isinstance(v, float) else str(v)
+
+
 def f_lapse(s, lapse):
     """An ELR in the elr syntax, tops AGL in the display unit: "9.5@820ft 7.5@7874ft 6.5"."""
     if not isinstance(lapse, list):

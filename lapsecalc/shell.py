@@ -11,7 +11,8 @@
 # lapsecalc.dispatch (the word tables, the refusals' words), lapsecalc.settingline (a
 # line of settings) -> the word modules: lapsecalc.settings (SETTINGS, several a line,
 # all-or-nothing), the query words' (lapsecalc.queries.QUERIES names them, one a line),
-# lapsecalc.commands (COMMANDS: clear unit out help bye) -> lapsecalc.layout (text lines, loaded by text output) -> lapsecalc.groups
+# lapsecalc.commands (COMMANDS: clear unit out help bye) -> lapsecalc.layout (text
+# lines, loaded by text output) -> lapsecalc.groups
 # (result keys), lapsecalc.output (display units, acks, kv values), lapsecalc.state
 # (state keys, defaults, the Column), lapsecalc.typed (numbers, units; loaded by the
 # lines that read one), lapsecalc.aliases (other names of words, slips) -> the library.

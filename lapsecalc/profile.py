@@ -7,7 +7,7 @@ pass -90 degC."""
 # after: the report's heap never holds the building code and its messages.
 from lapsecalc.constants import T0_K
 from lapsecalc.limits import (check, check_p, check_elev, check_lapse, check_dew, T_MIN_C,
-                              T_MAX_C, TOP_MAX_M)
+                              T_MAX_C, TOP_MAX_M, SAME_LEVEL_M)
 from lapsecalc.moisture import _es_water, _mixing_ratio_kg_kg
 from lapsecalc.standard import layer_pressure, qnh
 
@@ -112,6 +112,11 @@ def _lay(col, tops, layers, z, t, p, trop, top):
             col.end_why = "the air reaches -90 degC, the coldest handled" + (
                 "" if trop else " (no tropopause)")
             z_top = z + (T_MIN_C + T0_K - t) / grad
+            if t + grad * (z_top - z) - T0_K < T_MIN_C:
+                # Rounded a hair colder than allowed there (-90.00000000000003 degC was
+                # seen, which the range checks of what reads the column refuse): the
+                # top a level's width (1 cm) lower (float32 keeps a centimetre at 32 km).
+                z_top -= SAME_LEVEL_M
             if z_top - z > 1.0:
                 layers.append((z, z_top, t, grad, p))
                 z = z_top

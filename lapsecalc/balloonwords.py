@@ -56,7 +56,7 @@ def _out(s, word, r, rest=True):
     # The lines of balloon report r (word: "hot", "gas" or "sunset") in session s's
     # mode, once the physics is let go of; the text laid out by lapsecalc.balloontext
     # without lapsecalc.layout (a board's text stage holds less).
-    s.release()
+    s.release(r)
     if s.mode != "text":
         from lapsecalc.balloontext import keys
         return emit(s, keys(word), r, True, None, rest)

@@ -22,26 +22,19 @@ from lapsecalc.state import AIR_KEYS, missing, build_column, dewpoint_of, settle
 # The longest line accepted, characters.
 MAX_LINE = 256
 PROMPT = "lc> "
-# Modules loaded only for a line's work (the word tables, the setting and session words, help, chart,
-# svg, balloon, metar, demo; the text layout; the parcel, stability, hazards and
-# points-aloft code of a report; the altimeter's numbers and text): on a board a
-# Session forgets them after the line, so the heap between lines holds only the
-# dispatch layer and the session's state (measured: bench/mpy_budget.py). A new module
-# that only some lines need goes here. PHYSICS_MODULES: a board Session keeps no
-# Column between lines and lets go of it and of these once a line's numbers are
-# computed (Session.release), before the text layout loads; so too of the number
-# readers (typed, heights) and the altimeter's numbers (altiwords), which the text
-# does not use.
+# What a board's Session holds between lines: this module and lapsecalc.state. Every
+# other lapsecalc module a line loads (the word tables, the words, help, chart, the
+# text layout, the column and the rest of the library) is let go of after the line
+# (Session._tidy, drop_line_modules), so no list of them needs keeping up (one held
+# 52 names: the 32-bit build's session needed 65 KiB with it, 64 without).
+# PHYSICS_MODULES: a board Session keeps no Column between lines and lets go of it and
+# of these once a line's numbers are computed (Session.release), before the text
+# layout loads; so too of the number readers (typed, heights) and the altimeter's
+# numbers (altiwords), which the text does not use.
 PHYSICS_MODULES = ("parcel", "stability", "hazards", "aloft", "aloftpoints", "altimetry",
                    "indicated", "balloon", "hotair", "hotreport", "gasballoon", "adiabats",
                    "column", "condensation", "standard", "moisture", "constants", "typed",
                    "heights", "altiwords")
-WORD_MODULES = PHYSICS_MODULES + (
-    "limits", "settings", "commands", "units", "output", "machine", "groups", "helptext", "chart", "loadtable",
-    "balloontext", "metar", "demo", "layout", "showword", "jsontext",
-    "balloonwords", "atwords", "hazardtext", "altitext", "aloftwords",
-    "retell", "chartsvg", "balloonsettings", "airsettings", "dispatch", "settingline",
-    "queries", "aliases", "labels", "reportwords", "chartwords")
 # The words whose report carries the altimetry keys (isa_deviation_c,
 # density_altitude_dry_m, indicated_altitude_m: Column.report(altimetry=True)).
 ALTIMETRY_WORDS = ("report", "obs", "da", "levels")
@@ -63,6 +56,14 @@ def drop_modules(names):
     loads them afresh, and until then they hold no heap."""
     from lapsecalc import _forget
     _forget(names)
+
+
+def drop_line_modules():
+    """Forget every lapsecalc submodule but this one and lapsecalc.state (what a board's
+    Session holds between lines)."""
+    import sys
+    drop_modules([k[10:] for k in sys.modules if k.startswith("lapsecalc.")
+                  and k != "lapsecalc.shell" and k != "lapsecalc.state"])
 
 
 def _on_board():
@@ -97,7 +98,7 @@ class Session:
         self.checks = []  # "check:" lines of the line being run (a word adds them)
         self._col = self._rep = self._levels = None
         self._rep_alt = False
-        # On a board, WORD_MODULES are dropped after each line (drop_modules) and the
+        # On a board, a line's modules are dropped after it (drop_line_modules) and the
         # heap collected (an allocation count sets collect_after_line False: it
         # collects between lines itself).
         self.drop_word_modules = self.collect_after_line = _on_board()
@@ -176,7 +177,7 @@ class Session:
         # fell from 186 to 172 KiB).
         if self.drop_word_modules:
             self._col = self._levels = None
-            drop_modules(WORD_MODULES)
+            drop_line_modules()
         if self.collect_after_line:
             import gc
             gc.collect()
@@ -271,24 +272,33 @@ class Session:
         across this call). Nothing on CPython."""
         self.drop(("typed", "heights", "units", "aliases"))
 
-    def release(self):
+    def release(self, numbers=None):
         """On a board: let go of the Column, the parcel path and the physics code once
         a line's numbers are computed, so that the text layout loads into the heap they
-        held (the report stays). Nothing on CPython."""
+        held. The report kept and numbers (a dict of the word's own results, when
+        given) stay, made afresh low in the heap (state.settle): computed among the
+        physics' garbage, they lie spread over the heap it leaves, and the text's
+        larger pieces (a table of labels is one string of 1.3 to 1.6 KB) find no room
+        between them. Nothing on CPython."""
         if self.drop_word_modules:
             self._col = self._levels = None
             self.drop(PHYSICS_MODULES)
-            if self._rep is not None:
-                settle(self._rep)  # into the holes the physics code left
+            moved = False
+            for kept in (self._rep, numbers):
+                if kept is not None:
+                    settle(kept)  # into the holes the physics code left
+                    moved = True
+            if moved:
                 self.collect()
 
     def report(self, word="report"):
-        """The current Column.report() (computed once per state)."""
-        col = self.column(word)
+        """The current Column.report() (computed once per state; the Column is built
+        only to compute it: a board keeps none between lines)."""
         # After "heights ind" every level is shown indicated: the report's own readings
         # (no Column built again for the text).
         alt = word in ALTIMETRY_WORDS or self.disp["z"] == "ind"
         if self._rep is None or (alt and not self._rep_alt):
+            col = self.column(word)
             # The altimetry keys only for the words that show them: a board's session
             # heap has little room for them (bench/mpy_budget.py).
             self._rep = None

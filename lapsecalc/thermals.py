@@ -5,7 +5,6 @@ inversion, and the temperature dry thermals need."""
 #   the LCL of a heated surface parcel (condensation.cloud_base), the dry-thermal top
 #   and the convective (trigger) temperature (lapsecalc.stability).
 # An extra on a board, loaded by lapsecalc.hazards for one report and dropped after it.
-from lapsecalc.stability import classify
 
 
 def capped_top(col, base_msl_m, pa):
@@ -54,8 +53,9 @@ def add_keys(col, levels, r):
     reach = top
     if still:
         # Unless the lowest layer is dry-neutral: a mixed layer, stirred to its top.
-        # (stability.classify's dry-neutral test: the saturated rate plays no part).
-        mixed = classify(-1000 * col.layers[0][3], 0) == "dry_neutral"
+        # (Its lowest band's class, stability.classify's: the dry-neutral test comes
+        # first there. Read from the report: a board has let go of the stability code.)
+        mixed = r["stability_layers"][0]["class"] == "dry_neutral"
         reach = col.layers[0][1] if mixed else col.elev_m
     if th_lcl is not None and (reach is None or reach > th_lcl):
         cap = capped_top(col, th_lcl, r)

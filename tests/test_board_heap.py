@@ -146,7 +146,11 @@ def test_a_board_column_holds_neither_its_building_nor_the_cloud_base_code(board
     assert col.cloud_base() == cloud_base(col.t_c, col.td_c, col.p_hpa)
     assert not _loaded("condensation")
     r = col.report(2.0)
-    assert not _loaded("condensation") and _loaded("stability") and _loaded("parcel")
+    # The stability code let go of before the hazards that read the parcel path (none
+    # of them loads it again); their cautions come before the general ones.
+    assert not _loaded("condensation") and not _loaded("stability") and _loaded("parcel")
+    general = list(stability.CAUTIONS)
+    assert r["cautions"][-len(general):] == general and len(r["cautions"]) > len(general)
     assert r["thermal_cloud_base_msl_m"] == col.elev_m + cloud_base(
         col.t_c + 2.0, col.td_c, col.p_hpa)[0]
     # An allocation count (the collector off) keeps what the count would load twice.
@@ -156,6 +160,18 @@ def test_a_board_column_holds_neither_its_building_nor_the_cloud_base_code(board
         assert _loaded("condensation")
     finally:
         gc.enable()
+
+
+def test_a_core_only_board_report_has_the_general_cautions_and_no_hazard_keys(board):
+    # Without the hazard modules (a core-only board: importing them fails) the report
+    # has the general cautions alone and keeps the stability code (nothing after it).
+    from lapsecalc import hazards
+    sys.modules["lapsecalc.hazards"] = None  # import lapsecalc.hazards: ImportError
+    lapsecalc.__dict__.pop("hazards", None)
+    r = Column.from_qnh(*DEMO).report(2.0, False)
+    assert list(r) == report_keys()
+    assert r["cautions"] is stability.CAUTIONS and _loaded("stability")
+    assert not [k for k in hazards.report_keys() if k in r]
 
 
 def test_a_board_keeps_the_cloud_base_code_another_module_holds(board):
@@ -203,6 +219,25 @@ def test_settle_makes_a_kept_report_afresh_on_a_board(board):
     for k in before:
         _same_values_new_objects(before[k], r[k])
     assert isinstance(r["stability_layers"], list) and isinstance(r["indicated_altitude_m"], dict)
+
+
+def test_release_makes_a_words_own_numbers_afresh_on_a_board(board):
+    # Session.release(numbers): the kept report and the word's own numbers (levels,
+    # a balloon's) made afresh, values unchanged, and the physics let go of.
+    from lapsecalc.shell import Session
+    s = Session()
+    assert s.drop_word_modules  # a board
+    s.feed("temp 27C dew 13C elev 1350ft")
+    rep = s.report("base")
+    kept = dict(rep)
+    numbers = {"freezing_level_msl_m": [2940.5, 2899.25, 95.0], "note": "x"}
+    before = dict(numbers)
+    s.release(numbers)
+    assert not _loaded("column") and not _loaded("parcel")
+    for k in before:
+        _same_values_new_objects(before[k], numbers[k])
+    for k in kept:
+        _same_values_new_objects(kept[k], s._rep[k])
 
 
 def test_settle_moves_nothing_on_cpython_or_with_the_collector_off(board, monkeypatch):
@@ -269,7 +304,9 @@ def test_the_field_hazards_are_added_before_the_parcel_path(monkeypatch):
     monkeypatch.setattr(hazards, "add_parts", parts)
     monkeypatch.setattr(parcel, "path", path)
     r = Column.from_qnh(*DEMO).report(2.0)
-    assert calls == [(("precip", "fieldrisk"), True), "path", (("thermals", "icing"), False)]
+    # The cautions (lapsecalc.cautions) last, loaded as a hazard module is.
+    assert calls == [(("precip", "fieldrisk"), True), "path", (("thermals", "icing"), False),
+                     (("cautions",), False)]
     assert set(hazards.FIELD_PARTS + hazards.PATH_PARTS) == set(hazards.PARTS)
     assert all(k in r for k in hazards.report_keys())
     assert r["precip_type"] == "rain" and r["carb_icing"] == "light"

@@ -96,7 +96,6 @@ def test_the_shell_knows_the_words_of_its_lazy_tables():
     from lapsecalc import commands
     assert dispatch.SETTING_WORDS == tuple(settings.SETTINGS)
     assert dispatch.COMMAND_WORDS == tuple(commands.COMMANDS)
-    assert "settings" in shell.WORD_MODULES and "commands" in shell.WORD_MODULES
 
 
 def test_the_shell_joins_words_as_typed_does():
@@ -112,17 +111,22 @@ def test_the_shell_joins_words_as_typed_does():
         assert dispatch.joined(words) == join_words(words), line
 
 
+def _modules():
+    # Every lapsecalc module's name.
+    return [n[:-3] for n in os.listdir(os.path.dirname(shell.__file__)) if n.endswith(".py")]
+
+
 def test_word_modules_are_loaded_only_by_their_words():
-    # A dropped module that a resident one imports at its top would stay loaded anyway.
+    # A board's Session holds the shell and the state between lines and lets go of
+    # every other module (shell.drop_line_modules): one that a resident module imports
+    # at its top would stay loaded anyway.
     resident, todo = set(), ["shell"]
     while todo:
         m = todo.pop()
         if m not in resident:
             resident.add(m)
             todo.extend(_top_level_imports(m))
-    for m in shell.WORD_MODULES:
-        assert os.path.exists(os.path.join(os.path.dirname(shell.__file__), m + ".py")), m
-        assert m not in resident, m
+    assert resident == {"shell", "state"}
 
 
 LINES = ("help", "help elr", "elev 1350ft", "temp 27C dew 13C", "chart", "help",
@@ -136,7 +140,7 @@ LINES = ("help", "help elr", "elev 1350ft", "temp 27C dew 13C", "chart", "help",
 def restore_word_modules():
     # Other tests hold the modules they imported: put those back afterwards.
     import lapsecalc
-    saved = dict((m, sys.modules.get("lapsecalc." + m)) for m in shell.WORD_MODULES)
+    saved = dict((m, sys.modules.get("lapsecalc." + m)) for m in _modules())
     yield
     for m, mod in saved.items():
         if mod is None:
@@ -155,9 +159,10 @@ def test_a_board_session_drops_word_modules_after_their_line(restore_word_module
     for line in LINES:
         want = keep.feed(line)
         assert drop.feed(line) == want, line
-        for m in shell.WORD_MODULES:
-            assert "lapsecalc." + m not in sys.modules, (line, m)
-            assert m not in lapsecalc.__dict__, (line, m)
+        for m in _modules():
+            if m not in ("shell", "state", "__init__", "__main__"):
+                assert "lapsecalc." + m not in sys.modules, (line, m)
+                assert m not in lapsecalc.__dict__, (line, m)
         # No Column (nor its parcel path) kept between lines: built again when asked.
         assert drop._col is None and drop._levels is None, line
     # An error line drops them too.
@@ -333,13 +338,13 @@ def test_a_board_line_computes_before_its_text_loads(restore_word_modules):
             shell.Session.read_done(self)
             assert "lapsecalc.typed" not in sys.modules
 
-        def release(self):
+        def release(self, numbers=None):
             import gc
             import weakref
             before = set(m for m in sys.modules if m.startswith("lapsecalc."))
             held = [weakref.ref(sys.modules["lapsecalc.column"].Column),
                     weakref.ref(sys.modules["lapsecalc.hotair"].working_envelope_t)]
-            shell.Session.release(self)
+            shell.Session.release(self, numbers)
             gc.collect()
             # Nothing left holds the column's or the balloon's code (a module dropped
             # from sys.modules that a module-level import still refers to stays).
@@ -352,7 +357,7 @@ def test_a_board_line_computes_before_its_text_loads(restore_word_modules):
     lines = (("balloon", False), ("balloon 3000ft", True), ("loads 420kg", True),
              ("loads", False))
     want = [keep.feed(line) for line in setup] + [keep.feed(line) for line, _ in lines]
-    shell.drop_modules(shell.WORD_MODULES)  # what CPython's session loaded
+    shell.drop_line_modules()  # what CPython's session loaded
     assert [drop.feed(line) for line in setup] == want[:2]
     for i, (line, read) in enumerate(lines):
         seen[:] = []
@@ -380,6 +385,29 @@ def test_the_parcel_path_and_at_need_no_report():
     assert s._rep is None
     col = s.column()
     assert levels == path(col, col.elev_m + s.report("report")["cloud_base_agl_m"])
+
+
+def test_a_kept_report_is_read_without_building_a_column(monkeypatch, restore_word_modules):
+    # A board keeps no Column between lines: a line that reads the kept report (ice
+    # after base, frost after obs) builds none; one that must compute it again (obs: the
+    # altimetry keys too) builds one. The lines are CPython's all the same.
+    keep = shell.Session()
+    want = [keep.feed(line) for line in ("temp 27C dew 13C elev 1350ft", "base", "ice",
+                                          "obs", "frost")]
+    built = []
+    real = shell.build_column
+
+    def build(st):
+        built.append(1)
+        return real(st)
+    monkeypatch.setattr(shell, "build_column", build)
+    s = shell.Session()
+    s.drop_word_modules = True
+    assert s.feed("temp 27C dew 13C elev 1350ft") == want[0] and len(built) == 1  # commit
+    assert s.feed("base") == want[1] and len(built) == 2
+    assert s.feed("ice") == want[2] and len(built) == 2
+    assert s.feed("obs") == want[3] and len(built) == 3
+    assert s.feed("frost") == want[4] and len(built) == 3
 
 
 def test_a_board_settings_line_lets_go_of_the_setting_words_before_the_column(
@@ -414,7 +442,7 @@ def test_a_board_settings_line_lets_go_of_the_setting_words_before_the_column(
     keep = shell.Session()
     want = [keep.feed(line) for line in lines]
     keep = None
-    shell.drop_modules(shell.WORD_MODULES)  # what CPython's session loaded
+    shell.drop_line_modules()  # what CPython's session loaded
     before = setters()
     drop = Board()
     drop.drop_word_modules = True

@@ -771,6 +771,8 @@ def test_hazard_keys_are_made_with_the_report():
         full = col.report(1.0, altimetry=False)
         for k in keys:
             bare[k] = full[k]
+        # The general cautions alone, as Column.report() puts them before the hazards'.
+        bare["cautions"] = stability.CAUTIONS
         from lapsecalc import parcel
         hazards.add_to_report(col, parcel.path(col, full["cloud_base_msl_m"]), bare)
         assert list(bare) == keys + more and bare == full

@@ -146,7 +146,7 @@ INTERPRETER_LAYERS = (
     ("settings", "queries", "commands"),
     ("heights",),
     ("altiwords",),
-    ("altitext", "chartsvg", "balloontext"),
+    ("altitext", "chartsvg", "balloontext", "reporttext"),
     ("layout", "chart", "metar", "helptext", "loadtable"),
     ("labels",),  # the result keys' labels (layout and the altimeter text read them)
     ("retell",),  # the library's sentences in the user's terms (layout says warnings)
@@ -164,7 +164,8 @@ INTERPRETER_LAYERS = (
 
 # Library modules a board installs with the interpreter only (not core), below every
 # interpreter layer.
-LIBRARY_EXTRAS = {"aloft", "aloftpoints", "units", "hazards", "thermals", "icing", "precip", "fieldrisk"}
+LIBRARY_EXTRAS = {"aloft", "aloftpoints", "units", "hazards", "thermals", "icing", "precip", "fieldrisk",
+                  "cautions"}
 
 
 def test_interpreter_layers_import_downward():

@@ -5,7 +5,7 @@
 against the documented rules (group order, then the others sorted, cautions last)."""
 import pytest
 
-from lapsecalc import balloontext, groups, hazardtext, layout
+from lapsecalc import balloontext, groups, hazardtext, layout, reporttext
 from lapsecalc.layout import find, field, find_label, word_text, LABELS, WORDS
 
 
@@ -159,7 +159,7 @@ def test_report_text_sections_more_and_head():
     # group (said under "-- more", "%.6g"), a caution; the head lines come first.
     rep = {"t_c": 20.0, "td_c": 10.0, "zz_extra": 1.5, "cautions": ["Mind the gap."],
            "warnings": [], "levels_above_top": []}
-    got = layout.report_text(_S(), rep, (), ["assumed x"])
+    got = reporttext.report_text(_S(), rep, (), ["assumed x"])
     assert got == ["assumed x", "-- surface", "temp            20.0 C",
                    "dewpoint        10.0 C", "-- cloud base", "-- freezing and icing",
                    "-- frost, fog, carb icing", "-- stability", "-- parcel",
@@ -167,7 +167,7 @@ def test_report_text_sections_more_and_head():
                    "-- cautions", "! Mind the gap."]
     # nothing of no group: no "-- more"; the altimeter lines after the thermals
     del rep["zz_extra"]
-    got = layout.report_text(_S(), rep, ["cold corr x"])
+    got = reporttext.report_text(_S(), rep, ["cold corr x"])
     assert "-- more" not in got
     assert got[got.index("-- thermals") + 1:] == ["-- altimeter", "cold corr x", "-- cautions",
                                                   "! Mind the gap."]

@@ -21,7 +21,7 @@ def chart(s, w, args):
                              " field (%s)" % f_h1(s, col.elev_m))
     from lapsecalc.chart import figure, draw
     rep = s.report(w)
-    fig = figure(col, rep, s.levels(), s.disp["t"], top)
+    fig = figure(col, rep, _path(col, rep), s.disp["t"], top)
     col = figure = None
     s.release()
     return draw(fig, rep, s.disp["h"], s.disp["t"])
@@ -43,7 +43,15 @@ def svg(s, w, args):
 def chart_svg(s):
     """The profile chart of session s's state as SVG text."""
     from lapsecalc import chartsvg
-    return chartsvg.svg(s.column("svg"), s.report("svg"), s.levels(), s.disp["h"], s.disp["t"])
+    col, rep = s.column("svg"), s.report("svg")
+    return chartsvg.svg(col, rep, _path(col, rep), s.disp["h"], s.disp["t"])
+
+
+def _path(col, rep):
+    # The surface parcel's path (parcel.path) from the report's cloud base, as
+    # Column.report() computed it.
+    from lapsecalc.parcel import path
+    return path(col, col.elev_m + rep["cloud_base_agl_m"])
 
 
 # word -> f(session, word, args) -> output lines (a word's own function named after it:

@@ -96,7 +96,7 @@ class Session:
         self.svg_writer = svg_writer
         self.write = None
         self.checks = []  # "check:" lines of the line being run (a word adds them)
-        self._col = self._rep = self._levels = None
+        self._col = self._rep = None
         self._rep_alt = False
         # On a board, a line's modules are dropped after it (drop_line_modules) and the
         # heap collected (an allocation count sets collect_after_line False: it
@@ -161,6 +161,8 @@ class Session:
         if self.drop_word_modules:
             drop_modules(("settingline",))
             self.collect()
+            settle(new)  # made among the setters' code: low in the heap now
+            self.collect()
         try:
             self.commit(new)
         except ValueError as e:
@@ -176,7 +178,7 @@ class Session:
         # among them: less fragmentation (the hard heap limit of the full-word session
         # fell from 186 to 172 KiB).
         if self.drop_word_modules:
-            self._col = self._levels = None
+            self._col = None
             drop_line_modules()
         if self.collect_after_line:
             import gc
@@ -232,7 +234,7 @@ class Session:
                 dewpoint_of(new)
         self.state = new
         if not same_air:
-            self._col, self._rep, self._levels = col, None, None
+            self._col, self._rep = col, None
 
     def snapshot(self):
         """Everything a line may change, as a comparable value."""
@@ -281,7 +283,7 @@ class Session:
         larger pieces (a table of labels is one string of 1.3 to 1.6 KB) find no room
         between them. Nothing on CPython."""
         if self.drop_word_modules:
-            self._col = self._levels = None
+            self._col = None
             self.drop(PHYSICS_MODULES)
             moved = False
             for kept in (self._rep, numbers):
@@ -316,20 +318,6 @@ class Session:
             self.collect()
             settle(self._rep)
         return self._rep
-
-    def levels(self):
-        """The surface parcel's path (parcel.path) in the current column."""
-        if self._levels is None:
-            col = self.column()
-            # The report's cloud base (Column.report() takes it from cloud_base() too),
-            # without computing the whole report for the words that need only the path;
-            # found before the parcel code loads (a board lets go of its code after).
-            # A kept report has it already.
-            lcl = col.elev_m + (col.cloud_base()[0] if self._rep is None else
-                                self._rep["cloud_base_agl_m"])
-            from lapsecalc.parcel import path
-            self._levels = path(col, lcl)
-        return self._levels
 
 
 def split_ends(text):

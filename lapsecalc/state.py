@@ -89,15 +89,17 @@ def assumed(st, balloon=False, inhg=False):
 
 
 def settle(rep):
-    """On MicroPython, move the values of a result kept for the session (a report)
-    out of the heap the computation left full of holes: after a collection (the
-    caller's) each float, list and dict in it is made afresh, so it lands in the
-    lowest free space, and its old place joins a larger hole (a board's heap is never
-    compacted; a module's code and a long JSON line need pieces of a few KB).
-    Measured on the Unix port's hard limit: the full-word session 121 -> 119 KiB with
-    lists and dicts moved too and once more after the physics code is let go of
-    (Session.release). Nothing on CPython, nor while the collector is off (an
-    allocation count runs: no old place would be freed)."""
+    """On MicroPython, move the values of a dict kept for the session (a report, a
+    word's numbers, a new state) out of the heap the computation left full of holes:
+    after a collection (the caller's) each float, list, tuple and dict in it is made
+    afresh, so it lands in the lowest free space, and its old place joins a larger
+    hole (a board's heap is never compacted; a module's code and a long JSON line need
+    pieces of a few KB). Measured on the Unix port's hard limit: the full-word session
+    121 -> 119 KiB with lists and dicts moved too and once more after the physics code
+    is let go of (Session.release); on the 32-bit build, the new state of a settings
+    line and tuples moved too: the failing lines over 60-74 KiB summed, 31 -> 23.
+    Nothing on CPython, nor while the collector is off (an allocation count runs: no
+    old place would be freed)."""
     import sys
     if sys.implementation.name != "micropython":
         return
@@ -108,12 +110,14 @@ def settle(rep):
 
 
 def _moved(v):
-    # v made afresh: floats, and lists and dicts with all they hold (strings, often
-    # interned, stay).
+    # v made afresh: floats, and lists, tuples and dicts with all they hold (strings,
+    # often interned, stay).
     if isinstance(v, float):
         return v + 0.0
     if isinstance(v, list):
         return [_moved(x) for x in v]
+    if isinstance(v, tuple):
+        return tuple([_moved(x) for x in v])
     if isinstance(v, dict):
         out = dict.fromkeys(v)  # room for every key at once
         for k in v:

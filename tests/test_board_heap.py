@@ -193,11 +193,12 @@ def test_a_refused_column_lets_go_of_the_building_code_too(board):
 
 
 def _same_values_new_objects(old, new):
-    # Equal values; every float, list and dict a new object; strings and None kept.
+    # Equal values; every float, list, tuple (but the empty one) and dict a new object;
+    # strings and None kept.
     assert new == old
-    if isinstance(old, (float, list, dict)):
+    if isinstance(old, (float, list, dict)) or isinstance(old, tuple) and old:
         assert new is not old
-    if isinstance(old, list):
+    if isinstance(old, (list, tuple)):
         for a, b in zip(old, new):
             _same_values_new_objects(a, b)
     elif isinstance(old, dict):
@@ -238,6 +239,28 @@ def test_release_makes_a_words_own_numbers_afresh_on_a_board(board):
         _same_values_new_objects(before[k], numbers[k])
     for k in kept:
         _same_values_new_objects(kept[k], s._rep[k])
+
+
+def test_a_board_settings_line_makes_its_new_state_afresh(board, monkeypatch):
+    # The new state of a settings line, made among the setters' code, is made afresh
+    # (state.settle) before the new Column is built: equal values, new objects.
+    from lapsecalc import shell
+    s = shell.Session()
+    s.feed("temp 27C dew 13C elev 1350ft")
+    calls = []
+    real = shell.settle
+
+    def settle(d):
+        before = dict(d)
+        real(d)
+        calls.append((before, d))
+    monkeypatch.setattr(shell, "settle", settle)
+    s.feed("qnh 29.92inHg elr -4@200m 6.5 aloft 1500m 16C 3000m 5C/-2C")
+    assert len(calls) == 1 and calls[0][1] is s.state
+    before = calls[0][0]
+    assert isinstance(before["aloft"], tuple) and isinstance(before["press"], tuple)
+    for k in before:
+        _same_values_new_objects(before[k], s.state[k])
 
 
 def test_settle_moves_nothing_on_cpython_or_with_the_collector_off(board, monkeypatch):

@@ -164,7 +164,7 @@ def test_a_board_session_drops_word_modules_after_their_line(restore_word_module
                 assert "lapsecalc." + m not in sys.modules, (line, m)
                 assert m not in lapsecalc.__dict__, (line, m)
         # No Column (nor its parcel path) kept between lines: built again when asked.
-        assert drop._col is None and drop._levels is None, line
+        assert drop._col is None, line
     # An error line drops them too.
     assert drop.feed("help nosuchword")[0].startswith("error:")
     assert "lapsecalc.helptext" not in sys.modules
@@ -372,19 +372,27 @@ def test_a_board_line_computes_before_its_text_loads(restore_word_modules):
             assert "lapsecalc." + m not in after, (line, m)
 
 
-def test_the_parcel_path_and_at_need_no_report():
-    # Session.levels() (the at word's parcel temperature, the chart) takes the surface
-    # parcel's cloud base from the Column itself, as Column.report() does: the same
-    # path, without computing the whole report.
+def test_at_needs_no_report_and_the_chart_draws_the_reports_path(monkeypatch):
+    # The at word's parcel temperature takes the surface parcel's cloud base from the
+    # Column itself (no whole report computed); the chart draws the path from the
+    # report's cloud base, as Column.report() computed it.
+    from lapsecalc import chart
     from lapsecalc.parcel import path
     s = shell.Session()
     s.feed("temp 27C dew 13C elev 1350ft")
-    levels = s.levels()
-    assert s._rep is None and len(levels) > 2
     s.feed("at 5000ft")
     assert s._rep is None
+    drawn = []
+    real = chart.figure
+
+    def figure(col, rep, levels, *args):
+        drawn.append(levels)
+        return real(col, rep, levels, *args)
+    monkeypatch.setattr(chart, "figure", figure)
+    s.feed("chart")
     col = s.column()
-    assert levels == path(col, col.elev_m + s.report("report")["cloud_base_agl_m"])
+    want = path(col, col.elev_m + s.report("chart")["cloud_base_agl_m"])
+    assert drawn == [want] and len(want) > 2
 
 
 def test_a_kept_report_is_read_without_building_a_column(monkeypatch, restore_word_modules):

@@ -154,12 +154,12 @@ WORD_FACTOR = 1.5
 # before a word runs, the display code loaded only to say a number, about 100 names
 # fewer: (b) session 109 -> 96-97 KiB (about the Unix port's board budget, 96),
 # ceiling 112 -> 99;
-# Then (session 7) the stability code let go of before the hazards that read the parcel
+# Then (26cc081, d3f246f) the stability code let go of before the hazards that read the parcel
 # path, the cautions and the report's text in modules of their own, a word's numbers
 # made afresh low in the heap before its text (Session.release(numbers)), every module
 # but the shell and the state let go of after a line (no list of them held): (b)
 # session 96-97 -> 93 KiB (within 96), ceiling 99 -> 93, report ceiling 53 -> 50 (it
-# needs 50); (a) session 174.9 -> 174.7, ceiling 177 -> 175; (c) below.
+# needs 50); (a) session 174.9 -> 175.0, ceiling 177 -> 175; (c) below.
 CEILINGS = {"board_session_heap_bytes": 175 * KIB, "board_report_heap_bytes": 92 * KIB,
             "unix_session_kib": 93, "unix_report_kib": 50}
 SESSION_FILE = os.path.join(MPY_DIR, "board_session.txt")
@@ -195,8 +195,8 @@ def unix_ceiling_kib(what):
 # Then the steps of session 6 (above): (c) session 73 -> 67 KiB (68 for a while: one
 # layout of the heap, the base line after points aloft), ceiling 76 -> 70; the
 # core report stays at 32 KiB (it runs from 31.875 KiB in 128-byte steps).
-# Then the steps of session 7 (above): (c) session 67 -> 64 KiB, within the board
-# budget (the lines that fail between 60 and 74 KiB, summed: 139 -> 23); the core
+# Then the steps of 26cc081 and d3f246f (above): (c) session 67 -> 64 KiB, within the board
+# budget (the lines that fail between 60 and 74 KiB, summed: 139 -> 34); the core
 # report 32 KiB (it runs from 31.875 in 128-byte steps); ceilings session 70 -> 64,
 # report 35 -> 32, the budgets themselves.
 CEILINGS["board32_session_kib"] = 64

@@ -1,7 +1,7 @@
 """The words people type, before any number is read: other names of words (aliases),
 two-word names, text safe to show, and where a typed number ends (runs on MicroPython;
-the shell holds it between lines: it is small; a slip's nearest word is
-lapsecalc.typed's, loaded only for a line that needs one)."""
+loaded by the lines that read words; a slip's nearest word is lapsecalc.typed's,
+loaded only for a line that needs one)."""
 # Sources: none. lapsecalc.typed (numbers with units) builds on it and re-exports it.
 
 

@@ -187,7 +187,9 @@ class Column:
         words, with why the column ends below the top asked for (stability.add_warnings).
         altimetry: add the keys of lapsecalc.indicated (indicated_altitude_m,
         isa_deviation_c, density_altitude_dry_m) when that module is installed; they cost
-        a board about 4 KB of heap."""
+        a board about 4 KB of heap. On a board with the hazard modules it lets go of
+        lapsecalc.stability before the hazards that read the parcel path (a program
+        that holds that module itself gets a second copy at its next import of it)."""
         # On a board (MicroPython): a collection (the garbage of building the column),
         # the cloud bases with the condensation code loaded for them and let go of
         # after (lapsecalc._drop, which collects again), then every other module

@@ -23,7 +23,7 @@ _FOG_SPREAD_K = const(3.0)
 # "Piston Engine Icing" (from memory, approximate: check the leaflet). Band names are
 # ours: any_power (serious icing at any power), cruise_and_glide (moderate at cruise
 # power, serious at descent power), glide (serious at descent power), light (light at
-# cruise or descent power); the first three are serious (lapsecalc.hazards cautions).
+# cruise or descent power); the first three are serious (lapsecalc.cautions says so).
 CARB_BANDS = (
     ("any_power", -10.0, 20.0, 80.0),
     ("cruise_and_glide", -10.0, 30.0, 60.0),

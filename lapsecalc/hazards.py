@@ -5,9 +5,9 @@
 # This module is an extra on a board (lapsecalc/package-full.json): Column.report()
 # imports it when it is there and leaves its keys out when it is not. It loads the
 # hazard modules one at a time; on a board it drops each after its keys are in and
-# collects the heap, so one report holds only one of them at a time. It does not load
-# the stability code (Column.report() lets go of it before the hazards that read the
-# parcel path).
+# collects the heap, so one report holds only one of them at a time. The hazards that
+# read the parcel path do not load the stability code (Column.report() lets go of it
+# before them; precip, which reads stability's root finder, runs before the path).
 
 # The hazard modules: those that read only the column and its freezing level (which
 # Column.report() adds before it computes the parcel path), and those that read the
@@ -49,6 +49,10 @@ def add_to_report(col, levels, r, parts=PARTS):
     the thermal keys, the parcel's 0 degC level and the cloud layers). The cautions:
     a sentence per hazard present (lapsecalc.cautions, loaded last like a hazard
     module, so that its sentences are not held while they compute), then the general
-    ones Column.report() put in r["cautions"] (stability.CAUTIONS)."""
+    ones Column.report() put in r["cautions"] (stability.CAUTIONS): r must hold them,
+    and this runs once per report (a second run would say each hazard twice)."""
+    if r.get("cautions") is None:
+        raise ValueError("the hazards' cautions go before the general ones: put"
+                         " stability.CAUTIONS in r['cautions'] first")
     add_parts(col, levels, r, parts)
     add_parts(col, levels, r, ("cautions",))  # last: its sentences read every hazard key

@@ -58,12 +58,19 @@ def drop_modules(names):
     _forget(names)
 
 
-def drop_line_modules():
-    """Forget every lapsecalc submodule but this one and lapsecalc.state (what a board's
-    Session holds between lines)."""
+def drop_line_modules(keep=()):
+    """Forget every lapsecalc submodule but this one, lapsecalc.state and those named
+    in keep (full names): what a board's Session holds between lines. It makes no new
+    string (it runs after a line that may have run out of heap)."""
     import sys
-    drop_modules([k[10:] for k in sys.modules if k.startswith("lapsecalc.")
-                  and k != "lapsecalc.shell" and k != "lapsecalc.state"])
+    import lapsecalc
+    gone = [k for k in sys.modules if k.startswith("lapsecalc.") and k not in keep
+            and k != "lapsecalc.shell" and k != "lapsecalc.state"]
+    for k in gone:
+        del sys.modules[k]
+    g = lapsecalc.__dict__
+    for n in [n for n in g if type(g[n]) is type(sys) and g[n].__name__ in gone]:
+        del g[n]
 
 
 def _on_board():
@@ -100,8 +107,14 @@ class Session:
         self._rep_alt = False
         # On a board, a line's modules are dropped after it (drop_line_modules) and the
         # heap collected (an allocation count sets collect_after_line False: it
-        # collects between lines itself).
+        # collects between lines itself); what the program had loaded before the
+        # Session stays (dropped, the program's next import of it would load a second
+        # copy beside the one it holds).
         self.drop_word_modules = self.collect_after_line = _on_board()
+        self._kept = ()
+        if self.drop_word_modules:
+            import sys
+            self._kept = [k for k in sys.modules if k.startswith("lapsecalc.")]
 
     def feed(self, line):
         """Run one line; return its output lines (no newlines in them). In text mode
@@ -177,11 +190,15 @@ class Session:
         # the line's garbage and the dropped modules before the next line allocates
         # among them: less fragmentation (the hard heap limit of the full-word session
         # fell from 186 to 172 KiB).
+        import gc
         if self.drop_word_modules:
             self._col = None
-            drop_line_modules()
+            try:
+                drop_line_modules(self._kept)
+            except MemoryError:  # after a line out of heap: its garbage freed first
+                gc.collect()
+                drop_line_modules(self._kept)
         if self.collect_after_line:
-            import gc
             gc.collect()
 
     def _refusal(self, e, line):

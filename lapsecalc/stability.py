@@ -234,7 +234,8 @@ def _illinois(f, a, fa, b, fb, what="the convective condensation level"):
 def report_keys():
     """The report's keys from here on, in its order: add_to_report's, then
     cloud_layers_msl_m (Column.report), add_warnings' and cautions (Column.report:
-    CAUTIONS, or lapsecalc.hazards). A list made afresh: see column.report_keys."""
+    CAUTIONS, after a sentence per hazard present when lapsecalc.hazards is there:
+    lapsecalc.cautions). A list made afresh: see column.report_keys."""
     return ["stability", "stability_layers", "lapse_0_3km_k_per_km", "lapse_0_3km_class",
             "lapse_700_500_k_per_km", "lapse_700_500_class", "lfc_msl_m", "el_msl_m",
             "el_above_top", "cape_j_kg", "cin_j_kg", "lifted_index_c", "thermal_excess_c",

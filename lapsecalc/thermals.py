@@ -53,9 +53,10 @@ def add_keys(col, levels, r):
     reach = top
     if still:
         # Unless the lowest layer is dry-neutral: a mixed layer, stirred to its top.
-        # (Its lowest band's class, stability.classify's: the dry-neutral test comes
-        # first there. Read from the report: a board has let go of the stability code.)
-        mixed = r["stability_layers"][0]["class"] == "dry_neutral"
+        # (The report's stability, the lowest band's class by stability.classify, whose
+        # dry-neutral test comes first; read from the report: a board has let go of the
+        # stability code.)
+        mixed = r["stability"] == "dry_neutral"
         reach = col.layers[0][1] if mixed else col.elev_m
     if th_lcl is not None and (reach is None or reach > th_lcl):
         cap = capped_top(col, th_lcl, r)

@@ -263,6 +263,14 @@ def test_a_board_settings_line_makes_its_new_state_afresh(board, monkeypatch):
         _same_values_new_objects(before[k], s.state[k])
 
 
+def test_a_board_session_records_what_was_loaded_before_it(board):
+    # What the program had loaded (here lapsecalc.station) stays after each line.
+    import lapsecalc.station  # noqa: F401
+    from lapsecalc.shell import Session
+    s = Session()
+    assert "lapsecalc.station" in s._kept and "lapsecalc.shell" in s._kept
+
+
 def test_settle_moves_nothing_on_cpython_or_with_the_collector_off(board, monkeypatch):
     import gc
     from lapsecalc.state import settle

@@ -349,7 +349,8 @@ def test_a_board_line_computes_before_its_text_loads(restore_word_modules):
             # Nothing left holds the column's or the balloon's code (a module dropped
             # from sys.modules that a module-level import still refers to stays).
             assert [r() for r in held] == [None, None]
-            seen.append((before, set(m for m in sys.modules if m.startswith("lapsecalc."))))
+            seen.append((before, set(m for m in sys.modules if m.startswith("lapsecalc.")),
+                         numbers))
 
     keep, drop = shell.Session(), Board()
     drop.drop_word_modules = True
@@ -363,13 +364,71 @@ def test_a_board_line_computes_before_its_text_loads(restore_word_modules):
         seen[:] = []
         reads[:] = []
         assert drop.feed(line) == want[2 + i], line
-        before, after = seen[0]
+        before, after, numbers = seen[0]
+        # A balloon line's report is made afresh before its text (release(numbers)).
+        assert (line[:7] == "balloon") == (isinstance(numbers, dict) and
+                                           "gross_lift_kg" in numbers), line
         assert any(reads) == read and "lapsecalc.typed" not in before, line
         assert "lapsecalc.hotair" in before and "lapsecalc.column" in before, line
         assert ("lapsecalc.hotreport" in before) == (line[:7] == "balloon"), line
         assert "lapsecalc.gasballoon" not in before, line  # a hot-air line loads no gas code
         for m in ("balloon", "hotair", "hotreport", "column", "standard", "typed", "heights"):
             assert "lapsecalc." + m not in after, (line, m)
+
+
+def test_the_levels_word_makes_its_numbers_afresh_before_its_text(restore_word_modules):
+    # The levels word's numbers (each level's [MSL, indicated, flight level]) are given
+    # to Session.release, which makes them afresh low in a board's heap.
+    given = []
+
+    class Board(shell.Session):
+        def release(self, numbers=None):
+            given.append(numbers)
+            shell.Session.release(self, numbers)
+
+    s = Board()
+    s.drop_word_modules = True
+    s.feed("temp 27C dew 13C elev 1350ft")
+    out = s.feed("levels")
+    vals = [n for n in given if n is not None]
+    assert len(vals) == 1 and "freezing_level_msl_m" in vals[0], given
+    z, ind, fl = vals[0]["freezing_level_msl_m"]
+    assert z > 1350 * 0.3048 and fl > 0 and any(x.startswith("0C level") for x in out)
+
+
+def test_a_board_session_keeps_what_the_program_loaded_before_it(restore_word_modules):
+    # A module the program had loaded before the Session stays loaded after each line
+    # (dropped, the program's next import of it would load a second copy).
+    import lapsecalc.station
+    held = sys.modules["lapsecalc.station"]
+    keep = shell.Session()
+    s = shell.Session()
+    s.drop_word_modules = True
+    s._kept = ["lapsecalc.station"]  # as a board's Session records it
+    for line in ("temp 27C dew 13C elev 1350ft", "base", "report"):
+        want = keep.feed(line)
+        assert s.feed(line) == want, line
+        assert sys.modules.get("lapsecalc.station") is held, line
+        assert "lapsecalc.column" not in sys.modules, line
+
+
+def test_a_board_line_out_of_heap_while_letting_go_tries_once_more(monkeypatch,
+                                                                 restore_word_modules):
+    # The drop after a line runs in a finally: a MemoryError there (the line used up the
+    # heap) is followed by a collection and one more try, not by an error out of feed.
+    calls = []
+    real = shell.drop_line_modules
+
+    def drop(keep=()):
+        calls.append(1)
+        if len(calls) == 1:
+            raise MemoryError("memory allocation failed")
+        real(keep)
+    monkeypatch.setattr(shell, "drop_line_modules", drop)
+    s = shell.Session()
+    s.drop_word_modules = True
+    assert s.feed("temp 27C dew 13C elev 1350ft")[0].startswith("ok")
+    assert len(calls) == 2 and "lapsecalc.settings" not in sys.modules
 
 
 def test_at_needs_no_report_and_the_chart_draws_the_reports_path(monkeypatch):

@@ -153,15 +153,18 @@ def test_a_column_cut_at_the_coldest_allowed_is_never_colder_at_its_top():
     # refused; found by hypothesis: helium, 9.0625 K/km), a centimetre lower.
     from lapsecalc.gasballoon import gas_density
     # (8.015625 K/km from 42.75 degC is one of those a search of the old cut found.)
+    cut = 0
     for i in range(8):
         lapse = 8.0 + i / 64.0
         for t in (42.75, 44.5, 46.75, 47.25, 20.0):
             col = Column(t, t - 20.0, 1000.0, 0.0, lapse, 32000.0, tropopause_m=None)
             if col.end_why is None or "-90" not in col.end_why:
                 continue
+            cut += 1
             t_top = col.t_at(col.top_m)
             assert -90.0 <= t_top < -89.999, (lapse, t)
             assert gas_density(col.p_at(col.top_m), t_top, "helium") > 0.0
+    assert cut == 40  # every one of them ends at -90 degC, inside 32 km
 
 
 def test_inversion_too_warm_is_refused():

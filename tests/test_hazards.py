@@ -778,6 +778,22 @@ def test_hazard_keys_are_made_with_the_report():
         assert list(bare) == keys + more and bare == full
 
 
+def test_hazard_cautions_need_the_general_ones_first():
+    # hazards.add_to_report puts its sentences before the general cautions that
+    # Column.report() put in r["cautions"]: without them, a clear refusal.
+    from lapsecalc.column import report_keys
+    col = Column(-3.0, -4.0, 1000.0, 100.0, [(500.0, -16.0), (None, 6.5)], 10000.0)
+    full = col.report(1.0, altimetry=False)
+    r = dict.fromkeys(report_keys() + hazards.report_keys())
+    for k in report_keys():
+        if k != "cautions":
+            r[k] = full[k]
+    from lapsecalc import parcel
+    levels = parcel.path(col, full["cloud_base_msl_m"])
+    with pytest.raises(ValueError, match="general ones"):
+        hazards.add_to_report(col, levels, r)
+
+
 def test_cautions_keep_the_general_ones_last():
     r = Column(-3.0, -4.0, 1000.0, 100.0, [(500.0, -16.0), (None, 6.5)], 10000.0).report()
     assert list(r["cautions"][-len(stability.CAUTIONS):]) == list(stability.CAUTIONS)

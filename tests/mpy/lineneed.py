@@ -57,7 +57,7 @@ def need_kib(s, line, line_failed):
     def restore():
         s.state, disp, s.mode = before
         s.disp = dict(disp)
-        s._col = s._levels = s._rep = None
+        s._col = s._rep = None
         if kept is not None:
             s.report(kept)
             s.release()

@@ -156,9 +156,12 @@ def test_a_board_session_drops_word_modules_after_their_line(restore_word_module
     keep, drop = shell.Session(), shell.Session()
     assert keep.drop_word_modules is False  # CPython keeps them (no heap to save)
     drop.drop_word_modules = True
+    # The shell and the state stay, the same modules (a board would load a second copy).
+    held = [sys.modules["lapsecalc." + m] for m in ("shell", "state")]
     for line in LINES:
         want = keep.feed(line)
         assert drop.feed(line) == want, line
+        assert [sys.modules.get("lapsecalc." + m) for m in ("shell", "state")] == held, line
         for m in _modules():
             if m not in ("shell", "state", "__init__", "__main__"):
                 assert "lapsecalc." + m not in sys.modules, (line, m)

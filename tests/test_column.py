@@ -167,6 +167,30 @@ def test_a_column_cut_at_the_coldest_allowed_is_never_colder_at_its_top():
     assert cut == 40  # every one of them ends at -90 degC, inside 32 km
 
 
+def test_an_elr_reaching_exactly_minus_90_is_not_cut_there():
+    # -30 degC at 6 K/km is -90 degC (to the last bit in floats) at 10000 m: the
+    # coldest handled, not past it. With the tropopause there the air above stays at
+    # -90 degC up to the top asked; without it the air would cool past it, and the
+    # column ends at 10000 m.
+    col = Column(-30.0, -35.0, 1000.0, 0.0, 6.0, 16000.0, tropopause_m=10000.0)
+    assert col.top_m == 16000.0 and col.end_why is None and col.tropopause_m == 10000.0
+    assert col.t_at(10000.0) == -90.0 and col.t_at(16000.0) == -90.0
+    col = Column(-30.0, -35.0, 1000.0, 0.0, 6.0, 16000.0, tropopause_m=None)
+    assert col.top_m == 10000.0 and "-90 degC" in col.end_why
+
+
+def test_a_cut_layer_is_kept_only_when_over_a_metre_deep():
+    # 6 K/km from a field at 1000 m: -89.994 degC reaches -90 degC exactly 1 m up (in
+    # floats: a search of the cut found it), no layer over 1 m deep, so no column;
+    # -89.9939 degC reaches it 1.0167 m up (0.0061 K at 6 K/km), a column that thin.
+    with pytest.raises(ValueError) as err:
+        Column(-89.994, -89.994, 900.0, 1000.0, 6.0, 12000.0)
+    assert "leaves no column above the surface" in str(err.value)
+    col = Column(-89.9939, -89.9939, 900.0, 1000.0, 6.0, 12000.0)
+    assert col.top_m - 1000.0 == pytest.approx(0.0061 / 0.006, abs=1e-9)
+    assert "-90 degC" in col.end_why and col.t_at(col.top_m) == pytest.approx(-90.0)
+
+
 def test_inversion_too_warm_is_refused():
     with pytest.raises(ValueError) as err:
         Column(40.0, 10.0, 1000.0, 0.0, [(2000.0, -15.0), (None, 6.5)])

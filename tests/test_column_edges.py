@@ -72,6 +72,21 @@ def test_cloud_base_above_the_column_top():
     assert abs(r["lifted_index_c"] - li) < 0.01
 
 
+def test_cloud_base_exactly_at_the_column_top_is_in_the_column():
+    # A column whose top is the cloud base itself (elevation plus the LCL the report
+    # computes, to the last bit): the base is in the column (the top belongs to it), so
+    # no "above the column top" for it; a centimetre lower, it is above the top.
+    from lapsecalc import cloud_base
+    for elev in (0.0, 300.0):
+        top = elev + cloud_base(20.0, 5.0, 1000.0)[0]
+        r = Column(20.0, 5.0, 1000.0, elev, 6.5, top_m=top).report()
+        assert r["cloud_base_msl_m"] == top and r["top_msl_m"] == top
+        assert "cloud_base_msl_m" not in r["levels_above_top"]
+        assert not [w for w in r["warnings"] if w.startswith("cloud base")]
+        r = Column(20.0, 5.0, 1000.0, elev, 6.5, top_m=top - 0.01).report()
+        assert r["cloud_base_msl_m"] is None and "cloud_base_msl_m" in r["levels_above_top"]
+
+
 def test_parcel_that_never_freezes_has_no_icing_band():
     # Warm, moist and only 3.5 km deep: free convection to the top, but the parcel
     # stays above 0 degC (still over +5 degC at the top on the fine reference).

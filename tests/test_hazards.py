@@ -751,8 +751,47 @@ def test_dry_neutral_mixed_layer_is_stirred_to_its_top():
 def test_thermal_cloud_base_caps_the_heated_surface_at_60_c():
     # 57 degC plus 5 K: the heated parcel is taken at 60 degC, the warmest the library
     # handles (its input range), never refused.
-    r = Column(57.0, 20.0, 1000.0, 0.0, 9.0, 12000.0).report(5.0)
-    assert r["thermal_cloud_base_msl_m"] == pytest.approx(cloud_base(60.0, 20.0, 1000.0)[0])
+    col = Column(57.0, 20.0, 1000.0, 0.0, 9.0, 12000.0)
+    r = col.report(5.0)
+    want = cloud_base(60.0, 20.0, 1000.0)[0]
+    assert r["thermal_cloud_base_msl_m"] == pytest.approx(want)
+    # The same where thermals computes the heated base itself (a report given to it
+    # without one: Column.report() puts it in, a caller of hazards may not).
+    from lapsecalc import thermals
+    r["thermal_cloud_base_msl_m"] = None
+    thermals.add_keys(col, None, r)
+    assert r["thermal_cloud_base_msl_m"] == pytest.approx(want, abs=1e-9)
+
+
+def test_a_thermal_top_a_metre_above_the_field_is_a_thermal():
+    # thermals.add_keys: a dry-thermal top under 1 m above the field is no thermal
+    # (none: it says from which temperature they would rise), from 1 m up it is one
+    # (blue here: the cloud base is far above). The report of a superadiabatic column
+    # with its thermal top set by hand, the lowest layer not dry-neutral.
+    from lapsecalc import thermals
+    col = Column(30.0, 5.0, 1000.0, 0.0, [(300.0, 12.0), (None, 6.0)], 10000.0)
+    full = col.report(1.0)
+    assert full["stability_layers"][0]["class"] != "dry_neutral"
+    for up, kind in ((1.005, "blue"), (1.0, "blue"), (0.995, "none")):
+        r = dict(full, thermal_top_msl_m=up)
+        thermals.add_keys(col, None, r)
+        assert r["thermal_kind"] == kind, up
+        assert r["thermal_usable_top_msl_m"] == (up if kind == "blue" else None), up
+        assert r["dry_thermals_from_t_c"] == (None if kind == "blue" else full["trigger_t_c"])
+
+
+def test_a_mixed_layer_under_the_cloud_base_lifts_no_thermal_to_it():
+    # A dry-neutral layer (9.7 K/km) to 300 m under an inversion to 1500 m, spread
+    # 6.5 K: the heated base (Romps: about 813 m) lies in the inversion, above the mixed
+    # layer's top, so nothing is stirred up to it: no thermals, no deck.
+    r = Column(10.0, 3.5, 1000.0, 0.0, [(300.0, 9.7), (1500.0, -2.0), (None, 6.5)]).report(0.0)
+    assert r["thermal_top_msl_m"] == 0.0
+    assert r["stability_layers"][0]["class"] == "dry_neutral"
+    assert 300.0 < r["thermal_cloud_base_msl_m"] < 1500.0
+    assert r["thermal_cloud_base_msl_m"] == pytest.approx(cloud_base(10.0, 3.5, 1000.0)[0])
+    assert r["thermal_kind"] == "none" and r["capped_cloud_top_msl_m"] is None
+    assert r["thermal_usable_top_msl_m"] is None
+    assert r["dry_thermals_from_t_c"] == r["trigger_t_c"] > 10.0
 
 
 def test_hazard_keys_are_made_with_the_report():

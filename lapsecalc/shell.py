@@ -60,8 +60,9 @@ def drop_modules(names):
 
 def drop_line_modules(keep=()):
     """Forget every lapsecalc submodule but this one, lapsecalc.state and those named
-    in keep (full names): what a board's Session holds between lines. It makes no new
-    string (it runs after a line that may have run out of heap)."""
+    in keep (full names): what a board's Session holds between lines. lapsecalc._forget's
+    work done for all of them at once, without the short names _forget takes: it makes
+    no new string (it runs after a line that may have run out of heap)."""
     import sys
     import lapsecalc
     gone = [k for k in sys.modules if k.startswith("lapsecalc.") and k not in keep
